@@ -1,0 +1,20 @@
+using System.Collections.Immutable;
+using BarrierLedger.Core.Geometry;
+
+namespace BarrierLedger.Core.Vibrations;
+
+/// <summary>
+/// One normal mode.
+/// </summary>
+/// <param name="FrequencyCm1">Harmonic wavenumber in cm⁻¹; negative for an imaginary mode (the trade writes 512i cm⁻¹ as −512).</param>
+/// <param name="DisplacementCartesian">Cartesian displacement per atom (not mass-weighted), normalised to unit length over all 3N components.</param>
+/// <param name="ReducedMassAmu">Reduced mass in amu; NaN when not known.</param>
+/// <param name="ForceConstantMdynPerAngstrom">Force constant in mdyn/Å (negative for imaginary modes); NaN when not known.</param>
+public sealed record NormalMode(
+    double FrequencyCm1,
+    ImmutableArray<Vec3> DisplacementCartesian,
+    double ReducedMassAmu = double.NaN,
+    double ForceConstantMdynPerAngstrom = double.NaN)
+{
+    public bool IsImaginary => FrequencyCm1 < 0;
+}
