@@ -1,0 +1,81 @@
+using System.Text;
+
+namespace BarrierLedger.Core.Formats;
+
+/// <summary>Bounded reading of a stream into bytes or text, shared by every reader.</summary>
+internal static class TextInput
+{
+    /// <summary>Reads at most <paramref name="maxBytes"/> bytes; null (with an error) when the stream holds more or cannot be read.</summary>
+    public static byte[]? ReadBytes(Stream stream, long maxBytes, IssueCollector issues)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        try
+        {
+            using var buffer = new MemoryStream();
+            var chunk = new byte[81920];
+            long total = 0;
+            int n;
+            while ((n = stream.Read(chunk, 0, chunk.Length)) > 0)
+            {
+                total += n;
+                if (total > maxBytes)
+                {
+                    issues.Error(null, $"file is larger than the limit of {FormatBytes(maxBytes)}; raise ReaderLimits.MaxBytes if it really is this large");
+                    return null;
+                }
+                buffer.Write(chunk, 0, n);
+            }
+            return buffer.ToArray();
+        }
+        catch (IOException ex)
+        {
+            issues.Error(null, $"could not read the file: {ex.Message}");
+            return null;
+        }
+        catch (InvalidDataException ex)
+        {
+            issues.Error(null, $"could not read the file (corrupt compressed data): {ex.Message}");
+            return null;
+        }
+    }
+
+    /// <summary>Decodes UTF-8 (BOM allowed); refuses binary content (NUL bytes) with an error.</summary>
+    public static string? Decode(byte[] bytes, IssueCollector issues)
+    {
+        var span = bytes.AsSpan();
+        var nul = span.IndexOf((byte)0);
+        if (nul >= 0)
+        {
+            var line = 1 + span[..nul].Count((byte)'\n');
+            issues.Error(line, "found a NUL byte: this is a binary file, expected plain text (UTF-8)");
+            return null;
+        }
+        if (span.StartsWith(Encoding.UTF8.Preamble)) span = span[3..];
+        return Encoding.UTF8.GetString(span);
+    }
+
+    public static string? ReadText(Stream stream, ReaderLimits limits, IssueCollector issues)
+    {
+        var bytes = ReadBytes(stream, limits.MaxBytes, issues);
+        return bytes is null ? null : Decode(bytes, issues);
+    }
+
+    /// <summary>Splits into lines on \n, dropping a trailing \r from each.</summary>
+    public static string[] SplitLines(string text)
+    {
+        var lines = text.Split('\n');
+        for (var i = 0; i < lines.Length; i++)
+            if (lines[i].EndsWith('\r')) lines[i] = lines[i][..^1];
+        return lines;
+    }
+
+    public static string FormatBytes(long bytes) =>
+        bytes >= 1024 * 1024 ? $"{bytes / (1024.0 * 1024.0):0.#} MiB" : bytes >= 1024 ? $"{bytes / 1024.0:0.#} KiB" : $"{bytes} bytes";
+
+    /// <summary>Shortens text for quoting in a message.</summary>
+    public static string Quote(string text, int max = 40)
+    {
+        var t = text.Length > max ? text[..max] + "…" : text;
+        return "'" + t.Replace("\t", "\\t") + "'";
+    }
+}
