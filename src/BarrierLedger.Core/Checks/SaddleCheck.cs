@@ -33,7 +33,18 @@ public sealed record SaddleCheckInput(
     Molecule Geometry,
     IReadOnlyList<NormalMode> Modes,
     IReadOnlyList<(int A, int B)>? ReactionBonds = null,
-    ScanProfile? Scan = null);
+    ScanProfile? Scan = null)
+{
+    /// <summary>
+    /// The input from a Cartesian Hessian (row-major 3N×3N, hartree/bohr²): the modes come from
+    /// <see cref="FrequencyAnalysis.FromHessian"/> (translations and rotations projected out). Throws
+    /// <see cref="HessianException"/> when the Hessian is malformed.
+    /// </summary>
+    public static SaddleCheckInput FromHessian(
+        Molecule geometry, double[] hessianHartreePerBohr2, IReadOnlyList<(int A, int B)>? reactionBonds = null,
+        ScanProfile? scan = null, HessianOptions? hessianOptions = null) =>
+        new(geometry, FrequencyAnalysis.FromHessian(geometry, hessianHartreePerBohr2, hessianOptions).Modes, reactionBonds, scan);
+}
 
 /// <summary>
 /// Settings of the saddle-point check.

@@ -45,7 +45,7 @@ internal static class TestSystems
 
     /// <summary>
     /// An invented hydrogen transfer from ethane to a chlorine atom: C1 (methyl carbon) with H3, H4, H5; C2 with H6, H7;
-    /// H8 halfway between C2 and Cl9 (C2–H8 1.40 Å, H8–Cl9 1.45 Å, collinear). Staggered, tetrahedral angles.
+    /// H8 between C2 and Cl9 (C2–H8 1.40 Å, H8–Cl9 1.45 Å, ∠C2–H8–Cl9 165°). Staggered, tetrahedral angles.
     /// </summary>
     public static Molecule HydrogenTransfer()
     {
@@ -60,7 +60,9 @@ internal static class TestSystems
         pos.Add(c2 + rch * Dir(Math.PI - t, Math.PI));                                                           // H7
         var u = Dir(Math.PI - t, 5 * Math.PI / 3);
         pos.Add(c2 + 1.40 * u);                                                                                   // H8
-        pos.Add(c2 + (1.40 + 1.45) * u);                                                                          // Cl9
+        var v = u.Cross(new Vec3(0, 0, 1)).Normalized();
+        var w = Math.Cos(15 * Math.PI / 180) * u + Math.Sin(15 * Math.PI / 180) * v;
+        pos.Add(c2 + 1.40 * u + 1.45 * w);                                                                        // Cl9
         var h = Elements.H;
         return new Molecule([Elements.C, Elements.C, h, h, h, h, h, h, Elements.Get("Cl")], pos, multiplicity: 2);
     }
@@ -71,7 +73,7 @@ internal static class TestSystems
         var p = m.PositionsAngstrom;
         var u = (p[8] - p[1]).Normalized();
         var d = new Vec3[m.AtomCount];
-        d[7] = u;
+        d[7] = (p[7] - p[1]).Normalized() + (p[8] - p[7]).Normalized();
         d[1] = -0.05 * u;
         d[8] = -0.02 * u;
         return Normalised(d);
@@ -104,4 +106,50 @@ internal static class TestSystems
             new(3050, Normalised(ch6)),
         ];
     }
+
+    /// <summary>
+    /// A Cartesian Hessian (hartree/bohr², row-major 3N×3N) from a force field V = ½ Σ k_q q², taken at a stationary point:
+    /// H = Σ k_q b_q b_qᵀ with b_q = ∂q/∂x (Wilson, Decius and Cross, Molecular Vibrations, 1955, ch. 4). Each coordinate is a
+    /// function of the positions in Å; distances count in bohr (k in hartree/bohr²), angles in radians (k in hartree/rad²).
+    /// b is taken by central differences (1e-5 Å).
+    /// </summary>
+    public static double[] ForceFieldHessian(Molecule m, IEnumerable<(double K, Func<Vec3[], double> Q, bool Angular)> terms)
+    {
+        var n = 3 * m.AtomCount;
+        var h = new double[n * n];
+        var pos = m.PositionsAngstrom.ToArray();
+        const double step = 1e-5;
+        foreach (var (k, q, angular) in terms)
+        {
+            var b = new double[n];
+            for (var i = 0; i < n; i++)
+            {
+                var plus = (Vec3[])pos.Clone();
+                var minus = (Vec3[])pos.Clone();
+                plus[i / 3] = Shift(pos[i / 3], i % 3, step);
+                minus[i / 3] = Shift(pos[i / 3], i % 3, -step);
+                var diff = q(plus) - q(minus);
+                if (angular) diff = InternalCoordinates.WrapDegrees(diff * 180 / Math.PI) * Math.PI / 180;
+                // dq/dx per Å → per bohr: multiply by a0 in Å; a distance q is also converted from Å to bohr (divide by a0).
+                b[i] = diff / (2 * step) * BarrierLedger.Core.Units.PhysicalConstants.BohrAngstrom / (angular ? 1.0 : BarrierLedger.Core.Units.PhysicalConstants.BohrAngstrom);
+            }
+            for (var i = 0; i < n; i++)
+                for (var j = 0; j < n; j++)
+                    h[i * n + j] += k * b[i] * b[j];
+        }
+        return h;
+    }
+
+    private static Vec3 Shift(Vec3 v, int c, double d) => c switch
+    {
+        0 => v with { X = v.X + d },
+        1 => v with { Y = v.Y + d },
+        _ => v with { Z = v.Z + d },
+    };
+
+    public static Func<Vec3[], double> Distance(int a, int b) => p => (p[a] - p[b]).Length;
+
+    public static Func<Vec3[], double> AngleRad(int i, int j, int k) => p => InternalCoordinates.AngleDegrees(p[i], p[j], p[k]) * Math.PI / 180;
+
+    public static Func<Vec3[], double> DihedralRad(int i, int j, int k, int l) => p => InternalCoordinates.DihedralDegrees(p[i], p[j], p[k], p[l]) * Math.PI / 180;
 }
