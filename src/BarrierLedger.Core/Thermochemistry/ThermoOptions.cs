@@ -1,0 +1,48 @@
+namespace BarrierLedger.Core.Thermochemistry;
+
+/// <summary>How vibrations are treated in <see cref="Thermochemistry.Compute(Geometry.Molecule, IReadOnlyList{double}, ThermoOptions)"/>.</summary>
+public enum ThermoTreatment
+{
+    /// <summary>Rigid rotor, harmonic oscillator for every real mode.</summary>
+    Rrho,
+    /// <summary>Grimme's quasi-RRHO entropy: low modes interpolate to free-rotor entropy (Chem. Eur. J. 2012, 18, 9955).</summary>
+    QuasiRrhoEntropy,
+    /// <summary>Grimme's entropy plus the analogous enthalpy interpolation of Li, Head-Gordon et al. (J. Phys. Chem. C 2015, 119, 1840).</summary>
+    QuasiRrhoEntropyAndEnthalpy,
+}
+
+/// <summary>The reference state of the translational partition function.</summary>
+public enum StandardState
+{
+    /// <summary>Ideal gas at <see cref="ThermoOptions.PressurePascal"/> (1 atm = 101325 Pa unless changed).</summary>
+    Gas1Atm,
+    /// <summary>Ideal gas at 1 bar = 10⁵ Pa (the IUPAC standard pressure, used by NIST-JANAF).</summary>
+    Gas1Bar,
+    /// <summary>
+    /// Ideal solute at 1 mol/L (or <see cref="ThermoOptions.ConcentrationMolPerL"/>): treated as an ideal gas at the pressure
+    /// p = c R T at which its concentration is c (Ben-Naim's standard-state argument; at 298.15 K, 1 mol/L ↔ 24.46 atm).
+    /// </summary>
+    Solution1Molar,
+}
+
+/// <summary>
+/// Settings for an ideal-gas rigid-rotor harmonic-oscillator thermochemistry.
+/// </summary>
+/// <param name="TemperatureKelvin">T in K, positive.</param>
+/// <param name="PressurePascal">Gas pressure in Pa for <see cref="StandardState.Gas1Atm"/>; leave at 101325 for the other states.</param>
+/// <param name="SymmetryNumber">Rotational symmetry number σ (1 for C₁, 2 for H₂O, CO₂ and N₂, 3 for NH₃, 12 for CH₄ and C₆H₆).</param>
+/// <param name="Treatment">RRHO or a quasi-RRHO variant.</param>
+/// <param name="QuasiRrhoCutoffCm1">ω₀ of the quasi-RRHO damping function w = 1/(1 + (ω₀/ν̃)⁴), cm⁻¹ (Grimme 2012: 100).</param>
+/// <param name="StandardState">Reference state of the translational entropy.</param>
+/// <param name="ConcentrationMolPerL">Concentration for <see cref="StandardState.Solution1Molar"/>, mol/L (default 1; e.g. 55.34 for neat water).</param>
+public sealed record ThermoOptions(
+    double TemperatureKelvin = 298.15,
+    double PressurePascal = Units.PhysicalConstants.StandardAtmospherePascal,
+    int SymmetryNumber = 1,
+    ThermoTreatment Treatment = ThermoTreatment.Rrho,
+    double QuasiRrhoCutoffCm1 = 100.0,
+    StandardState StandardState = StandardState.Gas1Atm,
+    double? ConcentrationMolPerL = null)
+{
+    public static ThermoOptions Default { get; } = new();
+}

@@ -1,0 +1,112 @@
+using System.Security.Claims;
+using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Storage;
+using Microsoft.AspNetCore.Authorization;
+using Microsoft.AspNetCore.Components.Authorization;
+using Microsoft.AspNetCore.Identity;
+using Microsoft.AspNetCore.Mvc;
+
+namespace BarrierLedger.Web.Components.Account;
+
+public static class AuthExtensions
+{
+    public const string MustChangePasswordClaim = "barrierledger:must-change-password";
+    public const string ChangePasswordPath = "/Account/ChangePassword";
+
+    /// <summary>
+    /// Identity on the ledger database with roles; every endpoint requires a signed-in user unless it opts out
+    /// (sign-in, static assets, /health).
+    /// </summary>
+    public static IServiceCollection AddBarrierLedgerAuth(this IServiceCollection services)
+    {
+        services.AddCascadingAuthenticationState();
+        services.AddScoped<IdentityRedirectManager>();
+        services.AddScoped<AuthenticationStateProvider, IdentityRevalidatingAuthenticationStateProvider>();
+        services.AddScoped<AccountBootstrap>();
+        services.AddSingleton<UserAdminService>();
+
+        services.AddAuthentication(o =>
+            {
+                o.DefaultScheme = IdentityConstants.ApplicationScheme;
+                o.DefaultSignInScheme = IdentityConstants.ExternalScheme;
+            })
+            .AddIdentityCookies();
+        services.ConfigureApplicationCookie(o =>
+        {
+            o.LoginPath = "/Account/Login";
+            o.AccessDeniedPath = "/Account/AccessDenied";
+            o.Cookie.Name = "BarrierLedger.Auth";
+        });
+
+        services.AddIdentityCore<LedgerUser>(o =>
+            {
+                o.SignIn.RequireConfirmedAccount = false;
+                o.User.RequireUniqueEmail = false;
+                o.Password.RequiredLength = 10;
+                o.Password.RequireNonAlphanumeric = false;
+                o.Lockout.MaxFailedAccessAttempts = 8;
+            })
+            .AddRoles<IdentityRole>()
+            .AddEntityFrameworkStores<LedgerDbContext>()
+            .AddSignInManager()
+            .AddClaimsPrincipalFactory<LedgerClaimsFactory>()
+            .AddDefaultTokenProviders();
+
+        services.AddAuthorizationBuilder()
+            .SetFallbackPolicy(new AuthorizationPolicyBuilder().RequireAuthenticatedUser().Build())
+            .AddPolicy(Policies.Reviewer, p => p.RequireRole(Roles.Reviewer, Roles.Admin))
+            .AddPolicy(Policies.Admin, p => p.RequireRole(Roles.Admin));
+        return services;
+    }
+
+    /// <summary>An account with a one-time password reaches nothing but the change-password page until it is changed.</summary>
+    public static IApplicationBuilder UseMustChangePassword(this IApplicationBuilder app) =>
+        app.Use(async (context, next) =>
+        {
+            var path = context.Request.Path;
+            if (context.User.HasClaim(MustChangePasswordClaim, "true")
+                && !path.StartsWithSegments("/Account")
+                && !path.StartsWithSegments("/_framework")
+                && !path.StartsWithSegments("/_content")
+                && !path.StartsWithSegments("/health")
+                && !Path.HasExtension(path.Value))
+            {
+                context.Response.Redirect(ChangePasswordPath);
+                return;
+            }
+            await next();
+        });
+
+    public static IEndpointConventionBuilder MapAccountEndpoints(this IEndpointRouteBuilder endpoints)
+    {
+        var group = endpoints.MapGroup("/Account");
+        group.MapPost("/Logout", async ([FromServices] SignInManager<LedgerUser> signIn) =>
+        {
+            await signIn.SignOutAsync();
+            return TypedResults.LocalRedirect("~/Account/Login");
+        });
+        return group;
+    }
+}
+
+public static class Policies
+{
+    public const string Reviewer = "Reviewer";
+    public const string Admin = "Admin";
+}
+
+/// <summary>Adds the must-change-password flag to the sign-in cookie so the middleware needs no database call.</summary>
+internal sealed class LedgerClaimsFactory(
+    Microsoft.AspNetCore.Identity.UserManager<LedgerUser> users,
+    RoleManager<IdentityRole> roles,
+    Microsoft.Extensions.Options.IOptions<IdentityOptions> options)
+    : UserClaimsPrincipalFactory<LedgerUser, IdentityRole>(users, roles, options)
+{
+    protected override async Task<ClaimsIdentity> GenerateClaimsAsync(LedgerUser user)
+    {
+        var identity = await base.GenerateClaimsAsync(user);
+        if (user.MustChangePassword) identity.AddClaim(new Claim(AuthExtensions.MustChangePasswordClaim, "true"));
+        if (!string.IsNullOrEmpty(user.DisplayName)) identity.AddClaim(new Claim("barrierledger:display-name", user.DisplayName));
+        return identity;
+    }
+}

@@ -1,0 +1,29 @@
+using BarrierLedger.Ledger.Storage;
+using BarrierLedger.Web.Components.Account;
+using Microsoft.EntityFrameworkCore;
+
+namespace BarrierLedger.Web.Hosting;
+
+public static class HostingExtensions
+{
+    /// <summary>The dashboard listens on http://127.0.0.1:5080 unless --urls (or ASPNETCORE_URLS) says otherwise.</summary>
+    public static IWebHostBuilder UseBarrierLedgerDefaultAddress(this IWebHostBuilder web, IConfiguration configuration)
+    {
+        if (string.IsNullOrEmpty(configuration["urls"]) && string.IsNullOrEmpty(configuration["ASPNETCORE_URLS"]))
+            web.UseUrls("http://127.0.0.1:5080");
+        return web;
+    }
+
+    /// <summary>Creates the data folder, applies migrations, and makes sure the roles and a first admin exist.</summary>
+    public static async Task PrepareStoreAsync(this WebApplication app)
+    {
+        var options = app.Services.GetRequiredService<LedgerOptions>();
+        var factory = app.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>();
+        await SqliteSetup.PrepareAsync(options, factory);
+        app.Logger.LogInformation("Ledger store: {Path}; web root: {WebRoot}", options.DatabasePath, app.Environment.WebRootPath);
+
+        await using var scope = app.Services.CreateAsyncScope();
+        var bootstrap = scope.ServiceProvider.GetRequiredService<AccountBootstrap>();
+        await bootstrap.EnsureRolesAndFirstAdminAsync(Console.Out);
+    }
+}

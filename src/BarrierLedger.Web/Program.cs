@@ -1,0 +1,42 @@
+using BarrierLedger.Ledger;
+using BarrierLedger.Web.Components;
+using BarrierLedger.Web.Components.Account;
+using BarrierLedger.Web.Hosting;
+
+var builder = WebApplication.CreateBuilder(new WebApplicationOptions
+{
+    Args = args,
+    WebRootPath = WebRootLocator.Find(),
+});
+builder.WebHost.UseBarrierLedgerDefaultAddress(builder.Configuration);
+builder.WebHost.UseStaticWebAssets();
+
+builder.Services.AddRazorComponents().AddInteractiveServerComponents();
+builder.Services.AddLedger(builder.Configuration);
+builder.Services.AddBarrierLedgerAuth();
+
+var app = builder.Build();
+
+await app.PrepareStoreAsync();
+
+if (!app.Environment.IsDevelopment())
+{
+    app.UseExceptionHandler("/Error", createScopeForErrors: true);
+}
+app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
+app.UseStaticFiles();
+app.UseRouting();
+app.UseAuthentication();
+app.UseAuthorization();
+app.UseMustChangePassword();
+app.UseAntiforgery();
+
+app.MapStaticAssets().AllowAnonymous();
+app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
+app.MapAccountEndpoints();
+app.MapGet("/health", () => Results.Ok(new { status = "ok" })).AllowAnonymous();
+
+app.Run();
+
+/// <summary>Entry point type, visible to the test projects.</summary>
+public partial class Program;
