@@ -10,6 +10,7 @@ using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Storage;
 
 namespace BarrierLedger.Ledger.Uploads;
 
