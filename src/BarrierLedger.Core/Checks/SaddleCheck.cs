@@ -20,6 +20,7 @@ public static class SaddleCheckCodes
     public const string NearScanMaximum = "saddle.near-scan-maximum";
     public const string ScanWithoutMaximum = "saddle.scan-without-maximum";
     public const string ScanCoordinateUnknown = "saddle.scan-coordinate-unknown";
+    public const string ModeCharacterUnknown = "saddle.mode-character-unknown";
 }
 
 /// <summary>
@@ -68,7 +69,7 @@ public sealed record SaddleCheckOptions(
     public static SaddleCheckOptions Default { get; } = new();
 }
 
-/// <summary>An imaginary mode below the significance threshold, with what it does.</summary>
+/// <summary>An imaginary mode with what it does (class <see cref="ModeClass.Unknown"/> when the mode came without displacements).</summary>
 public sealed record SoftMode(NormalMode Mode, ModeCharacterResult Character);
 
 /// <summary>The saddle geometry's scanned coordinate against the scan's maximum.</summary>
@@ -129,10 +130,14 @@ public static class SaddleCheck
         var thr = o.SignificantImaginaryCm1;
 
         var imaginary = input.Modes.Where(m => m.IsImaginary).OrderBy(m => m.FrequencyCm1).ToList();
-        var significant = imaginary.Where(m => Math.Abs(m.FrequencyCm1) >= thr)
-            .Select(m => new SoftMode(m, ModeCharacter.Describe(mol, m, bonds, o.ModeCharacter))).ToList();
-        var soft = imaginary.Where(m => Math.Abs(m.FrequencyCm1) < thr)
-            .Select(m => new SoftMode(m, ModeCharacter.Describe(mol, m, bonds, o.ModeCharacter))).ToList();
+        ModeCharacterResult Describe(NormalMode m) =>
+            m.DisplacementCartesian.IsDefaultOrEmpty ? ModeCharacter.Unknown(m) : ModeCharacter.Describe(mol, m, bonds, o.ModeCharacter);
+        var significant = imaginary.Where(m => Math.Abs(m.FrequencyCm1) >= thr).Select(m => new SoftMode(m, Describe(m))).ToList();
+        var soft = imaginary.Where(m => Math.Abs(m.FrequencyCm1) < thr).Select(m => new SoftMode(m, Describe(m))).ToList();
+        if (imaginary.Any(m => m.DisplacementCartesian.IsDefaultOrEmpty))
+            reasons.Add(new(SaddleCheckCodes.ModeCharacterUnknown, CheckSeverity.Attention,
+                "Only wavenumbers were given, without the modes' displacements, so what the imaginary modes move cannot be checked. " +
+                "Provide the normal modes or the Hessian."));
 
         if (imaginary.Count == 0)
         {
@@ -149,7 +154,7 @@ public static class SaddleCheck
         else if (significant.Count > 1)
         {
             reasons.Add(new(SaddleCheckCodes.SeveralSignificantImaginaryModes, CheckSeverity.Failure,
-                $"There are {significant.Count} significant imaginary frequencies ({string.Join("; ", significant.Select(s => $"{Wave(s.Mode)}: {s.Character.Summary}"))}). " +
+                $"There are {significant.Count} significant imaginary frequencies ({string.Join("; ", significant.Select(s => $"{Wave(s.Mode)}: {Summary(s)}"))}). " +
                 "A saddle point for one reaction step has exactly one; follow the unwanted mode down and optimise again."));
         }
 
@@ -158,14 +163,14 @@ public static class SaddleCheck
         {
             character = significant[0].Character;
             reasons.Add(new(SaddleCheckCodes.ReactionMode, CheckSeverity.Info,
-                $"One significant imaginary frequency, {Wave(significant[0].Mode)}: {character.Summary}."));
+                $"One significant imaginary frequency, {Wave(significant[0].Mode)}: {Summary(significant[0])}."));
             if (bonds.Count == 0)
             {
                 reasons.Add(new(SaddleCheckCodes.NoReactionBondDeclared, CheckSeverity.Attention,
                     "No reaction bond is declared, so nobody has checked that the imaginary mode is the intended reaction. " +
                     "Declare the atom pairs that form or break (e.g. C3–C11) on the reaction."));
             }
-            else
+            else if (character.Class != ModeClass.Unknown)
             {
                 var leading = character.Leading(o.LeadingComponentCount).Where(c => c.Share >= o.LeadingMinimumShare).ToList();
                 if (!leading.Any(c => c.IsReactionBond))
@@ -182,10 +187,10 @@ public static class SaddleCheck
         foreach (var s in soft.Where(_ => significant.Count > 0))
         {
             reasons.Add(new(SaddleCheckCodes.SoftImaginaryMode, CheckSeverity.Attention,
-                $"A small imaginary frequency, {Wave(s.Mode)} (below the {Num(thr)}i cm⁻¹ threshold): {s.Character.Summary}. " +
-                (s.Character.RotorLike
+                $"A small imaginary frequency, {Wave(s.Mode)} (below the {Num(thr)}i cm⁻¹ threshold): {Summary(s)}. " +
+                (s.Character is { RotorLike: true }
                     ? "A terminal group turning like this is common and often acceptable after inspection; a tighter optimisation or a finer integration grid usually removes it."
-                    : s.Character.Class == ModeClass.NumericalNoise
+                    : s.Character is { Class: ModeClass.NumericalNoise }
                         ? "This looks like numerical noise from loose convergence; tighten the optimisation and recompute the frequencies."
                         : "Inspect it: it may be loose convergence, or a second reaction path; displacing along it and reoptimising tells which.")));
         }
@@ -232,6 +237,8 @@ public static class SaddleCheck
         return new SaddleCheckResult(CheckReason.VerdictOf(ordered), ordered,
             significant.Count == 1 ? significant[0].Mode : null, character, significant, soft, comparison);
     }
+
+    private static string Summary(SoftMode s) => s.Character.Summary;
 
     private static string Wave(NormalMode m) =>
         m.IsImaginary ? $"{Num(Math.Abs(m.FrequencyCm1))}i cm⁻¹" : $"{Num(m.FrequencyCm1)} cm⁻¹";
