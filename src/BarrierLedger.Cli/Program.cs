@@ -52,6 +52,7 @@ public static class Program
     {
         var root = new RootCommand("barrierledger: read quantum-chemistry results, analyse frequencies, thermochemistry, rates and scans.");
         root.Subcommands.Add(ValidateCommand.Create(context));
+        root.Subcommands.Add(DemoCommand.Create(context));
         return root;
     }
 
