@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Units;
 
 namespace BarrierLedger.Cli;
 
@@ -11,7 +12,7 @@ public sealed record LoadedInput(string Path, FileFormat Format, object? Value, 
 /// <summary>Opens a path, detects its format and reads it. Missing files and unknown formats become issues, never exceptions.</summary>
 public static class InputLoader
 {
-    public static LoadedInput Load(string path, ReaderLimits? limits = null, FileFormat? forced = null)
+    public static LoadedInput Load(string path, ReaderLimits? limits = null, FileFormat? forced = null, EnergyUnit? scanUnit = null)
     {
         var name = System.IO.Path.GetFileName(path);
         if (!File.Exists(path))
@@ -32,8 +33,23 @@ public static class InputLoader
         return format switch
         {
             FileFormat.Xyz => From(path, format, XyzReader.Read(stream, name, limits)),
+            FileFormat.CsvScan => From(path, format, ScanTableReader.Read(stream, name, scanUnit, limits)),
+            FileFormat.QcSchema => From(path, format, QcSchemaReader.Read(stream, name, limits)),
+            FileFormat.Bundle or FileFormat.BundleZip => From(path, format, BundleReader.Read(stream, name, limits, OpenBeside(path))),
             _ => Fail(path, format,
                 $"cannot tell the format of '{name}': expected .xyz or .extxyz, .csv/.tsv/.txt scan table, QCSchema .json, bundle .json or .zip"),
+        };
+    }
+
+    /// <summary>Opens files a bare manifest names, relative to the manifest's folder (paths already checked safe by the reader).</summary>
+    private static Func<string, Stream?> OpenBeside(string manifestPath)
+    {
+        var dir = System.IO.Path.GetDirectoryName(System.IO.Path.GetFullPath(manifestPath))!;
+        return relative =>
+        {
+            var full = System.IO.Path.GetFullPath(System.IO.Path.Combine(dir, relative));
+            if (!full.StartsWith(dir + System.IO.Path.DirectorySeparatorChar, StringComparison.Ordinal)) return null;
+            return File.Exists(full) ? File.OpenRead(full) : null;
         };
     }
 

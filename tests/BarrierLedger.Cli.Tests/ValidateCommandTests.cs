@@ -47,3 +47,39 @@ public class ValidateCommandTests
         Assert.Contains("unknown element 'Qq'", issue.GetProperty("message").GetString());
     }
 }
+
+public class ValidateFormatsTests
+{
+    [Fact]
+    public void Each_format_is_recognised_and_broken_files_are_located()
+    {
+        using var dir = new TempDir();
+        var csv = dir.Write("scan.csv", "r,energy (kcal/mol)\n1.0,0.0\n1.1,abc\n");
+        var qc = dir.Write("w.json", "{\"schema_name\":\"qcschema_output\",\"molecule\":{\"symbols\":[\"O\",\"H\"],\"geometry\":[0,0,0,0,0]},\"driver\":\"energy\",\"return_result\":-75.0}");
+        var bundle = dir.Write("bundle.json", "{\"format\":\"barrierledger-bundle\",\"format_version\":1,\"study\":{\"name\":\"x\"},\"species\":[{\"label\":\"A\",\"charge\":\"0\",\"multiplicity\":1}]}");
+        var (code, output, _) = CliRunner.Run("validate", csv, qc, bundle);
+        Assert.Equal(2, code);
+        Assert.Contains("scan.csv: csv-scan, NOT readable", output);
+        Assert.Contains("scan.csv:3: error: energy 'abc' is not a number", output);
+        Assert.Contains("w.json: qcschema, NOT readable", output);
+        Assert.Contains("w.json $.molecule.geometry: error: has 5 numbers, expected 3 × 2 atoms = 6", output);
+        Assert.Contains("bundle.json $.species[0].charge: error: expected a whole number, found a string", output);
+    }
+
+    [Fact]
+    public void Bare_manifest_opens_named_files_beside_it_but_not_outside()
+    {
+        using var dir = new TempDir();
+        dir.Write("h.xyz", "1\nenergy=-0.5 charge=0 multiplicity=2\nH 0 0 0\n");
+        var ok = dir.Write("ok.json", Manifest("h.xyz"));
+        Assert.Equal(0, CliRunner.Run("validate", ok).Code);
+        var bad = dir.Write("bad.json", Manifest("../h.xyz"));
+        var (code, output, _) = CliRunner.Run("validate", bad);
+        Assert.Equal(2, code);
+        Assert.Contains("$.calculations[0].file: error: file path '../h.xyz' is not allowed", output);
+    }
+
+    private static string Manifest(string file) =>
+        "{\"format\":\"barrierledger-bundle\",\"format_version\":1,\"study\":{\"name\":\"x\"},\"species\":[{\"label\":\"H\",\"charge\":0,\"multiplicity\":2}]," +
+        "\"calculations\":[{\"label\":\"h\",\"species\":\"H\",\"kind\":\"minimum\",\"level_of_theory\":\"HF/STO-3G\",\"file\":\"" + file + "\"}]}";
+}

@@ -17,16 +17,23 @@ namespace BarrierLedger.Core.Formats;
 /// </summary>
 public static class XyzReader
 {
-    public static ReadResult<XyzDocument> Read(Stream stream, string fileName, ReaderLimits? limits = null)
+    public static ReadResult<XyzDocument> Read(Stream stream, string fileName, ReaderLimits? limits = null) =>
+        Read(stream, fileName, limits, warnUnstatedOddElectrons: true);
+
+    /// <summary>
+    /// As <see cref="Read(Stream, string, ReaderLimits?)"/>; a caller that supplies charge and multiplicity itself
+    /// (the bundle's species) turns off the warning for an odd electron count without charge=/multiplicity= keys.
+    /// </summary>
+    internal static ReadResult<XyzDocument> Read(Stream stream, string fileName, ReaderLimits? limits, bool warnUnstatedOddElectrons)
     {
         limits ??= ReaderLimits.Default;
         var issues = new IssueCollector(fileName, limits.MaxIssues);
         var text = TextInput.ReadText(stream, limits, issues);
         if (text is null) return issues.Result<XyzDocument>(null);
-        return Parse(text, issues, limits);
+        return Parse(text, issues, limits, warnUnstatedOddElectrons);
     }
 
-    /// <summary>Reads from text already in memory (the same rules as <see cref="Read"/>).</summary>
+    /// <summary>Reads from text already in memory (the same rules as <see cref="Read(Stream, string, ReaderLimits?)"/>).</summary>
     public static ReadResult<XyzDocument> ReadText(string text, string fileName, ReaderLimits? limits = null)
     {
         limits ??= ReaderLimits.Default;
@@ -36,12 +43,12 @@ public static class XyzReader
             issues.Error(null, $"file is larger than the limit of {TextInput.FormatBytes(limits.MaxBytes)}");
             return issues.Result<XyzDocument>(null);
         }
-        return Parse(text, issues, limits);
+        return Parse(text, issues, limits, true);
     }
 
     private sealed record Column(string Name, char Type, int Count, int Offset);
 
-    private static ReadResult<XyzDocument> Parse(string text, IssueCollector issues, ReaderLimits limits)
+    private static ReadResult<XyzDocument> Parse(string text, IssueCollector issues, ReaderLimits limits, bool warnUnstatedOddElectrons)
     {
         var lines = TextInput.SplitLines(text);
         var frames = new List<XyzFrame>();
@@ -221,7 +228,7 @@ public static class XyzReader
                 if (keys.ContainsKey("charge") || keys.ContainsKey("multiplicity"))
                     issues.Error(commentLine, $"{molecule.ElectronCount} electrons cannot have spin multiplicity {multiplicity} " +
                                               "(an even electron count needs an odd multiplicity and vice versa); check charge= and multiplicity=");
-                else
+                else if (warnUnstatedOddElectrons)
                     issues.Warning(commentLine, $"{molecule.ElectronCount} electrons (odd) but no charge= or multiplicity= given; " +
                                                 "read as neutral singlet, which is impossible: state them in the comment or in the bundle species");
             }

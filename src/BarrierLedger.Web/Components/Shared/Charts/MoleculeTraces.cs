@@ -1,0 +1,51 @@
+using BarrierLedger.Core.Geometry;
+using Plotly.Blazor;
+using Plotly.Blazor.Traces;
+using Plotly.Blazor.Traces.Scatter3DLib;
+
+namespace BarrierLedger.Web.Components.Shared.Charts;
+
+/// <summary>A ball-and-stick picture of a molecule as two Plotly 3D traces (atoms, then bonds), plus the data the animation needs.</summary>
+public static class MoleculeTraces
+{
+    private static readonly Dictionary<string, string> s_colours = new(StringComparer.Ordinal)
+    {
+        ["H"] = "#d9dde1", ["C"] = "#3b4650", ["N"] = "#3a62c4", ["O"] = "#cc3a2f", ["F"] = "#5fb84a", ["Cl"] = "#3f9a3a",
+        ["S"] = "#d4b21f", ["P"] = "#e0832b", ["Br"] = "#8c3a1a", ["I"] = "#6b2a8f", ["B"] = "#e3a58a", ["Si"] = "#b3a27a",
+    };
+
+    public static string Colour(string symbol) => s_colours.GetValueOrDefault(symbol, "#9c6fb5");
+
+    /// <summary>Bonds from covalent radii, as 0-based pairs.</summary>
+    public static IReadOnlyList<(int A, int B)> Bonds(Molecule m) =>
+        Connectivity.Of(m).Bonds.Select(b => (b.A, b.B)).ToList();
+
+    public static IList<ITrace> Build(Molecule m, IReadOnlyList<(int A, int B)> bonds)
+    {
+        var p = m.PositionsAngstrom;
+        var atoms = new Scatter3D
+        {
+            Name = "atoms", Mode = ModeFlag.Markers, ShowLegend = false,
+            X = p.Select(v => (object)v.X).ToList(), Y = p.Select(v => (object)v.Y).ToList(), Z = p.Select(v => (object)v.Z).ToList(),
+            HoverTextArray = Enumerable.Range(0, m.AtomCount).Select(m.AtomLabel).ToList(),
+            HoverInfo = Plotly.Blazor.Traces.Scatter3DLib.HoverInfoFlag.Text,
+            Marker = new Marker
+            {
+                ColorArray = m.Elements.Select(e => (object)Colour(e.Symbol)).ToList(),
+                SizeArray = m.Elements.Select(e => (decimal?)(e.AtomicNumber == 1 ? 7 : 11)).ToList(),
+                Line = new Plotly.Blazor.Traces.Scatter3DLib.MarkerLib.Line { Color = "#1b2430", Width = 1 },
+            },
+        };
+        var bx = new List<object?>(); var by = new List<object?>(); var bz = new List<object?>();
+        foreach (var (a, b) in bonds)
+        {
+            bx.AddRange([p[a].X, p[b].X, null]); by.AddRange([p[a].Y, p[b].Y, null]); bz.AddRange([p[a].Z, p[b].Z, null]);
+        }
+        var sticks = new Scatter3D
+        {
+            Name = "bonds", Mode = ModeFlag.Lines, ShowLegend = false, HoverInfo = Plotly.Blazor.Traces.Scatter3DLib.HoverInfoFlag.Skip,
+            X = bx!, Y = by!, Z = bz!, Line = new Line { Color = "#7b8794", Width = 6 },
+        };
+        return [atoms, sticks];
+    }
+}

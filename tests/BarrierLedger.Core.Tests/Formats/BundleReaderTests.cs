@@ -1,0 +1,317 @@
+using System.IO.Compression;
+using System.Text;
+using System.Text.Json;
+using System.Text.Json.Nodes;
+using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Scans;
+using BarrierLedger.Core.Tests.Support;
+using BarrierLedger.Core.Units;
+using static BarrierLedger.Core.Tests.Formats.FormatTestHelpers;
+
+namespace BarrierLedger.Core.Tests.Formats;
+
+public class BundleReaderTests
+{
+    private static readonly string[] s_sampleFiles = ["h2.xyz", "ts1.xyz", "scans/c1h5.csv", "scans/c1h5.xyz"];
+
+    private static string SampleText() => File.ReadAllText(RepoFiles.Sample("sample-bundle.json"));
+
+    private static Stream? OpenSample(string relative)
+    {
+        var p = Path.Combine(RepoFiles.SamplesDir, relative);
+        return File.Exists(p) ? File.OpenRead(p) : null;
+    }
+
+    private static ReadResult<Bundle> ReadJson(string json, ReaderLimits? limits = null) =>
+        BundleReader.Read(Utf8(json), "bundle.json", limits, OpenSample);
+
+    internal static byte[] Zip(IEnumerable<(string Name, byte[] Content)> entries)
+    {
+        var ms = new MemoryStream();
+        using (var zip = new ZipArchive(ms, ZipArchiveMode.Create, leaveOpen: true))
+        {
+            foreach (var (name, content) in entries)
+            {
+                var e = zip.CreateEntry(name, CompressionLevel.Optimal);
+                using var s = e.Open();
+                s.Write(content);
+            }
+        }
+        return ms.ToArray();
+    }
+
+    internal static byte[] SampleZip() =>
+        Zip(s_sampleFiles.Select(f => (f, File.ReadAllBytes(RepoFiles.Sample(f))))
+            .Prepend(("bundle.json", File.ReadAllBytes(RepoFiles.Sample("sample-bundle.json")))));
+
+    [Fact]
+    public void Sample_bundle_passes_the_schema_and_the_reader()
+    {
+        using var schemaDoc = JsonDocument.Parse(File.ReadAllText(RepoFiles.Path("docs", "bundle.schema.json")));
+        using var sample = JsonDocument.Parse(SampleText());
+        var schemaErrors = new MiniJsonSchema(schemaDoc.RootElement).Validate(sample.RootElement);
+        Assert.True(schemaErrors.Count == 0, string.Join("\n", schemaErrors));
+        var r = ReadJson(SampleText());
+        Assert.True(r.Succeeded, string.Join("\n", r.Issues));
+        Assert.Empty(r.Warnings);
+    }
+
+    [Fact]
+    public void Sample_bundle_is_read_into_the_records_the_store_imports()
+    {
+        var b = ReadJson(SampleText()).GetValueOrThrow();
+        Assert.Equal(1, b.FormatVersion);
+        Assert.Equal(5, b.Species.Length);
+        Assert.Equal(2, b.Species.Single(s => s.Label == "CH3").Multiplicity);
+
+        var ch3 = b.Calculations.Single(c => c.Label == "CH3-opt");
+        Assert.Equal(CalculationKind.Minimum, ch3.Kind);
+        Assert.Equal("B3LYP", ch3.LevelOfTheory.Method);
+        Assert.Equal(4, ch3.Geometry!.AtomCount);
+        Assert.Equal(2, ch3.Geometry.Multiplicity);
+        Assert.Equal(6, ch3.FrequenciesCm1.Length);
+        Assert.Equal(0.0095, ch3.ThermalCorrections!.GibbsHartree);
+
+        var h2 = b.Calculations.Single(c => c.Label == "H2-opt");
+        Assert.Equal(-1.17, h2.EnergyHartree);
+        Assert.Equal("h2.xyz", h2.File);
+
+        var ts = b.Calculations.Single(c => c.Label == "TS1-opt");
+        Assert.Equal(CalculationKind.SaddlePoint, ts.Kind);
+        Assert.Equal(-40.95, ts.EnergyHartree);
+        Assert.Equal([-1650.0], ts.FrequenciesCm1.ToArray());
+        var mode = Assert.Single(ts.Modes);
+        Close.Absolute(1.0, Math.Sqrt(mode.DisplacementCartesian.Sum(v => v.LengthSquared)), 1e-12, "mode displacement norm", "normalised on reading (definition)");
+
+        var sp = b.Calculations.Single(c => c.Label == "TS1-sp");
+        Assert.Equal("B3LYP", sp.LevelOfTheory.GeometryLevel!.Method);
+
+        var reaction = Assert.Single(b.Reactions);
+        Assert.Equal(["CH3 + H2", "TS1", "CH4 + H"], reaction.States.Select(s => s.Label));
+        var tsState = reaction.States[1];
+        Assert.Equal(BundleStateKind.SaddlePoint, tsState.Kind);
+        Assert.Equal("TS1-opt", tsState.Calculation);
+        Assert.Equal([new BundleAtomPair(1, 5), new BundleAtomPair(5, 6)], tsState.ReactionCoordinate.ToArray());
+        Assert.Equal(1, reaction.States[0].Terms[1].Coefficient);
+
+        var inline = b.Scans.Single(s => s.Label == "C1-H5 inline");
+        Assert.Equal(ScanCoordinateKind.Distance, inline.Coordinate.Kind);
+        Assert.Equal([0, 4], inline.Coordinate.Atoms.ToArray());
+        Assert.False(inline.Points[2].Converged);
+
+        var fromFiles = b.Scans.Single(s => s.Label == "C1-H5 from files");
+        Assert.Equal(2, fromFiles.Points.Length);
+        // 3.1 kcal/mol in hartree with 627.5094740631 kcal/mol per Eh (CODATA 2018, via Energy).
+        Close.Absolute(3.1 / Energy.KcalPerMolPerHartree, fromFiles.Points[1].EnergyHartree, 1e-15, "scan energy from kcal/mol", "CODATA 2018 hartree");
+        Assert.Equal(1.5, fromFiles.Points[1].Geometry!.PositionsAngstrom[4].X);
+        Assert.Equal(2, fromFiles.Points[1].Geometry!.Multiplicity);
+
+        Assert.Equal(s_sampleFiles.Order(), b.Files.Keys.Order());
+        Assert.Equal(File.ReadAllBytes(RepoFiles.Sample("ts1.xyz")), b.Files["ts1.xyz"].ToArray());
+    }
+
+    [Fact]
+    public void Zip_bundle_reads_the_same_as_manifest_with_files()
+    {
+        var fromZip = BundleReader.Read(new MemoryStream(SampleZip()), "demo.zip").GetValueOrThrow();
+        var fromJson = ReadJson(SampleText()).GetValueOrThrow();
+        Assert.Equal(fromJson.Calculations.Select(c => (c.Label, c.EnergyHartree, c.Geometry?.AtomCount)), fromZip.Calculations.Select(c => (c.Label, c.EnergyHartree, c.Geometry?.AtomCount)));
+        Assert.Equal(fromJson.Scans.SelectMany(s => s.Points).Select(p => p.EnergyHartree), fromZip.Scans.SelectMany(s => s.Points).Select(p => p.EnergyHartree));
+        Assert.Equal(fromJson.Files.Keys.Order(), fromZip.Files.Keys.Order());
+    }
+
+    [Fact]
+    public void Schema_and_reader_know_the_same_keys_and_kinds()
+    {
+        using var schema = JsonDocument.Parse(File.ReadAllText(RepoFiles.Path("docs", "bundle.schema.json")));
+        var defs = schema.RootElement.GetProperty("$defs");
+        var schemaDefs = defs.EnumerateObject().Select(d => d.Name).Order().ToList();
+        Assert.Equal(BundleReader.KnownKeys.Keys.Order(), schemaDefs);
+        foreach (var def in defs.EnumerateObject())
+        {
+            var keys = def.Value.GetProperty("properties").EnumerateObject().Select(p => p.Name).Order();
+            Assert.Equal(BundleReader.KnownKeys[def.Name].Order(), keys);
+            Assert.False(def.Value.GetProperty("additionalProperties").GetBoolean());
+        }
+        var kinds = defs.GetProperty("calculation").GetProperty("properties").GetProperty("kind").GetProperty("enum").EnumerateArray().Select(e => e.GetString()!);
+        Assert.Equal(BundleReader.KindNames.Keys.Order(), kinds.Order());
+        Assert.Equal(BundleReader.FormatName, defs.GetProperty("bundle").GetProperty("properties").GetProperty("format").GetProperty("const").GetString());
+    }
+
+    /// <summary>Where each $defs object first occurs in the sample, to remove its required keys one at a time.</summary>
+    private static readonly (string Def, Func<JsonNode, JsonObject> Find)[] s_instances =
+    [
+        ("bundle", n => n.AsObject()),
+        ("study", n => n["study"]!.AsObject()),
+        ("species", n => n["species"]![0]!.AsObject()),
+        ("calculation", n => n["calculations"]![0]!.AsObject()),
+        ("geometry", n => n["calculations"]![0]!["geometry"]!.AsObject()),
+        ("thermal_corrections", n => n["calculations"]![0]!["thermal_corrections"]!.AsObject()),
+        ("mode", n => n["calculations"]![2]!["modes"]![0]!.AsObject()),
+        ("reaction", n => n["reactions"]![0]!.AsObject()),
+        ("state", n => n["reactions"]![0]!["states"]![1]!.AsObject()),
+        ("term", n => n["reactions"]![0]!["states"]![0]!["terms"]![0]!.AsObject()),
+        ("scan", n => n["scans"]![0]!.AsObject()),
+        ("coordinate", n => n["scans"]![0]!["coordinate"]!.AsObject()),
+        ("point", n => n["scans"]![0]!["points"]![0]!.AsObject()),
+    ];
+
+    [Fact]
+    public void Every_key_the_schema_requires_is_required_by_the_reader()
+    {
+        using var schema = JsonDocument.Parse(File.ReadAllText(RepoFiles.Path("docs", "bundle.schema.json")));
+        var defs = schema.RootElement.GetProperty("$defs");
+        var checkedKeys = 0;
+        foreach (var (def, find) in s_instances)
+        {
+            foreach (var key in defs.GetProperty(def).GetProperty("required").EnumerateArray().Select(k => k.GetString()!))
+            {
+                var node = JsonNode.Parse(SampleText())!;
+                Assert.True(find(node).Remove(key), $"{def}.{key} is not in the sample");
+                var r = ReadJson(node.ToJsonString());
+                Assert.False(r.Succeeded, $"reader accepted {def} without '{key}'");
+                Assert.Contains(r.Errors, e => (e.JsonPath ?? "").EndsWith("." + key) || e.Message.Contains($"'{key}'"));
+                checkedKeys++;
+            }
+        }
+        Assert.True(checkedKeys >= 25, $"only {checkedKeys} required keys checked");
+    }
+
+    [Fact]
+    public void Unknown_key_is_a_warning_naming_the_known_keys()
+    {
+        var node = JsonNode.Parse(SampleText())!;
+        node["species"]![0]!["multiplicty"] = 2;
+        var r = ReadJson(node.ToJsonString());
+        Assert.True(r.Succeeded);
+        var w = Assert.Single(r.Warnings);
+        Assert.Equal("$.species[0].multiplicty", w.JsonPath);
+        Assert.Contains("expected one of: label, charge, multiplicity", w.Message);
+    }
+
+    // Table of manifest errors: a change to the sample, the expected JSON path and wording.
+    public static TheoryData<string, Action<JsonNode>, string, string[]> ManifestErrors => new()
+    {
+        { "wrong format", n => n["format"] = "other", "$.format", ["expected 'barrierledger-bundle'"] },
+        { "newer version", n => n["format_version"] = 7, "$.format_version", ["understands format_version 1"] },
+        { "charge as text", n => n["species"]![1]!["charge"] = "0", "$.species[1].charge", ["expected a whole number, found a string"] },
+        { "multiplicity 0", n => n["species"]![1]!["multiplicity"] = 0, "$.species[1].multiplicity", ["is 0; expected 1 or more"] },
+        { "duplicate species", n => n["species"]![1]!["label"] = "CH3", "$.species[1].label", ["already defined at $.species[0]"] },
+        { "unknown species", n => n["calculations"]![0]!["species"] = "CH5", "$.calculations[0].species", ["'CH5'", "not in $.species"] },
+        { "unknown kind", n => n["calculations"]![0]!["kind"] = "transition_state", "$.calculations[0].kind", ["'transition_state'", "saddle_point"] },
+        { "positive energy", n => n["calculations"]![0]!["energy_hartree"] = 12.5, "$.calculations[0].energy_hartree", ["not negative"] },
+        { "energy in kcal/mol", n => n["calculations"]![0]!["energy_hartree"] = -24975.0, "$.calculations[0].energy_hartree", ["lowest plausible", "CH3"] },
+        { "geometry count", n => n["calculations"]![0]!["geometry"]!["positions_angstrom"]!.AsArray().RemoveAt(3), "$.calculations[0].geometry.positions_angstrom", ["3 positions for 4 symbols"] },
+        { "geometry triple", n => n["calculations"]![0]!["geometry"]!["positions_angstrom"]![1]!.AsArray().RemoveAt(2), "$.calculations[0].geometry.positions_angstrom[1]", ["[x, y, z]", "2 numbers"] },
+        { "duplicate atom", n => n["calculations"]![0]!["geometry"]!["positions_angstrom"]![1] = new JsonArray(0, 0, 0), "$.calculations[0].geometry.positions_angstrom", ["C1 and H2 are at the same position"] },
+        { "bad symbol", n => n["calculations"]![0]!["geometry"]!["symbols"]![2] = "Hq", "$.calculations[0].geometry.symbols[2]", ["'Hq' is not an element"] },
+        { "parity", n => n["species"]![0]!["multiplicity"] = 1, "$.species[0].multiplicity", ["9 electrons", "multiplicity 1"] },
+        { "thermal temperature", n => n["calculations"]![0]!["thermal_corrections"]!["temperature_kelvin"] = -5, "$.calculations[0].thermal_corrections.temperature_kelvin", ["above 0 K"] },
+        { "thermal in kcal", n => n["calculations"]![0]!["thermal_corrections"]!["gibbs_hartree"] = 5.96, "$.calculations[0].thermal_corrections.gibbs_hartree", ["fraction of a hartree"] },
+        { "hessian size", n => n["calculations"]![0]!["hessian_hartree_per_bohr2"] = new JsonArray(1.0, 0.0, 0.0, 1.0), "$.calculations[0].hessian_hartree_per_bohr2", ["4 entries", "expected (3 × 4)² = 144"] },
+        { "mode size", n => n["calculations"]![2]!["modes"]![0]!["displacements"]!.AsArray().RemoveAt(5), "$.calculations[2].modes[0].displacements", ["15 numbers", "6 atoms"] },
+        { "file traversal", n => n["calculations"]![1]!["file"] = "../secret.xyz", "$.calculations[1].file", ["not allowed", "'..'"] },
+        { "file missing", n => n["calculations"]![1]!["file"] = "nothere.xyz", "$.calculations[1].file", ["'nothere.xyz' not found"] },
+        { "saddle without calculation", n => n["reactions"]![0]!["states"]![1]!.AsObject().Remove("calculation"), "$.reactions[0].states[1]", ["must name its calculation"] },
+        { "state kind", n => n["reactions"]![0]!["states"]![0]!["kind"] = "intermediate", "$.reactions[0].states[0].kind", ["'minimum' or 'saddle_point'"] },
+        { "term species", n => n["reactions"]![0]!["states"]![2]!["terms"]![0]!["species"] = "CH4x", "$.reactions[0].states[2].terms[0].species", ["'CH4x'"] },
+        { "coefficient 0", n => n["reactions"]![0]!["states"]![0]!["terms"]![0]!["coefficient"] = 0, "$.reactions[0].states[0].terms[0].coefficient", ["expected 1 or more"] },
+        { "coordinate atom beyond geometry", n => n["reactions"]![0]!["states"]![1]!["reaction_coordinate"]![1]![1] = 9, "$.reactions[0].states[1].reaction_coordinate[1]", ["atom 9 does not exist", "6 atoms"] },
+        { "coordinate pair same atom", n => n["reactions"]![0]!["states"]![1]!["reaction_coordinate"]![0] = new JsonArray(5, 5), "$.reactions[0].states[1].reaction_coordinate[0]", ["atom 5 twice"] },
+        { "coordinate on minimum", n => n["reactions"]![0]!["states"]![0]!["reaction_coordinate"] = new JsonArray(new JsonArray(1, 2)), "$.reactions[0].states[0].reaction_coordinate", ["only a saddle_point state"] },
+        { "calculation of other species", n => n["reactions"]![0]!["states"]![1]!["calculation"] = "CH3-opt", "$.reactions[0].states[1].calculation", ["species 'CH3'", "not among this state's terms"] },
+        { "one state", n => { n["reactions"]![0]!["states"]!.AsArray().RemoveAt(2); n["reactions"]![0]!["states"]!.AsArray().RemoveAt(1); }, "$.reactions[0].states", ["1 state(s)"] },
+        { "scan atoms count", n => n["scans"]![0]!["coordinate"]!["atoms"]!.AsArray().Add(3), "$.scans[0].coordinate.atoms", ["a distance needs 2"] },
+        { "scan coordinate kind", n => n["scans"]![0]!["coordinate"]!["kind"] = "bond", "$.scans[0].coordinate.kind", ["'distance', 'angle' or 'dihedral'"] },
+        { "scan points and file", n => n["scans"]![0]!["points_file"] = "scans/c1h5.csv", "$.scans[0]", ["both 'points' and 'points_file'"] },
+        { "scan energy text", n => n["scans"]![0]!["points"]![1]!["energy_hartree"] = "x", "$.scans[0].points[1].energy_hartree", ["expected a number, found a string"] },
+        { "scan geometries mismatch", n => n["scans"]![1]!["geometries_file"] = "ts1.xyz", "$.scans[1].geometries_file", ["1 frames for 2 points"] },
+        { "level of theory empty", n => n["calculations"]![0]!["level_of_theory"] = "", "$.calculations[0].level_of_theory", ["is empty"] },
+        { "study missing", n => n.AsObject().Remove("study"), "$.study", ["missing; expected an object"] },
+        { "duplicate calculation", n => n["calculations"]![3]!["label"] = "CH3-opt", "$.calculations[3].label", ["already defined at $.calculations[0]"] },
+    };
+
+    [Theory]
+    [MemberData(nameof(ManifestErrors))]
+    public void Manifest_errors_name_the_json_path_and_what_was_expected(string what, Action<JsonNode> change, string path, string[] fragments)
+    {
+        var node = JsonNode.Parse(SampleText())!;
+        change(node);
+        var r = ReadJson(node.ToJsonString());
+        Assert.False(r.Succeeded, what);
+        Assert.True(r.Errors.Any(e => e.JsonPath == path && fragments.All(f => e.Message.Contains(f))),
+            $"{what}: expected an error at {path} containing [{string.Join(" | ", fragments)}], got:\n{string.Join("\n", r.Issues)}");
+    }
+
+    [Fact]
+    public void Invalid_json_gives_the_line()
+    {
+        var r = ReadJson("{\n  \"format\": \"barrierledger-bundle\",\n  \"format_version\": 1,\n  oops\n}");
+        SingleError(r, 4, null, "not valid JSON");
+    }
+
+    [Fact]
+    public void Errors_inside_a_named_file_carry_that_file_and_line()
+    {
+        var zip = Zip([("bundle.json", Encoding.UTF8.GetBytes(SampleText())), ("h2.xyz", "2\n\nH 0 0 0\nH 0 0\n"u8.ToArray()),
+            ("ts1.xyz", File.ReadAllBytes(RepoFiles.Sample("ts1.xyz"))), ("scans/c1h5.csv", File.ReadAllBytes(RepoFiles.Sample("scans/c1h5.csv"))),
+            ("scans/c1h5.xyz", File.ReadAllBytes(RepoFiles.Sample("scans/c1h5.xyz")))]);
+        var r = BundleReader.Read(new MemoryStream(zip), "up.zip");
+        var e = Assert.Single(r.Errors);
+        Assert.Equal("up.zip!h2.xyz", e.FileName);
+        Assert.Equal(4, e.Line);
+    }
+
+    [Fact]
+    public void Zip_with_a_climbing_entry_name_is_refused()
+    {
+        var zip = Zip([("bundle.json", Encoding.UTF8.GetBytes(SampleText())), ("../evil.xyz", "1\n\nH 0 0 0\n"u8.ToArray())]);
+        SingleError(BundleReader.Read(new MemoryStream(zip), "up.zip"), null, null, "'../evil.xyz'", "unsafe path");
+        zip = Zip([("bundle.json", Encoding.UTF8.GetBytes(SampleText())), ("/etc/passwd", "x"u8.ToArray())]);
+        SingleError(BundleReader.Read(new MemoryStream(zip), "up.zip"), null, null, "unsafe path");
+    }
+
+    [Fact]
+    public void Zip_without_manifest_lists_what_it_found()
+    {
+        var zip = Zip([("manifest.json", "{}"u8.ToArray()), ("a.xyz", "1\n\nH 0 0 0\n"u8.ToArray())]);
+        SingleError(BundleReader.Read(new MemoryStream(zip), "up.zip"), null, null, "no 'bundle.json'", "manifest.json", "a.xyz");
+    }
+
+    [Fact]
+    public void Zip_bomb_is_stopped_by_the_uncompressed_budget()
+    {
+        // 50 MB of zeros compresses to ~50 KB; the budget of 1 MB stops it while decompressing, whatever the header claims.
+        var bomb = new byte[50_000_000];
+        var zip = Zip([("bundle.json", Encoding.UTF8.GetBytes(SampleText().Replace("\"h2.xyz\"", "\"h2-big.xyz\""))), ("h2-big.xyz", bomb)]);
+        Assert.True(zip.Length < 1_000_000);
+        var r = BundleReader.Read(new MemoryStream(zip), "bomb.zip", new ReaderLimits(MaxBytes: 1_000_000));
+        Assert.False(r.Succeeded);
+        Assert.Contains(r.Errors, e => e.Message.Contains("zip bomb"));
+    }
+
+    [Fact]
+    public void Referenced_file_absent_from_zip_is_named()
+    {
+        var zip = Zip([("bundle.json", Encoding.UTF8.GetBytes(SampleText()))]);
+        var r = BundleReader.Read(new MemoryStream(zip), "up.zip");
+        Assert.Contains(r.Errors, e => e.FileName == "up.zip!bundle.json" && e.JsonPath == "$.calculations[1].file" && e.Message.Contains("'h2.xyz' is not in the zip"));
+    }
+
+    [Fact]
+    public void Corrupt_zip_is_an_error_not_an_exception()
+    {
+        var zip = SampleZip();
+        for (var i = 30; i < zip.Length; i += 7) zip[i] ^= 0x5A;
+        var r = BundleReader.Read(new MemoryStream(zip), "broken.zip");
+        Assert.False(r.Succeeded);
+    }
+
+    [Fact]
+    public void Bare_manifest_without_a_file_opener_says_to_upload_a_zip()
+    {
+        var r = BundleReader.Read(Utf8(SampleText()), "bundle.json");
+        Assert.Contains(r.Errors, e => e.JsonPath == "$.calculations[1].file" && e.Message.Contains("upload the bundle as a .zip"));
+    }
+}
