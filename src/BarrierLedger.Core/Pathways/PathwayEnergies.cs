@@ -1,0 +1,202 @@
+using System.Globalization;
+using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Kinetics;
+using BarrierLedger.Core.Thermochemistry;
+using BarrierLedger.Core.Units;
+
+namespace BarrierLedger.Core.Pathways;
+
+/// <summary>Where thermal corrections come from under an energy model.</summary>
+public enum ThermalSource
+{
+    /// <summary>Each species' reported corrections (<see cref="SpeciesRecord.Thermal"/>), moved to the model's standard state.</summary>
+    Reported,
+    /// <summary>Computed by Core thermochemistry from each species' geometry and frequencies at the model's temperature.</summary>
+    Computed,
+    /// <summary>Electronic energies only: no ΔH, ΔG, rate constants or energetic span.</summary>
+    ElectronicOnly,
+}
+
+/// <summary>
+/// An energy model: which thermal corrections are used, at which temperature, standard state and treatment (all in
+/// <see cref="Thermo"/>), and the transmission coefficient κ for Eyring rate constants.
+/// </summary>
+public sealed record EnergyModel(ThermalSource Thermal = ThermalSource.Reported, ThermoOptions? Thermo = null, double TransmissionCoefficient = 1.0)
+{
+    public ThermoOptions ThermoOrDefault => Thermo ?? ThermoOptions.Default;
+}
+
+/// <summary>Energies of one state: absolute sums and values relative to the first state (null where a correction is missing).</summary>
+public sealed record StateEnergies(string Label, StateKind Kind, Energy Electronic, Energy? Enthalpy, Energy? Gibbs, Energy RelativeElectronic, Energy? RelativeEnthalpy, Energy? RelativeGibbs);
+
+/// <summary>
+/// One step minimum → saddle point → minimum.
+/// </summary>
+/// <param name="From">Label of the minimum before the saddle point.</param>
+/// <param name="SaddlePoint">Label of the saddle point.</param>
+/// <param name="To">Label of the minimum after it.</param>
+/// <param name="ElectronicBarrier">ΔE‡ = E(saddle) − E(from).</param>
+/// <param name="GibbsBarrier">ΔG‡ = G(saddle) − G(from), null without thermal corrections.</param>
+/// <param name="ElectronicReactionEnergy">ΔE_r = E(to) − E(from).</param>
+/// <param name="GibbsReactionEnergy">ΔG_r = G(to) − G(from), or null.</param>
+/// <param name="Molecularity">Molecules in "from" minus molecules in the saddle point, plus one.</param>
+/// <param name="RateConstant">Eyring k from ΔG‡ (s⁻¹ for unimolecular, M⁻¹ s⁻¹ for bimolecular, referred to the model's standard state), or null.</param>
+/// <param name="RateConstantUnit">"s⁻¹", "M⁻¹ s⁻¹" or "M⁻² s⁻¹".</param>
+/// <param name="HalfLifeSeconds">t½ = ln 2 / k for a unimolecular step; null otherwise (it depends on concentrations).</param>
+public sealed record StepEnergies(
+    string From, string SaddlePoint, string To,
+    Energy ElectronicBarrier, Energy? GibbsBarrier, Energy ElectronicReactionEnergy, Energy? GibbsReactionEnergy,
+    int Molecularity, double? RateConstant, string RateConstantUnit, double? HalfLifeSeconds);
+
+/// <summary>Everything derived for a pathway under an energy model, with the consistency verdict and reasons it carries.</summary>
+public sealed record PathwayEnergyResult(
+    EnergyModel Model,
+    IReadOnlyList<StateEnergies> States,
+    IReadOnlyList<StepEnergies> Steps,
+    EnergeticSpanResult? OverallSpan,
+    Verdict Verdict,
+    IReadOnlyList<CheckReason> Reasons)
+{
+    public string Report() => CheckReport.Format(Verdict, Reasons);
+}
+
+/// <summary>Stable codes of reasons added when deriving energies (besides those of <see cref="BarrierConsistency"/>).</summary>
+public static class PathwayEnergyCodes
+{
+    public const string ThermalTemperatureNotModel = "energies.thermal-temperature-not-model";
+    public const string MissingFrequencies = "energies.missing-frequencies";
+    public const string NoRateConstant = "energies.no-rate-constant";
+    public const string StandardStateConverted = "energies.standard-state-converted";
+}
+
+/// <summary>
+/// Derived energies of a pathway: E, H and G of every state (Σ coefficient × species value; H = E + enthalpy correction,
+/// G = E + Gibbs correction in the model's standard state) relative to the first state; for every saddle point with minima on
+/// both sides, ΔE‡, ΔG‡, ΔE_r, ΔG_r, the Eyring rate constant k = κ (k_B T/h)(c°)^{1−m} exp(−ΔG‡/RT) (<see cref="Eyring"/>)
+/// and for unimolecular steps t½ = ln 2 / k; and the overall barrier by the energetic-span model (<see cref="EnergeticSpan"/>,
+/// Kozuch and Shaik, Acc. Chem. Res. 2011, 44, 101) over the states before the last, with ΔG_r = G(last) − G(first).
+/// The consistency check (<see cref="BarrierConsistency"/>) runs on the thermal corrections actually used; its reasons are
+/// part of the result and set its verdict, so a barrier from mixed levels of theory is never shown without saying so.
+/// </summary>
+public static class PathwayEnergies
+{
+    public static PathwayEnergyResult Derive(Pathway pathway, EnergyModel? model = null)
+    {
+        ArgumentNullException.ThrowIfNull(pathway);
+        pathway.Validate();
+        var m = model ?? new EnergyModel();
+        var thermo = m.ThermoOrDefault;
+        var t = thermo.TemperatureKelvin;
+        var extra = new List<CheckReason>();
+
+        var resolved = new Dictionary<SpeciesRecord, SpeciesRecord>(ReferenceEqualityComparer.Instance);
+        foreach (var sp in pathway.States.SelectMany(s => s.Terms).Select(x => x.Species).Distinct())
+            resolved[sp] = sp with { Thermal = Resolve(sp, m, thermo, extra) };
+        var used = pathway with
+        {
+            States = [.. pathway.States.Select(s => s with { Terms = [.. s.Terms.Select(x => x with { Species = resolved[x.Species] })] })],
+        };
+        var consistency = BarrierConsistency.Check(used, requireThermal: m.Thermal != ThermalSource.ElectronicOnly);
+
+        var first = used.States[0];
+        Energy? Sum(PathwayState s, Func<ThermalCorrection, Energy> part) =>
+            m.Thermal == ThermalSource.ElectronicOnly || s.Terms.Any(x => x.Species.Thermal is null)
+                ? null
+                : s.Terms.Aggregate(Energy.Zero, (acc, x) => acc + x.Coefficient * (x.Species.ElectronicEnergy + part(x.Species.Thermal!)));
+        var e0 = first.ElectronicEnergy;
+        var h0 = Sum(first, c => c.Enthalpy);
+        var g0 = Sum(first, c => c.Gibbs);
+        var states = used.States.Select(s =>
+        {
+            var e = s.ElectronicEnergy;
+            var h = Sum(s, c => c.Enthalpy);
+            var g = Sum(s, c => c.Gibbs);
+            return new StateEnergies(s.Label, s.Kind, e, h, g, e - e0, h - h0, g - g0);
+        }).ToList();
+
+        var steps = new List<StepEnergies>();
+        for (var i = 0; i < used.States.Count; i++)
+        {
+            if (used.States[i].Kind != StateKind.SaddlePoint) continue;
+            if (i == 0 || i == used.States.Count - 1 || used.States[i - 1].Kind != StateKind.Minimum || used.States[i + 1].Kind != StateKind.Minimum)
+                throw new ArgumentException($"Pathway '{pathway.Name}': saddle point '{used.States[i].Label}' must have a minimum directly before and after it.", nameof(pathway));
+            var (a, ts, b) = (states[i - 1], states[i], states[i + 1]);
+            var molecularity = used.States[i - 1].MoleculeCount - used.States[i].MoleculeCount + 1;
+            var dg = ts.Gibbs - a.Gibbs;
+            double? k = null, half = null;
+            var unit = molecularity switch { 1 => "s⁻¹", 2 => "M⁻¹ s⁻¹", 3 => "M⁻² s⁻¹", _ => "" };
+            if (dg is { } barrier)
+            {
+                if (molecularity is >= 1 and <= 3)
+                {
+                    k = Eyring.RateConstant(barrier, t, m.TransmissionCoefficient, molecularity, StandardConcentration(thermo));
+                    if (molecularity == 1) half = Eyring.HalfLifeSeconds(k.Value);
+                }
+                else
+                {
+                    extra.Add(new(PathwayEnergyCodes.NoRateConstant, CheckSeverity.Attention,
+                        $"Step {a.Label} → {ts.Label}: {used.States[i - 1].MoleculeCount} molecules become {used.States[i].MoleculeCount}, a molecularity of {molecularity}; " +
+                        "no Eyring rate constant is given for it."));
+                }
+            }
+            steps.Add(new StepEnergies(a.Label, ts.Label, b.Label, ts.Electronic - a.Electronic, dg, b.Electronic - a.Electronic, b.Gibbs - a.Gibbs,
+                molecularity, k, unit, half));
+        }
+
+        EnergeticSpanResult? span = null;
+        if (states.All(s => s.Gibbs is not null) && states.Count >= 3 && states[0].Kind == StateKind.Minimum
+            && states[^1].Kind == StateKind.Minimum && states.Any(s => s.Kind == StateKind.SaddlePoint))
+        {
+            var cycle = states.Take(states.Count - 1)
+                .Select(s => new CycleState(s.Label, s.RelativeGibbs!.Value, s.Kind == StateKind.SaddlePoint ? CycleStateKind.TransitionState : CycleStateKind.Intermediate))
+                .ToList();
+            span = EnergeticSpan.Analyze(cycle, states[^1].RelativeGibbs!.Value, t);
+        }
+
+        var reasons = consistency.Reasons.Concat(extra).OrderByDescending(r => r.Severity).ToList();
+        return new PathwayEnergyResult(m, states, steps, span, CheckReason.VerdictOf(reasons), reasons);
+    }
+
+    /// <summary>c° in mol/L of the model's standard state: c for a solution, p/(RT) for a gas.</summary>
+    private static double StandardConcentration(ThermoOptions o) => o.StandardState switch
+    {
+        StandardState.Solution1Molar => o.ConcentrationMolPerL ?? 1.0,
+        _ => Thermochemistry.Thermochemistry.ReferencePressurePascal(o.TemperatureKelvin, o.StandardState, o.PressurePascal)
+             / (PhysicalConstants.GasConstantJoulePerMoleKelvin * o.TemperatureKelvin) / 1000.0,
+    };
+
+    private static ThermalCorrection? Resolve(SpeciesRecord sp, EnergyModel m, ThermoOptions thermo, List<CheckReason> extra)
+    {
+        var t = thermo.TemperatureKelvin;
+        switch (m.Thermal)
+        {
+            case ThermalSource.ElectronicOnly:
+                return null;
+            case ThermalSource.Reported:
+                if (sp.Thermal is not { } r) return null;
+                if (Math.Abs(r.TemperatureKelvin - t) > 0.01)
+                    extra.Add(new(PathwayEnergyCodes.ThermalTemperatureNotModel, CheckSeverity.Failure,
+                        $"{sp.Label}: its thermal corrections are for {F(r.TemperatureKelvin)} K but the energy model is at {F(t)} K; recompute them at {F(t)} K or compute them here."));
+                if (r.StandardState == thermo.StandardState) return r;
+                var shift = Thermochemistry.Thermochemistry.StandardStateCorrection(r.TemperatureKelvin, r.StandardState, thermo.StandardState, thermo.ConcentrationMolPerL ?? 1.0);
+                extra.Add(new(PathwayEnergyCodes.StandardStateConverted, CheckSeverity.Info,
+                    $"{sp.Label}: Gibbs correction moved from {r.StandardState} to {thermo.StandardState} ({Signed(shift.KcalPerMol)} kcal/mol)."));
+                return r with { Gibbs = r.Gibbs + shift, StandardState = thermo.StandardState };
+            default:
+                if (sp.Geometry is null || sp.FrequenciesCm1 is null)
+                {
+                    extra.Add(new(PathwayEnergyCodes.MissingFrequencies, CheckSeverity.Attention,
+                        $"{sp.Label}: no geometry and frequencies, so its thermal corrections cannot be computed."));
+                    return null;
+                }
+                var result = Thermochemistry.Thermochemistry.Compute(sp.Geometry, sp.FrequenciesCm1, thermo with { SymmetryNumber = sp.SymmetryNumber });
+                var level = sp.FrequencyLevel ?? sp.ElectronicLevel.GeometryLevel ?? sp.ElectronicLevel;
+                return new ThermalCorrection(result.ZeroPointEnergy, result.EnthalpyCorrection, result.GibbsCorrection, level, t, thermo.StandardState,
+                    $"computed ({thermo.Treatment})");
+        }
+    }
+
+    private static string F(double x) => x.ToString("0.##", CultureInfo.InvariantCulture);
+
+    private static string Signed(double x) => x.ToString("+0.00;−0.00", CultureInfo.InvariantCulture);
+}

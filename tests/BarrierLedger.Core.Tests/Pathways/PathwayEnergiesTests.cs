@@ -1,0 +1,125 @@
+using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
+using BarrierLedger.Core.Tests.Support;
+using BarrierLedger.Core.Thermochemistry;
+using BarrierLedger.Core.Units;
+using static BarrierLedger.Core.Tests.Pathways.PathwayExamples;
+
+namespace BarrierLedger.Core.Tests.Pathways;
+
+public class PathwayEnergiesTests
+{
+    // CODATA 2018 (exact constants): k_B = 1.380649e-23 J/K, h = 6.62607015e-34 J s, N_A = 6.02214076e23 /mol;
+    // 1 hartree = 627.5094740631 kcal/mol; thermochemical calorie 4.184 J.
+    private const double KB = 1.380649e-23, H = 6.62607015e-34, R = 1.380649e-23 * 6.02214076e23, KcalPerHartree = 627.5094740631;
+
+    private static ThermalCorrection T(double h, double g, StandardState state = StandardState.Gas1Atm) =>
+        new(Energy.FromHartree(0.05), Energy.FromHartree(h), Energy.FromHartree(g), FreqLevel, 298.15, state);
+
+    /// <summary>
+    /// diene + ene → TS1 → INT → TS2 → adduct with invented energies (hartree):
+    /// E: −155.90 − 78.55 = −234.45, −234.42, −234.47, −234.44, −234.52; Gibbs corrections 0.060 + 0.030, 0.100, 0.101, 0.099, 0.102.
+    /// By hand: G relative = 0, +0.040, −0.009, +0.019, −0.058 hartree; ΔG‡(TS1) = 0.040, ΔG‡(TS2) = 0.028, ΔG_r = −0.058.
+    /// Energetic span (Kozuch–Shaik): TS after I: 0.040 (TS1/R), 0.019 (TS2/R), 0.028 (TS2/INT); TS before I: 0.040 + 0.009 − 0.058;
+    /// largest 0.040 hartree with TDTS = TS1, TDI = first state.
+    /// </summary>
+    private static Pathway TwoSteps(LevelOfTheory? tsLevel = null)
+    {
+        var diene = Species("diene", "C4H6", -155.90, thermal: T(0.090, 0.060));
+        var ene = Species("ene", "C2H4", -78.55, thermal: T(0.055, 0.030));
+        var ts1 = Species("TS1", "C6H10", -234.42, tsLevel, thermal: T(0.150, 0.100));
+        var inter = Species("INT", "C6H10", -234.47, thermal: T(0.152, 0.101));
+        var ts2 = Species("TS2", "C6H10", -234.44, thermal: T(0.149, 0.099));
+        var adduct = Species("adduct", "C6H10", -234.52, thermal: T(0.153, 0.102));
+        return new Pathway("two steps",
+        [
+            new("diene + ene", StateKind.Minimum, [new(diene), new(ene)]),
+            new("TS1", StateKind.SaddlePoint, [new(ts1)]),
+            new("INT", StateKind.Minimum, [new(inter)]),
+            new("TS2", StateKind.SaddlePoint, [new(ts2)]),
+            new("adduct", StateKind.Minimum, [new(adduct)]),
+        ]);
+    }
+
+    [Fact]
+    public void RelativeEnergiesBarriersAndSpan_MatchHandArithmetic()
+    {
+        var r = PathwayEnergies.Derive(TwoSteps());
+        Assert.True(r.Verdict == Verdict.Passed, r.Report());
+        double[] g = [0, 0.040, -0.009, 0.019, -0.058];
+        for (var i = 0; i < g.Length; i++)
+            Close.Absolute(g[i], r.States[i].RelativeGibbs!.Value.Hartree, 1e-12, $"ΔG of {r.States[i].Label}", "hand arithmetic in the comment");
+        Close.Absolute(0.03 * KcalPerHartree, r.Steps[0].ElectronicBarrier.KcalPerMol, 1e-9, "ΔE‡(TS1)", "−234.42 − (−234.45) hartree, CODATA 2018 kcal/mol");
+        Close.Absolute(0.028, r.Steps[1].GibbsBarrier!.Value.Hartree, 1e-12, "ΔG‡(TS2)", "hand arithmetic");
+        Close.Absolute(-0.049, r.Steps[1].GibbsReactionEnergy!.Value.Hartree, 1e-12, "ΔG_r(INT → adduct)", "−0.058 − (−0.009)");
+        Assert.Equal(2, r.Steps[0].Molecularity);
+        Assert.Equal("M⁻¹ s⁻¹", r.Steps[0].RateConstantUnit);
+        Assert.Null(r.Steps[0].HalfLifeSeconds);
+        Assert.NotNull(r.OverallSpan);
+        Assert.Equal(("TS1", "diene + ene"), (r.OverallSpan!.Tdts.Label, r.OverallSpan.Tdi.Label));
+        Close.Absolute(0.040, r.OverallSpan.EnergeticSpanEnergy.Hartree, 1e-12, "energetic span", "Kozuch–Shaik rule by hand in the comment");
+    }
+
+    [Fact]
+    public void UnimolecularStep_RateConstantAndHalfLife_FollowEyringFromCodataConstants()
+    {
+        // Eyring (J. Chem. Phys. 1935, 3, 107): k = (k_B T/h) exp(−ΔG‡/RT), t½ = ln 2 / k, computed here from the constants alone.
+        var r = PathwayEnergies.Derive(TwoSteps());
+        var step = r.Steps[1];
+        var dgJPerMol = 0.028 * KcalPerHartree * 4184.0;
+        var k = KB * 298.15 / H * Math.Exp(-dgJPerMol / (R * 298.15));
+        Close.Relative(k, step.RateConstant!.Value, 1e-9, "k(INT → TS2)", "Eyring equation with CODATA 2018 constants");
+        Close.Relative(Math.Log(2) / k, step.HalfLifeSeconds!.Value, 1e-9, "t½(INT → TS2)", "ln 2 / k");
+        Assert.Equal("s⁻¹", step.RateConstantUnit);
+    }
+
+    [Fact]
+    public void OneMolarStandardState_LowersTheBimolecularBarrierBy1_89()
+    {
+        // 1 atm → 1 mol/L adds RT ln(24.46) = +1.89 kcal/mol to each species' G at 298.15 K (textbook value, from memory);
+        // TS1 has one species, "diene + ene" two, so ΔG‡(TS1) drops by 1.89 kcal/mol and the unimolecular ΔG‡(TS2) is unchanged.
+        var gas = PathwayEnergies.Derive(TwoSteps());
+        var sol = PathwayEnergies.Derive(TwoSteps(), new EnergyModel(Thermo: new ThermoOptions(StandardState: StandardState.Solution1Molar)));
+        Close.Absolute(-1.89, sol.Steps[0].GibbsBarrier!.Value.KcalPerMol - gas.Steps[0].GibbsBarrier!.Value.KcalPerMol, 0.005,
+            "standard-state shift of a bimolecular barrier", "RT ln 24.46 at 298.15 K, from memory");
+        Close.Absolute(gas.Steps[1].GibbsBarrier!.Value.Hartree, sol.Steps[1].GibbsBarrier!.Value.Hartree, 1e-12, "unimolecular barrier", "unchanged by construction");
+        Assert.Contains(sol.Reasons, x => x.Code == PathwayEnergyCodes.StandardStateConverted);
+    }
+
+    [Fact]
+    public void SpeciesAtAnotherLevel_BarrierCarriesTheReason()
+    {
+        var r = PathwayEnergies.Derive(TwoSteps(LevelOfTheory.Parse("B3LYP/def2-SVP")));
+        Assert.Equal(Verdict.Failed, r.Verdict);
+        Assert.Contains(r.Reasons, x => x.Code == ConsistencyCodes.MixedElectronicLevels && x.Message.Contains("B3LYP/def2-SVP for TS1"));
+        Assert.NotNull(r.Steps[0].GibbsBarrier); // still shown, with the reason beside it
+    }
+
+    [Fact]
+    public void ReportedCorrectionsAtAnotherTemperature_Fail()
+    {
+        var r = PathwayEnergies.Derive(TwoSteps(), new EnergyModel(Thermo: new ThermoOptions(TemperatureKelvin: 350)));
+        Assert.Equal(Verdict.Failed, r.Verdict);
+        Assert.Contains(r.Reasons, x => x.Code == PathwayEnergyCodes.ThermalTemperatureNotModel && x.Message.Contains("298.15 K but the energy model is at 350 K"));
+    }
+
+    [Fact]
+    public void ComputedThermochemistry_UsesCoreThermochemistry_AndNamesSpeciesWithoutFrequencies()
+    {
+        // Water: r(O–H) 0.9572 Å, ∠HOH 104.52°; fundamentals 3657, 1595, 3756 cm⁻¹ (gas-phase experimental values, from memory).
+        const double r = 0.9572, half = 104.52 / 2 * Math.PI / 180;
+        var geom = new Molecule([Elements.O, Elements.H, Elements.H],
+            [Vec3.Zero, new Vec3(r * Math.Sin(half), 0, r * Math.Cos(half)), new Vec3(-r * Math.Sin(half), 0, r * Math.Cos(half))]);
+        var water = Species("water", "H2O", -76.40) with { Geometry = geom, FrequenciesCm1 = [1595, 3657, 3756], FrequencyLevel = FreqLevel, SymmetryNumber = 2 };
+        var bare = Species("water2", "H2O", -76.41);
+        var path = new Pathway("w", [new("a", StateKind.Minimum, [new(water)]), new("b", StateKind.Minimum, [new(bare)])]);
+        var res = PathwayEnergies.Derive(path, new EnergyModel(ThermalSource.Computed));
+        var direct = BarrierLedger.Core.Thermochemistry.Thermochemistry.Compute(geom, [1595, 3657, 3756], new ThermoOptions(SymmetryNumber: 2));
+        Close.Absolute(-76.40 + direct.GibbsCorrection.Hartree, res.States[0].Gibbs!.Value.Hartree, 1e-12, "G of water", "Thermochemistry.Compute");
+        Assert.Null(res.States[1].Gibbs);
+        Assert.Contains(res.Reasons, x => x.Code == PathwayEnergyCodes.MissingFrequencies && x.Message.StartsWith("water2"));
+        Assert.Contains(res.Reasons, x => x.Code == ConsistencyCodes.MissingThermal && x.Severity == CheckSeverity.Failure);
+    }
+}
