@@ -1,7 +1,15 @@
+using BarrierLedger.Ledger.Auditing;
+using BarrierLedger.Ledger.Backups;
+using BarrierLedger.Ledger.Queries;
+using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Reviews;
+using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Storage;
+using BarrierLedger.Ledger.Uploads;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
 
 namespace BarrierLedger.Ledger;
 
@@ -14,6 +22,23 @@ public static class LedgerServiceCollectionExtensions
         configuration.GetSection(LedgerOptions.SectionName).Bind(options);
         services.AddSingleton(options);
         services.AddDbContextFactory<LedgerDbContext>(o => o.UseSqlite(options.SqliteConnectionString));
+        return services.AddLedgerServices();
+    }
+
+    /// <summary>The workflow services alone (for hosts that register the DbContext factory themselves, e.g. tests and benchmarks).</summary>
+    public static IServiceCollection AddLedgerServices(this IServiceCollection services)
+    {
+        services.TryAddSingleton(TimeProvider.System);
+        services.AddSingleton<AuditService>();
+        services.AddSingleton<DerivationService>();
+        services.AddSingleton<UploadService>();
+        services.AddSingleton<RecomputeService>();
+        services.AddSingleton<EnergyModelService>();
+        services.AddSingleton<ReviewService>();
+        services.AddSingleton<LedgerQueryService>();
+        services.AddSingleton<ReactionQueryService>();
+        services.AddSingleton<RecordService>();
+        services.AddSingleton<BackupService>();
         return services;
     }
 }

@@ -44,5 +44,6 @@ public sealed record ThermoOptions(
     StandardState StandardState = StandardState.Gas1Atm,
     double? ConcentrationMolPerL = null)
 {
+    /// <summary>298.15 K, 1 atm, σ = 1, RRHO.</summary>
     public static ThermoOptions Default { get; } = new();
 }

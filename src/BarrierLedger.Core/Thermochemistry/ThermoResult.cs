@@ -12,6 +12,7 @@ namespace BarrierLedger.Core.Thermochemistry;
 /// <param name="HeatCapacityJoulePerMoleKelvin">Constant-volume heat capacity C_V in J mol⁻¹ K⁻¹.</param>
 public sealed record ThermoContribution(Energy ThermalEnergy, double EntropyJoulePerMoleKelvin, double HeatCapacityJoulePerMoleKelvin)
 {
+    /// <summary>No contribution (e.g. rotation of an atom).</summary>
     public static ThermoContribution None { get; } = new(Energy.Zero, 0.0, 0.0);
 }
 

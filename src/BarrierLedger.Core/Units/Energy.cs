@@ -32,21 +32,33 @@ public readonly record struct Energy(double Hartree) : IComparable<Energy>
     public const double WavenumberPerHartree =
         PhysicalConstants.HartreeJoule / (PhysicalConstants.PlanckJouleSecond * PhysicalConstants.SpeedOfLightMetrePerSecond * 100.0);
 
+    /// <summary>Zero energy.</summary>
     public static Energy Zero => new(0.0);
 
+    /// <summary>An energy of <paramref name="value"/> hartree (per molecule).</summary>
     public static Energy FromHartree(double value) => new(value);
+    /// <summary>An energy of <paramref name="value"/> kcal/mol (thermochemical calorie), stored as value / 627.5094740631 hartree.</summary>
     public static Energy FromKcalPerMol(double value) => new(value / KcalPerMolPerHartree);
+    /// <summary>An energy of <paramref name="value"/> kJ/mol, stored as value / 2625.4996394799 hartree.</summary>
     public static Energy FromKJPerMol(double value) => new(value / KJPerMolPerHartree);
+    /// <summary>An energy of <paramref name="value"/> eV, stored as value / 27.211386245988 hartree.</summary>
     public static Energy FromElectronVolt(double value) => new(value / ElectronVoltPerHartree);
+    /// <summary>An energy of <paramref name="value"/> cm⁻¹ (E = h c ν̃), stored as value / 219474.6313632 hartree.</summary>
     public static Energy FromWavenumber(double value) => new(value / WavenumberPerHartree);
 
+    /// <summary>An energy of <paramref name="value"/> in <paramref name="unit"/>.</summary>
     public static Energy From(double value, EnergyUnit unit) => new(value / FactorFromHartree(unit));
 
+    /// <summary>The energy in kcal/mol (thermochemical calorie, 4.184 J).</summary>
     public double KcalPerMol => Hartree * KcalPerMolPerHartree;
+    /// <summary>The energy in kJ/mol.</summary>
     public double KJPerMol => Hartree * KJPerMolPerHartree;
+    /// <summary>The energy in eV.</summary>
     public double ElectronVolt => Hartree * ElectronVoltPerHartree;
+    /// <summary>The energy in cm⁻¹ (ν̃ = E / (h c)).</summary>
     public double Wavenumber => Hartree * WavenumberPerHartree;
 
+    /// <summary>The energy in <paramref name="unit"/>.</summary>
     public double In(EnergyUnit unit) => Hartree * FactorFromHartree(unit);
 
     /// <summary>How many of <paramref name="unit"/> make one hartree.</summary>
@@ -88,6 +100,7 @@ public readonly record struct Energy(double Hartree) : IComparable<Energy>
         return r.ok;
     }
 
+    /// <summary>Sum (both in hartree).</summary>
     public static Energy operator +(Energy a, Energy b) => new(a.Hartree + b.Hartree);
     public static Energy operator -(Energy a, Energy b) => new(a.Hartree - b.Hartree);
     public static Energy operator -(Energy a) => new(-a.Hartree);
@@ -99,6 +112,7 @@ public readonly record struct Energy(double Hartree) : IComparable<Energy>
     public static bool operator <=(Energy a, Energy b) => a.Hartree <= b.Hartree;
     public static bool operator >=(Energy a, Energy b) => a.Hartree >= b.Hartree;
 
+    /// <summary>Orders by value in hartree.</summary>
     public int CompareTo(Energy other) => Hartree.CompareTo(other.Hartree);
 
     public override string ToString() => $"{Hartree:R} Eh";

@@ -22,5 +22,6 @@ public enum HessianProblem
 public sealed class HessianException(HessianProblem problem, string message, string? paramName = "hessianHartreePerBohr2")
     : ArgumentException(message, paramName)
 {
+    /// <summary>Which check failed.</summary>
     public HessianProblem Problem { get; } = problem;
 }

@@ -27,5 +27,6 @@ public sealed record HessianOptions(
     IReadOnlyList<double>? MassesAmu = null,
     double LinearToleranceAmuAngstrom2 = Geometry.Inertia.DefaultLinearToleranceAmuAngstrom2)
 {
+    /// <summary>Default options: tolerance 10⁻³ hartree/bohr², automatic solver, isotope masses.</summary>
     public static HessianOptions Default { get; } = new();
 }

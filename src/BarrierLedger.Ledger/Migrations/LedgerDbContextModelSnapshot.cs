@@ -91,6 +91,775 @@ namespace BarrierLedger.Ledger.Migrations
                     b.ToTable("AspNetUsers", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.AuditEvent", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Action")
+                        .IsRequired()
+                        .HasMaxLength(60)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("After")
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("At")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Before")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("EntityId")
+                        .IsRequired()
+                        .HasMaxLength(60)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("EntityType")
+                        .IsRequired()
+                        .HasMaxLength(60)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Summary")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("EntityType", "EntityId");
+
+                    b.ToTable("AuditEvents", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Calculation", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("AtomCount")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<byte[]>("AtomicNumbers")
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("Basis")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<double?>("EnergyHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<string>("EnergyLevelKey")
+                        .IsRequired()
+                        .HasMaxLength(400)
+                        .HasColumnType("TEXT");
+
+                    b.Property<double?>("EnthalpyCorrectionHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<byte[]>("FrequenciesCm1")
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("GeometryLevel")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<double?>("GibbsCorrectionHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<byte[]>("HessianHartreePerBohr2")
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("LevelOfTheory")
+                        .IsRequired()
+                        .HasMaxLength(400)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Method")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<byte[]>("Modes")
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("Note")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<byte[]>("PositionsAngstrom")
+                        .HasColumnType("BLOB");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Solvation")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("SourceSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("SpeciesId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("StoredFileId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double?>("ThermalTemperatureKelvin")
+                        .HasColumnType("REAL");
+
+                    b.Property<int>("UploadId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("UploadedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UploadedByUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double?>("ZeroPointHartree")
+                        .HasColumnType("REAL");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("StoredFileId");
+
+                    b.HasIndex("UploadId");
+
+                    b.HasIndex("SpeciesId", "Kind");
+
+                    b.HasIndex("SpeciesId", "SourceSha256", "Label");
+
+                    b.ToTable("Calculations", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.EnergyModel", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("DisplayUnit")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("EnergyLevel")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<double>("QuasiRrhoCutoffCm1")
+                        .HasColumnType("REAL");
+
+                    b.Property<double>("ScanJumpKcalPerMol")
+                        .HasColumnType("REAL");
+
+                    b.Property<double>("SignificantImaginaryCm1")
+                        .HasColumnType("REAL");
+
+                    b.Property<string>("StandardState")
+                        .IsRequired()
+                        .HasMaxLength(30)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int?>("StudyId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double>("TemperatureKelvin")
+                        .HasColumnType("REAL");
+
+                    b.Property<string>("ThermalLevel")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Treatment")
+                        .IsRequired()
+                        .HasMaxLength(40)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Tunnelling")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTimeOffset>("UpdatedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UpdatedByUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("StudyId")
+                        .IsUnique();
+
+                    b.ToTable("EnergyModels", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.FrequencyCheck", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("CalculationId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("ComputedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("EvidenceJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("InputFingerprint")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ReasonsJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Verdict")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("CalculationId")
+                        .IsUnique();
+
+                    b.ToTable("FrequencyChecks", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Description")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("InputsRevision")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("OwnerUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("StudyId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("StudyId", "Label");
+
+                    b.ToTable("Reactions", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionCoordinatePair", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("AtomA")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("AtomB")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("ReactionStateId")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReactionStateId");
+
+                    b.ToTable("ReactionCoordinatePairs", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionDerivation", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double?>("BarrierElectronicHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<double?>("BarrierGibbsHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<DateTimeOffset>("ComputedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ConsistencyJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("Consistent")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double?>("HalfLifeSeconds")
+                        .HasColumnType("REAL");
+
+                    b.Property<string>("InputFingerprint")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("InputsRevision")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("LevelOfTheory")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ModelFingerprint")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<double?>("RateConstantPerSecond")
+                        .HasColumnType("REAL");
+
+                    b.Property<double?>("ReactionGibbsHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<int>("ReactionId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("StatesJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("StepsJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<double>("TemperatureKelvin")
+                        .HasColumnType("REAL");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReactionId")
+                        .IsUnique();
+
+                    b.ToTable("ReactionDerivations", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionState", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("Position")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("ReactionId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("SaddleCalculationId")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("SaddleCalculationId");
+
+                    b.HasIndex("ReactionId", "Position")
+                        .IsUnique();
+
+                    b.ToTable("ReactionStates", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionStateTerm", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Coefficient")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("ReactionStateId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("SpeciesId")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReactionStateId");
+
+                    b.HasIndex("SpeciesId");
+
+                    b.ToTable("ReactionStateTerms", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Review", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("At")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("CalculationId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Comment")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Outcome")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ReviewerUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("CalculationId", "Id");
+
+                    b.ToTable("Reviews", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Scan", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<byte[]>("AtomicNumbers")
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("CoordinateAtoms")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("CoordinateKind")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("LevelOfTheory")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("SourceSha256")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("SpeciesId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("StoredFileId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("UploadId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("UploadedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UploadedByUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("SpeciesId");
+
+                    b.HasIndex("StoredFileId");
+
+                    b.HasIndex("UploadId");
+
+                    b.ToTable("Scans", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ScanPointRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<bool>("Converged")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double>("Coordinate")
+                        .HasColumnType("REAL");
+
+                    b.Property<double>("EnergyHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<int>("Index")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<byte[]>("PositionsAngstrom")
+                        .HasColumnType("BLOB");
+
+                    b.Property<int>("ScanId")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ScanId", "Index")
+                        .IsUnique();
+
+                    b.ToTable("ScanPoints", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Species", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Charge")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Formula")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("Multiplicity")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("StudyId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("SymmetryNumber")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("StudyId", "Label")
+                        .IsUnique();
+
+                    b.ToTable("Species", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.StoredFile", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<byte[]>("Content")
+                        .IsRequired()
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("FileName")
+                        .IsRequired()
+                        .HasMaxLength(400)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Sha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("SizeBytes")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("UploadedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UploadedByUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Sha256")
+                        .IsUnique();
+
+                    b.ToTable("StoredFiles", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Study", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("CreatedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Description")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Name")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("OwnerUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Name");
+
+                    b.ToTable("Studies", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Upload", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("At")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Key")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("StudyId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Summary")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UploaderUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Key")
+                        .IsUnique();
+
+                    b.HasIndex("StudyId");
+
+                    b.ToTable("Uploads", (string)null);
+                });
+
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>
                 {
                     b.Property<string>("Id")
@@ -219,6 +988,179 @@ namespace BarrierLedger.Ledger.Migrations
                     b.ToTable("AspNetUserTokens", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Calculation", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Species", "Species")
+                        .WithMany("Calculations")
+                        .HasForeignKey("SpeciesId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("BarrierLedger.Ledger.Records.StoredFile", "StoredFile")
+                        .WithMany()
+                        .HasForeignKey("StoredFileId")
+                        .OnDelete(DeleteBehavior.Restrict);
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Upload", "Upload")
+                        .WithMany()
+                        .HasForeignKey("UploadId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Species");
+
+                    b.Navigation("StoredFile");
+
+                    b.Navigation("Upload");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.EnergyModel", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Study", null)
+                        .WithMany()
+                        .HasForeignKey("StudyId")
+                        .OnDelete(DeleteBehavior.Restrict);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.FrequencyCheck", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Calculation", "Calculation")
+                        .WithMany()
+                        .HasForeignKey("CalculationId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Calculation");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Study", "Study")
+                        .WithMany("Reactions")
+                        .HasForeignKey("StudyId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Study");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionCoordinatePair", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.ReactionState", null)
+                        .WithMany("CoordinatePairs")
+                        .HasForeignKey("ReactionStateId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionDerivation", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Reaction", "Reaction")
+                        .WithOne("Derivation")
+                        .HasForeignKey("BarrierLedger.Ledger.Records.ReactionDerivation", "ReactionId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+
+                    b.Navigation("Reaction");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionState", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Reaction", "Reaction")
+                        .WithMany("States")
+                        .HasForeignKey("ReactionId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Calculation", "SaddleCalculation")
+                        .WithMany()
+                        .HasForeignKey("SaddleCalculationId")
+                        .OnDelete(DeleteBehavior.Restrict);
+
+                    b.Navigation("Reaction");
+
+                    b.Navigation("SaddleCalculation");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionStateTerm", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.ReactionState", null)
+                        .WithMany("Terms")
+                        .HasForeignKey("ReactionStateId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Species", "Species")
+                        .WithMany()
+                        .HasForeignKey("SpeciesId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Species");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Review", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Calculation", "Calculation")
+                        .WithMany()
+                        .HasForeignKey("CalculationId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Calculation");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Scan", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Species", "Species")
+                        .WithMany()
+                        .HasForeignKey("SpeciesId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("BarrierLedger.Ledger.Records.StoredFile", null)
+                        .WithMany()
+                        .HasForeignKey("StoredFileId")
+                        .OnDelete(DeleteBehavior.Restrict);
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Upload", null)
+                        .WithMany()
+                        .HasForeignKey("UploadId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Species");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ScanPointRecord", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Scan", null)
+                        .WithMany("Points")
+                        .HasForeignKey("ScanId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Species", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Study", "Study")
+                        .WithMany("Species")
+                        .HasForeignKey("StudyId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Study");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Upload", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Study", null)
+                        .WithMany()
+                        .HasForeignKey("StudyId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRoleClaim<string>", b =>
                 {
                     b.HasOne("Microsoft.AspNetCore.Identity.IdentityRole", null)
@@ -268,6 +1210,37 @@ namespace BarrierLedger.Ledger.Migrations
                         .HasForeignKey("UserId")
                         .OnDelete(DeleteBehavior.Cascade)
                         .IsRequired();
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>
+                {
+                    b.Navigation("Derivation");
+
+                    b.Navigation("States");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.ReactionState", b =>
+                {
+                    b.Navigation("CoordinatePairs");
+
+                    b.Navigation("Terms");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Scan", b =>
+                {
+                    b.Navigation("Points");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Species", b =>
+                {
+                    b.Navigation("Calculations");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Study", b =>
+                {
+                    b.Navigation("Reactions");
+
+                    b.Navigation("Species");
                 });
 #pragma warning restore 612, 618
         }

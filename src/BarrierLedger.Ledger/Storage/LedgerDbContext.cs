@@ -1,4 +1,5 @@
 using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Records;
 using Microsoft.AspNetCore.Identity.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore;
 
@@ -6,12 +7,52 @@ namespace BarrierLedger.Ledger.Storage;
 
 /// <summary>
 /// The ledger's database: accounts (ASP.NET Core Identity) and the group's records, in one SQLite file by default.
+/// Every save increments the version of each changed <see cref="IVersioned"/> record; the version is the concurrency
+/// token, so saving over someone else's change throws <see cref="DbUpdateConcurrencyException"/>.
 /// </summary>
 public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : IdentityDbContext<LedgerUser>(options)
 {
+    public DbSet<Study> Studies => Set<Study>();
+    public DbSet<Species> Species => Set<Species>();
+    public DbSet<Calculation> Calculations => Set<Calculation>();
+    public DbSet<Upload> Uploads => Set<Upload>();
+    public DbSet<Reaction> Reactions => Set<Reaction>();
+    public DbSet<ReactionState> ReactionStates => Set<ReactionState>();
+    public DbSet<ReactionStateTerm> ReactionStateTerms => Set<ReactionStateTerm>();
+    public DbSet<ReactionCoordinatePair> ReactionCoordinatePairs => Set<ReactionCoordinatePair>();
+    public DbSet<Scan> Scans => Set<Scan>();
+    public DbSet<ScanPointRecord> ScanPoints => Set<ScanPointRecord>();
+    public DbSet<FrequencyCheck> FrequencyChecks => Set<FrequencyCheck>();
+    public DbSet<Review> Reviews => Set<Review>();
+    public DbSet<EnergyModel> EnergyModels => Set<EnergyModel>();
+    public DbSet<StoredFile> StoredFiles => Set<StoredFile>();
+    public DbSet<AuditEvent> AuditEvents => Set<AuditEvent>();
+    public DbSet<ReactionDerivation> ReactionDerivations => Set<ReactionDerivation>();
+
     protected override void OnModelCreating(ModelBuilder builder)
     {
         base.OnModelCreating(builder);
         builder.ApplyConfigurationsFromAssembly(typeof(LedgerDbContext).Assembly);
+    }
+
+    public override int SaveChanges(bool acceptAllChangesOnSuccess)
+    {
+        BumpVersions();
+        return base.SaveChanges(acceptAllChangesOnSuccess);
+    }
+
+    public override Task<int> SaveChangesAsync(bool acceptAllChangesOnSuccess, CancellationToken cancellationToken = default)
+    {
+        BumpVersions();
+        return base.SaveChangesAsync(acceptAllChangesOnSuccess, cancellationToken);
+    }
+
+    private void BumpVersions()
+    {
+        foreach (var entry in ChangeTracker.Entries<IVersioned>())
+        {
+            if (entry.State == EntityState.Modified) entry.Entity.Version++;
+            else if (entry.State == EntityState.Added && entry.Entity.Version == 0) entry.Entity.Version = 1;
+        }
     }
 }

@@ -16,7 +16,7 @@ public class SaddleCheckFromHessianTests
     /// Eigenvalues (Wilson, Decius and Cross, Molecular Vibrations, 1955, linear XY2: G_QQ = Σ b_Q²/m = 1/m_A + 2/m_B):
     /// λ_Q = k_Q (1/m_A + 2/m_B) &lt; 0, λ_S = k_S / m_A; ν̃ = sign(λ) √|λ| × 5140.487 cm⁻¹ per √(E_h/(a₀² amu)) (CODATA 2018).
     /// </summary>
-    private static double[] ClHClHessian(double kS, double kQ, double kBend)
+    internal static double[] ClHClHessian(double kS, double kQ, double kBend)
     {
         var m = TestSystems.ClHCl();
         var r = TestSystems.ClHAngstrom;
@@ -65,6 +65,35 @@ public class SaddleCheckFromHessianTests
     public void SoftTorsionComponent_NeedsAttentionWithRotorLikeSoftMode_NotFailed()
     {
         var m = TestSystems.HydrogenTransfer();
+        var input = SaddleCheckInput.FromHessian(m, HydrogenTransferHessian(-0.001), [(1, 7), (7, 8)]);
+        var result = SaddleCheck.Run(input);
+
+        Assert.Equal(2, input.Modes.Count(x => x.IsImaginary));
+        Assert.True(result.Verdict == Verdict.NeedsAttention, result.Report());
+        var soft = Assert.Single(result.SoftModes);
+        Assert.InRange(soft.Mode.FrequencyCm1, -100, -10);
+        Assert.Equal(ModeClass.Torsion, soft.Character.Class);
+        Assert.True(soft.Character.RotorLike);
+        Assert.Contains(result.Reasons, r => r.Code == SaddleCheckCodes.SoftImaginaryMode && r.Message.Contains("about C1–C2"));
+        Assert.Contains(result.SignificantCharacter!.Leading(3), x => x.IsReactionBond);
+    }
+
+    [Fact]
+    public void StiffWrongTorsion_TwoSignificantImaginaryModes_Fails()
+    {
+        // The same system with the methyl-torsion constant thirty times larger (−0.03 hartree/rad²): the rotor becomes a
+        // second significant imaginary mode (a rotamer that is a saddle point of its own), which is a failure.
+        var m = TestSystems.HydrogenTransfer();
+        var result = SaddleCheck.Run(SaddleCheckInput.FromHessian(m, HydrogenTransferHessian(-0.03), [(1, 7), (7, 8)]));
+        Assert.True(result.Verdict == Verdict.Failed, result.Report());
+        Assert.Equal(SaddleCheckCodes.SeveralSignificantImaginaryModes, result.Reasons[0].Code);
+        Assert.Contains(result.SignificantModes, s => s.Character.Class == ModeClass.Torsion && s.Character.RotorLike);
+    }
+
+    /// <summary>The force-field Hessian of the hydrogen transfer described above, with the methyl-torsion constant as given (hartree/rad²).</summary>
+    internal static double[] HydrogenTransferHessian(double methylTorsion)
+    {
+        var m = TestSystems.HydrogenTransfer();
         var g = new Connectivity(m.AtomCount, Connectivity.Of(m).Bonds.Append(new Bond(1, 7)));
         var terms = new List<(double, Func<Vec3[], double>, bool)>();
         foreach (var b in g.Bonds.Where(b => b != new Bond(1, 7) && b != new Bond(7, 8)))
@@ -78,22 +107,11 @@ public class SaddleCheckFromHessianTests
         foreach (var d in dihedrals.Where(d => d.Atoms[1] == 1 && d.Atoms[2] == 7))
             terms.Add((0.01, TestSystems.DihedralRad(d.Atoms[0], d.Atoms[1], d.Atoms[2], d.Atoms[3]), true));
         var methyl = dihedrals.Where(d => d.Atoms[1] == 0 && d.Atoms[2] == 1).ToList();
-        Assert.Equal(9, methyl.Count);
         // Each dihedral is measured from its value at the saddle geometry, wrapped, so the mean does not jump at ±180°.
         var p0 = m.PositionsAngstrom.ToArray();
         double Twist(Vec3[] p) => methyl.Average(d => InternalCoordinates.WrapDegrees(d.ValueAt(p) - d.ValueAt(p0))) * Math.PI / 180;
-        terms.Add((-0.001, Twist, true));
+        terms.Add((methylTorsion, Twist, true));
 
-        var input = SaddleCheckInput.FromHessian(m, TestSystems.ForceFieldHessian(m, terms), [(1, 7), (7, 8)]);
-        var result = SaddleCheck.Run(input);
-
-        Assert.Equal(2, input.Modes.Count(x => x.IsImaginary));
-        Assert.True(result.Verdict == Verdict.NeedsAttention, result.Report());
-        var soft = Assert.Single(result.SoftModes);
-        Assert.InRange(soft.Mode.FrequencyCm1, -100, -10);
-        Assert.Equal(ModeClass.Torsion, soft.Character.Class);
-        Assert.True(soft.Character.RotorLike);
-        Assert.Contains(result.Reasons, r => r.Code == SaddleCheckCodes.SoftImaginaryMode && r.Message.Contains("about C1–C2"));
-        Assert.Contains(result.SignificantCharacter!.Leading(3), x => x.IsReactionBond);
+        return TestSystems.ForceFieldHessian(m, terms);
     }
 }

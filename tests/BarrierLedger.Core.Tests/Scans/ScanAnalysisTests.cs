@@ -60,12 +60,12 @@ public class ScanAnalysisTests
         Assert.Equal((ScanFlagCodes.Jump, 5), (flag.Code, flag.PointIndex));
     }
 
-    [Fact]
-    public void StepInTheProfile_FlagsTheTwoPointsItLiesBetween_AndNonConvergedPointIsExcluded()
+    /// <summary>
+    /// A smooth Morse-like rise sampled every 0.1 Å, then +6 kcal/mol added from point 9 on (a rearrangement), and point 4
+    /// not converged with a nonsense energy (+50 kcal/mol) that must not enter the spline.
+    /// </summary>
+    internal static IEnumerable<(double X, double Kcal, bool Converged)> StepProfile()
     {
-        // A smooth Morse-like rise sampled every 0.1 Å, then +6 kcal/mol added from point 9 on (a rearrangement),
-        // and point 4 not converged with a nonsense energy that must not enter the spline.
-        var points = new List<ScanPoint>();
         for (var i = 0; i < 16; i++)
         {
             var x = 1.5 + 0.1 * i;
@@ -73,8 +73,14 @@ public class ScanAnalysisTests
             if (i >= 8) kcal += 6.0;
             var converged = i != 3;
             if (!converged) kcal += 50;
-            points.Add(new ScanPoint(x, -100 + Energy.FromKcalPerMol(kcal).Hartree, converged));
+            yield return (x, kcal, converged);
         }
+    }
+
+    [Fact]
+    public void StepInTheProfile_FlagsTheTwoPointsItLiesBetween_AndNonConvergedPointIsExcluded()
+    {
+        var points = StepProfile().Select(p => new ScanPoint(p.X, -100 + Energy.FromKcalPerMol(p.Kcal).Hartree, p.Converged)).ToList();
         var profile = ScanAnalysis.Analyze(points, new ScanCoordinate(ScanCoordinateKind.Distance, [0, 1]));
 
         var jumps = profile.Flags.Where(f => f.Code == ScanFlagCodes.Jump).Select(f => f.PointIndex).ToArray();

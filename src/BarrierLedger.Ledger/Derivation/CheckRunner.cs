@@ -1,0 +1,87 @@
+using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Scans;
+using BarrierLedger.Core.Vibrations;
+using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Storage;
+
+namespace BarrierLedger.Ledger.Derivation;
+
+/// <summary>Evidence stored with a frequency check (JSON): imaginary modes with their character, and the scan comparison.</summary>
+public sealed record CheckEvidence(IReadOnlyList<ModeEvidence> ImaginaryModes, ScanEvidence? Scan, double ThresholdCm1);
+
+/// <summary>One imaginary mode: wavenumber (negative), significant or soft, class, summary and its leading motions.</summary>
+public sealed record ModeEvidence(int ModeIndex, double FrequencyCm1, bool Significant, string Class, bool RotorLike, string Summary, IReadOnlyList<ComponentEvidence> Leading);
+
+public sealed record ComponentEvidence(string Label, double Share, bool IsReactionBond);
+
+public sealed record ScanEvidence(int ScanId, double SaddleCoordinate, double ScanMaximumCoordinate, double DistanceInSteps, string Unit);
+
+/// <summary>A stored check reason as read back.</summary>
+public sealed record StoredReason(string Code, string Severity, string Message);
+
+/// <summary>Runs the Core saddle-point check on a stored calculation and turns the result into a <see cref="FrequencyCheck"/>'s fields.</summary>
+internal static class CheckRunner
+{
+    public const string NoModesCode = "saddle.no-modes";
+    public const string NoGeometryCode = "saddle.no-geometry";
+
+    public sealed record Input(int CalculationId, Molecule? Geometry, NormalMode[] Modes, double[] Frequencies, (int A, int B)[] PairsOneBased,
+        int? ScanId, IReadOnlyList<ScanPoint>? ScanPoints, ScanCoordinate? ScanCoordinate);
+
+    public static string Fingerprint(Input i, ModelSettings model) => ModelSettings.Hash(string.Join("|", "k1", i.CalculationId, model.CheckFingerprint,
+        string.Join(",", i.PairsOneBased.Select(p => $"{p.A}-{p.B}")), i.ScanId, i.ScanPoints?.Count));
+
+    public static (Verdict Verdict, string ReasonsJson, string EvidenceJson) Run(Input i, ModelSettings model)
+    {
+        var threshold = model.SignificantImaginaryCm1;
+        if (i.Geometry is null)
+            return Fail(NoGeometryCode, "The saddle-point calculation has no geometry stored, so it cannot be checked.", threshold);
+        if (i.Modes.Length == 0)
+        {
+            var imaginary = i.Frequencies.Where(f => f < 0).ToList();
+            var significant = imaginary.Count(f => Math.Abs(f) >= threshold);
+            var text = i.Frequencies.Length == 0
+                ? "No frequencies or normal modes are stored, so nothing shows that this is a saddle point. Upload the frequency calculation (modes or Hessian)."
+                : $"Only frequencies are stored ({significant} significant imaginary of {imaginary.Count} imaginary), no normal modes: what the imaginary mode does cannot be checked. Upload the modes or the Hessian.";
+            var verdict = significant == 1 ? Verdict.NeedsAttention : Verdict.Failed;
+            var reasons = new[] { new StoredReason(NoModesCode, verdict == Verdict.Failed ? "Failure" : "Attention", text) };
+            var evidence = new CheckEvidence([.. imaginary.Select((f, k) => new ModeEvidence(k, f, Math.Abs(f) >= threshold, "unknown", false, "no normal mode stored", []))], null, threshold);
+            return (verdict, DerivedJson.Write(reasons), DerivedJson.Write(evidence));
+        }
+        ScanProfile? profile = null;
+        if (i.ScanPoints is { Count: >= 2 } points)
+            profile = ScanAnalysis.Analyze(points, i.ScanCoordinate, new ScanOptions(JumpThresholdKcalPerMol: model.ScanJumpKcalPerMol));
+        var input = new SaddleCheckInput(i.Geometry, i.Modes, [.. i.PairsOneBased.Select(p => (p.A - 1, p.B - 1))], profile);
+        var result = SaddleCheck.Run(input, new SaddleCheckOptions(SignificantImaginaryCm1: threshold));
+        var modeIndex = i.Modes.Select((m, k) => (m, k)).ToDictionary(x => x.m, x => x.k);
+        ModeEvidence Evidence(SoftMode s, bool significant) => new(modeIndex.GetValueOrDefault(s.Mode, -1), s.Mode.FrequencyCm1, significant,
+            s.Character.Class.ToString(), s.Character.RotorLike, s.Character.Summary,
+            [.. s.Character.Leading(3).Select(c => new ComponentEvidence(c.Label, c.Share, c.IsReactionBond))]);
+        var ev = new CheckEvidence(
+            [.. result.SignificantModes.Select(s => Evidence(s, true)), .. result.SoftModes.Select(s => Evidence(s, false))],
+            result.Scan is { } sc && i.ScanId is { } sid ? new ScanEvidence(sid, sc.SaddleCoordinate, sc.ScanMaximumCoordinate, sc.DistanceInSteps, sc.Unit) : null,
+            threshold);
+        return (result.Verdict, DerivedJson.Write(result.Reasons.Select(r => new StoredReason(r.Code, r.Severity.ToString(), r.Message)).ToList()),
+            DerivedJson.Write(ev));
+    }
+
+    private static (Verdict, string, string) Fail(string code, string message, double threshold) =>
+        (Verdict.Failed, DerivedJson.Write(new[] { new StoredReason(code, "Failure", message) }), DerivedJson.Write(new CheckEvidence([], null, threshold)));
+
+    /// <summary>Rebuilds the check input from a stored calculation, the state's pairs and an optional scan.</summary>
+    public static Input FromStored(Calculation c, Species sp, (int A, int B)[] pairs, Scan? scan, IReadOnlyList<ScanPointRecord>? points)
+    {
+        var mol = Blobs.ToMolecule(c.AtomicNumbers, c.PositionsAngstrom, sp.Charge, sp.Multiplicity);
+        ScanCoordinate? coordinate = null;
+        List<ScanPoint>? scanPoints = null;
+        if (scan is not null && points is not null)
+        {
+            var atoms = scan.CoordinateAtoms.Split(',', StringSplitOptions.RemoveEmptyEntries).Select(a => int.Parse(a, System.Globalization.CultureInfo.InvariantCulture) - 1).ToArray();
+            coordinate = new ScanCoordinate(scan.CoordinateKind, atoms);
+            scanPoints = [.. points.OrderBy(p => p.Index).Select(p => new ScanPoint(p.Coordinate, p.EnergyHartree, p.Converged))];
+        }
+        return new Input(c.Id, mol, mol is null ? [] : Blobs.ToModes(c.Modes, c.AtomCount), Blobs.ToDoubles(c.FrequenciesCm1), pairs,
+            scan?.Id, scanPoints, coordinate);
+    }
+}

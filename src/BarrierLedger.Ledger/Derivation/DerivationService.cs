@@ -1,0 +1,169 @@
+using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Storage;
+using Microsoft.Data.Sqlite;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Storage;
+
+namespace BarrierLedger.Ledger.Derivation;
+
+/// <summary>
+/// Computes and stores derived values (frequency checks and pathway energies) inside the caller's transaction: on upload for
+/// what the upload touched, and in the recompute pass for whole studies. Used by <see cref="Uploads.UploadService"/> and
+/// <see cref="RecomputeService"/>.
+/// </summary>
+public sealed class DerivationService(TimeProvider time)
+{
+    /// <summary>The model in force for a study: its override, else the group default, else the built-in default.</summary>
+    public static async Task<(ModelSettings Settings, EnergyModel? Row)> EffectiveModelAsync(LedgerDbContext db, int studyId, CancellationToken ct)
+    {
+        var rows = await db.EnergyModels.AsNoTracking().Where(m => m.StudyId == studyId || m.StudyId == null).ToListAsync(ct);
+        var row = rows.FirstOrDefault(m => m.StudyId == studyId) ?? rows.FirstOrDefault(m => m.StudyId == null);
+        return (row is null ? ModelSettings.Default : ModelSettings.From(row), row);
+    }
+
+    /// <summary>
+    /// After an upload: every live reaction of the study that uses a touched species (or is listed) gets a new inputs revision,
+    /// its saddle points are checked and its values derived, all in the caller's transaction.
+    /// </summary>
+    public async Task AfterInputsChangedAsync(LedgerDbContext db, int studyId, IReadOnlyCollection<int> touchedSpeciesIds, IReadOnlyCollection<int> reactionIds, CancellationToken ct)
+    {
+        var affected = await db.Reactions.Where(r => r.StudyId == studyId && !r.Retired &&
+                (reactionIds.Contains(r.Id) || r.States.Any(s => s.Terms.Any(t => touchedSpeciesIds.Contains(t.SpeciesId)))))
+            .Select(r => r.Id).ToListAsync(ct);
+        if (affected.Count == 0) return;
+        await BumpRevisionsAsync(db, affected, ct);
+        var (model, _) = await EffectiveModelAsync(db, studyId, ct);
+        await RefreshChecksAsync(db, model, [studyId], affected, force: false, ct);
+        var inputs = await DerivationInputs.LoadAsync(db, null, affected, ct);
+        var deriver = new ReactionDeriver(model, inputs);
+        await WriteAsync(db, [.. inputs.Reactions.Select(deriver.Derive)], ct);
+    }
+
+    /// <summary>Marks reactions' derived values out of date (their inputs changed).</summary>
+    public static Task BumpRevisionsAsync(LedgerDbContext db, IReadOnlyCollection<int> reactionIds, CancellationToken ct) =>
+        db.Reactions.Where(r => reactionIds.Contains(r.Id)).ExecuteUpdateAsync(u => u.SetProperty(r => r.InputsRevision, r => r.InputsRevision + 1), ct);
+
+    /// <summary>Every reaction whose states use one of these species (for retire/restore of inputs).</summary>
+    public static Task<List<int>> ReactionsUsingSpeciesAsync(LedgerDbContext db, IReadOnlyCollection<int> speciesIds, CancellationToken ct) =>
+        db.Reactions.Where(r => r.States.Any(s => s.Terms.Any(t => speciesIds.Contains(t.SpeciesId)))).Select(r => r.Id).ToListAsync(ct);
+
+    /// <summary>
+    /// Runs the saddle-point check for each saddle-point state's calculation whose stored fingerprint differs from its
+    /// current inputs (or all of them when <paramref name="force"/>). Returns how many were run.
+    /// </summary>
+    internal async Task<int> RefreshChecksAsync(LedgerDbContext db, ModelSettings model, IReadOnlyCollection<int> studyIds, IReadOnlyCollection<int>? reactionIds, bool force, CancellationToken ct)
+    {
+        var q = db.ReactionStates.AsNoTracking().Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired
+                                                             && studyIds.Contains(s.Reaction.StudyId));
+        if (reactionIds is not null) q = q.Where(s => reactionIds.Contains(s.ReactionId));
+        var states = await q.Select(s => new
+        {
+            CalcId = s.SaddleCalculationId!.Value,
+            SpeciesId = s.SaddleCalculation!.SpeciesId,
+            Pairs = s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new { p.AtomA, p.AtomB }).ToList(),
+        }).ToListAsync(ct);
+        if (states.Count == 0) return 0;
+        var byCalc = states.GroupBy(s => s.CalcId).Select(g => g.First()).ToList();
+        var calcIds = byCalc.Select(s => s.CalcId).ToList();
+        var speciesIds = byCalc.Select(s => s.SpeciesId).Distinct().ToList();
+        var scans = (await db.Scans.AsNoTracking().Where(s => speciesIds.Contains(s.SpeciesId) && !s.Retired)
+                .Select(s => new { s.Id, s.SpeciesId, Count = db.ScanPoints.Count(p => p.ScanId == s.Id) }).ToListAsync(ct))
+            .GroupBy(s => s.SpeciesId).ToDictionary(g => g.Key, g => g.OrderByDescending(s => s.Id).First());
+        var stored = await db.FrequencyChecks.Where(c => calcIds.Contains(c.CalculationId)).ToDictionaryAsync(c => c.CalculationId, ct);
+
+        var run = 0;
+        foreach (var s in byCalc)
+        {
+            var pairs = s.Pairs.Select(p => (p.AtomA, p.AtomB)).ToArray();
+            scans.TryGetValue(s.SpeciesId, out var scanInfo);
+            var fingerprint = ModelSettings.Hash(string.Join("|", "k1", s.CalcId, model.CheckFingerprint,
+                string.Join(",", pairs.Select(p => $"{p.AtomA}-{p.AtomB}")), scanInfo?.Id, scanInfo?.Count));
+            stored.TryGetValue(s.CalcId, out var existing);
+            if (!force && existing is not null && existing.InputFingerprint == fingerprint) continue;
+
+            var calc = await db.Calculations.AsNoTracking().Include(c => c.Species).FirstAsync(c => c.Id == s.CalcId, ct);
+            Scan? scan = null;
+            List<ScanPointRecord>? points = null;
+            if (scanInfo is not null)
+            {
+                scan = await db.Scans.AsNoTracking().FirstAsync(x => x.Id == scanInfo.Id, ct);
+                points = await db.ScanPoints.AsNoTracking().Where(p => p.ScanId == scanInfo.Id)
+                    .Select(p => new ScanPointRecord { Index = p.Index, Coordinate = p.Coordinate, EnergyHartree = p.EnergyHartree, Converged = p.Converged })
+                    .ToListAsync(ct);
+            }
+            var input = CheckRunner.FromStored(calc, calc.Species!, pairs, scan, points);
+            var (verdict, reasons, evidence) = CheckRunner.Run(input, model);
+            if (existing is null)
+            {
+                existing = new FrequencyCheck { CalculationId = s.CalcId };
+                db.FrequencyChecks.Add(existing);
+            }
+            existing.Verdict = verdict;
+            existing.ReasonsJson = reasons;
+            existing.EvidenceJson = evidence;
+            existing.InputFingerprint = fingerprint;
+            existing.ComputedAt = time.GetUtcNow();
+            run++;
+        }
+        await db.SaveChangesAsync(ct);
+        return run;
+    }
+
+    /// <summary>Derives the given reactions (or every live reaction of the studies) and stores the results.</summary>
+    internal async Task<int> DeriveAsync(LedgerDbContext db, ModelSettings model, IReadOnlyCollection<int> studyIds, IReadOnlyCollection<int>? reactionIds,
+        Action<int, int>? progress, CancellationToken ct)
+    {
+        var inputs = await DerivationInputs.LoadAsync(db, studyIds, reactionIds, ct);
+        var deriver = new ReactionDeriver(model, inputs);
+        var results = new List<DerivedReaction>(inputs.Reactions.Count);
+        for (var i = 0; i < inputs.Reactions.Count; i++)
+        {
+            ct.ThrowIfCancellationRequested();
+            results.Add(deriver.Derive(inputs.Reactions[i]));
+            if ((i + 1) % 250 == 0) progress?.Invoke(i + 1, inputs.Reactions.Count);
+        }
+        progress?.Invoke(inputs.Reactions.Count, inputs.Reactions.Count);
+        await WriteAsync(db, results, ct);
+        return results.Count;
+    }
+
+    /// <summary>
+    /// Upserts derivations with one prepared statement. A reaction whose inputs revision moved on since it was read (a concurrent
+    /// upload derived it afresh) is left alone.
+    /// </summary>
+    internal async Task WriteAsync(LedgerDbContext db, IReadOnlyList<DerivedReaction> results, CancellationToken ct)
+    {
+        if (results.Count == 0) return;
+        var connection = (SqliteConnection)db.Database.GetDbConnection();
+        if (connection.State != System.Data.ConnectionState.Open) await connection.OpenAsync(ct);
+        await using var cmd = connection.CreateCommand();
+        cmd.Transaction = (SqliteTransaction?)db.Database.CurrentTransaction?.GetDbTransaction();
+        cmd.CommandText = """
+            INSERT INTO ReactionDerivations (ReactionId, BarrierGibbsHartree, ReactionGibbsHartree, BarrierElectronicHartree, RateConstantPerSecond,
+                HalfLifeSeconds, TemperatureKelvin, LevelOfTheory, Consistent, ConsistencyJson, StatesJson, StepsJson, ModelFingerprint,
+                InputFingerprint, InputsRevision, ComputedAt)
+            SELECT $r, $bg, $rg, $be, $k, $t, $T, $lot, $ok, $cj, $sj, $tj, $mf, $if, $rev, $at
+            WHERE (SELECT InputsRevision FROM Reactions WHERE Id = $r) = $rev
+            ON CONFLICT (ReactionId) DO UPDATE SET BarrierGibbsHartree = excluded.BarrierGibbsHartree, ReactionGibbsHartree = excluded.ReactionGibbsHartree,
+                BarrierElectronicHartree = excluded.BarrierElectronicHartree, RateConstantPerSecond = excluded.RateConstantPerSecond,
+                HalfLifeSeconds = excluded.HalfLifeSeconds, TemperatureKelvin = excluded.TemperatureKelvin, LevelOfTheory = excluded.LevelOfTheory,
+                Consistent = excluded.Consistent, ConsistencyJson = excluded.ConsistencyJson, StatesJson = excluded.StatesJson, StepsJson = excluded.StepsJson,
+                ModelFingerprint = excluded.ModelFingerprint, InputFingerprint = excluded.InputFingerprint, InputsRevision = excluded.InputsRevision,
+                ComputedAt = excluded.ComputedAt
+            """;
+        string[] names = ["$r", "$bg", "$rg", "$be", "$k", "$t", "$T", "$lot", "$ok", "$cj", "$sj", "$tj", "$mf", "$if", "$rev", "$at"];
+        var p = names.Select(n => cmd.Parameters.Add(new SqliteParameter { ParameterName = n })).ToArray();
+        cmd.Prepare();
+        var at = time.GetUtcNow().ToString("O", System.Globalization.CultureInfo.InvariantCulture);
+        static object N(double? x) => x is { } v && double.IsFinite(v) ? v : DBNull.Value;
+        foreach (var d in results)
+        {
+            p[0].Value = d.ReactionId; p[1].Value = N(d.BarrierGibbsHartree); p[2].Value = N(d.ReactionGibbsHartree);
+            p[3].Value = N(d.BarrierElectronicHartree); p[4].Value = N(d.RateConstantPerSecond); p[5].Value = N(d.HalfLifeSeconds);
+            p[6].Value = d.TemperatureKelvin; p[7].Value = d.LevelOfTheory; p[8].Value = d.Consistent ? 1 : 0;
+            p[9].Value = DerivedJson.Write(d.Consistency); p[10].Value = DerivedJson.Write(d.States); p[11].Value = DerivedJson.Write(d.Steps);
+            p[12].Value = d.ModelFingerprint; p[13].Value = d.InputFingerprint; p[14].Value = d.InputsRevision; p[15].Value = at;
+            await cmd.ExecuteNonQueryAsync(ct);
+        }
+    }
+}

@@ -1,0 +1,50 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+
+namespace BarrierLedger.Ledger.Derivation;
+
+/// <summary>
+/// One state's energies relative to the pathway's first state, per molecule in hartree (null when not available).
+/// <see cref="EnergyCalculationIds"/> and <see cref="ThermalCalculationIds"/> name the calculations used.
+/// </summary>
+public sealed record DerivedState(int Position, string Label, string Kind, double? DeltaEHartree, double? DeltaHHartree, double? DeltaGHartree,
+    IReadOnlyList<int> EnergyCalculationIds, IReadOnlyList<int> ThermalCalculationIds, string LevelOfTheory);
+
+/// <summary>
+/// One elementary step minimum → saddle point → minimum (Core <c>PathwayEnergies</c>): barriers from the minimum before, reaction
+/// energies to the minimum after (hartree), molecularity, the Eyring rate constant in <see cref="RateConstantUnit"/> with κ, and
+/// the half-life (s) for a unimolecular step, at the model temperature.
+/// </summary>
+public sealed record DerivedStep(int SaddlePosition, string Label, string From, string To, double BarrierEHartree, double? BarrierGHartree,
+    double ReactionEHartree, double? ReactionGHartree, int Molecularity, double? RateConstant, string RateConstantUnit, double? HalfLifeSeconds,
+    double? ImaginaryCm1, double TransmissionCoefficient);
+
+/// <summary>Why a barrier or reaction energy may mislead: a stable code, "Failure" / "Attention" / "Info", and a sentence.
+/// A failure makes the reaction inconsistent (its barrier is shown and exported with the reason).</summary>
+public sealed record ConsistencyReason(string Code, string Severity, string Message)
+{
+    public bool Blocking => Severity == "Failure";
+}
+
+/// <summary>Stable codes of reasons the ledger adds to Core's consistency and pathway reasons.</summary>
+public static class LedgerReasonCodes
+{
+    public const string MissingEnergy = "ledger.missing-energy";
+    public const string FormulaUnknown = "ledger.formula-unknown";
+    public const string PathwayShape = "ledger.pathway-shape";
+    public const string MissingSpecies = "ledger.missing-species";
+}
+
+internal static class DerivedJson
+{
+    public static readonly JsonSerializerOptions Options = new(JsonSerializerDefaults.Web)
+    {
+        DefaultIgnoreCondition = JsonIgnoreCondition.Never,
+        NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
+    };
+
+    public static string Write<T>(T value) => JsonSerializer.Serialize(value, Options);
+
+    public static T Read<T>(string json) => JsonSerializer.Deserialize<T>(json, Options)
+        ?? throw new InvalidDataException("Stored derived values are empty.");
+}

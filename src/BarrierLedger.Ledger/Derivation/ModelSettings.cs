@@ -1,0 +1,95 @@
+using System.Globalization;
+using System.Security.Cryptography;
+using System.Text;
+using BarrierLedger.Core.Thermochemistry;
+using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Records;
+
+namespace BarrierLedger.Ledger.Derivation;
+
+/// <summary>Normalised keys for matching levels of theory (whitespace removed, case folded).</summary>
+public static class EnergyLevels
+{
+    public static string Key(string? level) =>
+        string.Concat((level ?? "").Where(c => !char.IsWhiteSpace(c))).ToLowerInvariant();
+}
+
+/// <summary>
+/// The energy model in force for a study, as values. <see cref="Fingerprint"/> covers everything that changes a derived
+/// number (not the display unit); <see cref="CheckFingerprint"/> covers what changes a frequency check.
+/// </summary>
+public sealed record ModelSettings(
+    string EnergyLevel,
+    string ThermalLevel,
+    double TemperatureKelvin,
+    StandardState StandardState,
+    ThermoTreatment Treatment,
+    double QuasiRrhoCutoffCm1,
+    TunnellingCorrection Tunnelling,
+    EnergyUnit DisplayUnit,
+    double SignificantImaginaryCm1,
+    double ScanJumpKcalPerMol)
+{
+    public static ModelSettings Default { get; } = From(new EnergyModel());
+
+    public static ModelSettings From(EnergyModel m) => new(m.EnergyLevel.Trim(), m.ThermalLevel.Trim(), m.TemperatureKelvin, m.StandardState,
+        m.Treatment, m.QuasiRrhoCutoffCm1, m.Tunnelling, m.DisplayUnit, m.SignificantImaginaryCm1, m.ScanJumpKcalPerMol);
+
+    public void CopyTo(EnergyModel m)
+    {
+        m.EnergyLevel = EnergyLevel.Trim();
+        m.ThermalLevel = ThermalLevel.Trim();
+        m.TemperatureKelvin = TemperatureKelvin;
+        m.StandardState = StandardState;
+        m.Treatment = Treatment;
+        m.QuasiRrhoCutoffCm1 = QuasiRrhoCutoffCm1;
+        m.Tunnelling = Tunnelling;
+        m.DisplayUnit = DisplayUnit;
+        m.SignificantImaginaryCm1 = SignificantImaginaryCm1;
+        m.ScanJumpKcalPerMol = ScanJumpKcalPerMol;
+    }
+
+    /// <summary>Every problem with these settings, in words; empty when they can be used.</summary>
+    public IReadOnlyList<string> Validate()
+    {
+        var e = new List<string>();
+        if (!(TemperatureKelvin > 0) || !double.IsFinite(TemperatureKelvin)) e.Add($"temperature must be above 0 K (got {TemperatureKelvin})");
+        if (!(QuasiRrhoCutoffCm1 > 0) || !double.IsFinite(QuasiRrhoCutoffCm1)) e.Add($"quasi-RRHO cut-off must be positive (got {QuasiRrhoCutoffCm1} cm⁻¹)");
+        if (!(SignificantImaginaryCm1 > 0) || !double.IsFinite(SignificantImaginaryCm1)) e.Add($"imaginary-frequency threshold must be positive (got {SignificantImaginaryCm1} cm⁻¹)");
+        if (!(ScanJumpKcalPerMol > 0) || !double.IsFinite(ScanJumpKcalPerMol)) e.Add($"scan jump threshold must be positive (got {ScanJumpKcalPerMol} kcal/mol)");
+        return e;
+    }
+
+    public string Fingerprint => Hash(string.Join("|", "v1", EnergyLevels.Key(EnergyLevel), EnergyLevels.Key(ThermalLevel), Num(TemperatureKelvin),
+        StandardState, Treatment, Num(QuasiRrhoCutoffCm1), Tunnelling, CheckFingerprint));
+
+    public string CheckFingerprint => Hash(string.Join("|", "c1", Num(SignificantImaginaryCm1), Num(ScanJumpKcalPerMol)));
+
+    public ThermoOptions ThermoOptions(int symmetryNumber) => new(TemperatureKelvin, SymmetryNumber: Math.Max(1, symmetryNumber),
+        Treatment: Treatment, QuasiRrhoCutoffCm1: QuasiRrhoCutoffCm1, StandardState: StandardState);
+
+    /// <summary>"ωB97X-D/def2-TZVP, 298.15 K, 1 mol/L, quasi-RRHO (S, 100 cm⁻¹)" for banners and captions.</summary>
+    public string Describe()
+    {
+        var level = EnergyLevel.Length == 0 ? "each state's own calculation" : EnergyLevel;
+        var thermal = ThermalLevel.Length == 0 ? "" : $", thermal corrections from {ThermalLevel}";
+        var state = StandardState switch
+        {
+            StandardState.Solution1Molar => "1 mol/L",
+            StandardState.Gas1Bar => "1 bar",
+            _ => "1 atm",
+        };
+        var treatment = Treatment switch
+        {
+            ThermoTreatment.Rrho => "RRHO",
+            ThermoTreatment.QuasiRrhoEntropy => $"quasi-RRHO entropy (cut-off {Num(QuasiRrhoCutoffCm1)} cm⁻¹)",
+            _ => $"quasi-RRHO entropy and enthalpy (cut-off {Num(QuasiRrhoCutoffCm1)} cm⁻¹)",
+        };
+        var tunnelling = Tunnelling == TunnellingCorrection.Wigner ? ", Wigner tunnelling" : "";
+        return $"Energies: {level}{thermal}; {Num(TemperatureKelvin)} K; standard state {state}; {treatment}{tunnelling}";
+    }
+
+    internal static string Num(double x) => x.ToString("R", CultureInfo.InvariantCulture);
+
+    internal static string Hash(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)))[..16];
+}

@@ -1,0 +1,39 @@
+using BarrierLedger.Core.Thermochemistry;
+using BarrierLedger.Core.Units;
+
+namespace BarrierLedger.Ledger.Records;
+
+/// <summary>How the thermal corrections are obtained.</summary>
+public enum TunnellingCorrection
+{
+    None,
+    Wigner,
+}
+
+/// <summary>
+/// Which calculations supply the energies and the thermal corrections, at what temperature and standard state, with which
+/// treatment, shown in which unit, checked with which thresholds. One group default (StudyId null) plus per-study overrides.
+/// </summary>
+public class EnergyModel : IVersioned
+{
+    public int Id { get; set; }
+    /// <summary>Null for the group default.</summary>
+    public int? StudyId { get; set; }
+    /// <summary>Level of theory whose electronic energies are used (its energy part); empty: each state's own calculation.</summary>
+    public string EnergyLevel { get; set; } = "";
+    /// <summary>Level of theory whose frequencies give the thermal corrections; empty: any calculation of the species with frequencies.</summary>
+    public string ThermalLevel { get; set; } = "";
+    public double TemperatureKelvin { get; set; } = 298.15;
+    public StandardState StandardState { get; set; } = StandardState.Solution1Molar;
+    public ThermoTreatment Treatment { get; set; } = ThermoTreatment.QuasiRrhoEntropy;
+    public double QuasiRrhoCutoffCm1 { get; set; } = 100.0;
+    public TunnellingCorrection Tunnelling { get; set; } = TunnellingCorrection.None;
+    public EnergyUnit DisplayUnit { get; set; } = EnergyUnit.KcalPerMol;
+    /// <summary>An imaginary mode at or above this |ν̃| is significant (saddle-point check).</summary>
+    public double SignificantImaginaryCm1 { get; set; } = 100.0;
+    /// <summary>Scan jump threshold in kcal/mol.</summary>
+    public double ScanJumpKcalPerMol { get; set; } = 2.0;
+    public DateTimeOffset UpdatedAt { get; set; }
+    public string UpdatedByUserId { get; set; } = "";
+    public long Version { get; set; }
+}

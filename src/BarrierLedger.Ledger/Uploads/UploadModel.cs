@@ -1,0 +1,86 @@
+using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Scans;
+using BarrierLedger.Core.Vibrations;
+using BarrierLedger.Ledger.Records;
+
+namespace BarrierLedger.Ledger.Uploads;
+
+/// <summary>One file as the user gave it.</summary>
+public sealed record UploadFile(string FileName, byte[] Content);
+
+/// <summary>
+/// The upload form's choices, used where the files do not say: the study (an existing one, or a new one by name), and for a
+/// single structure file its species, kind and level of theory. <see cref="AttachToStateId"/> makes an uploaded saddle point
+/// the calculation of an existing saddle-point state (a replacement reopens its review).
+/// </summary>
+public sealed record UploadChoices
+{
+    public int? StudyId { get; init; }
+    public string? NewStudyName { get; init; }
+    public string? SpeciesLabel { get; init; }
+    public int? Charge { get; init; }
+    public int? Multiplicity { get; init; }
+    public CalculationKind? Kind { get; init; }
+    public string? LevelOfTheory { get; init; }
+    public int? AttachToStateId { get; init; }
+    /// <summary>For a multi-frame XYZ uploaded as a relaxed scan: the scanned coordinate's atoms, 1-based (2, 3 or 4 of them).</summary>
+    public IReadOnlyList<int>? ScanAtoms { get; init; }
+    /// <summary>A key the caller chooses so that a retried store cannot write twice; generated when null.</summary>
+    public string? UploadKey { get; init; }
+}
+
+/// <summary>Where an issue was found: file, 1-based line or JSON path (any may be absent), and what is wrong.</summary>
+public sealed record UploadIssue(string FileName, int? Line, string? JsonPath, string Message, bool IsError = true)
+{
+    public override string ToString()
+    {
+        var where = FileName;
+        if (Line is { } l) where += $":{l}";
+        if (!string.IsNullOrEmpty(JsonPath)) where += $" {JsonPath}";
+        return $"{where}: {(IsError ? "error" : "warning")}: {Message}";
+    }
+}
+
+/// <summary>The parsed content of an upload, before it is matched against the store (file-format independent).</summary>
+public sealed class UploadDraft
+{
+    public string? StudyName { get; set; }
+    public string StudyDescription { get; set; } = "";
+    public List<DraftSpecies> Species { get; } = [];
+    public List<DraftCalculation> Calculations { get; } = [];
+    public List<DraftReaction> Reactions { get; } = [];
+    public List<DraftScan> Scans { get; } = [];
+    /// <summary>Every original file by its key (its name, or its path inside a bundle), bytes as given.</summary>
+    public Dictionary<string, byte[]> Files { get; } = new(StringComparer.Ordinal);
+    /// <summary>The file a record comes from when it names none (a bundle manifest or zip).</summary>
+    public string? PrimaryFile { get; set; }
+    public List<UploadIssue> Issues { get; } = [];
+}
+
+public sealed record DraftSpecies(string Label, int Charge, int Multiplicity);
+
+public sealed record DraftCalculation(
+    string Label,
+    string Species,
+    CalculationKind Kind,
+    LevelOfTheory LevelOfTheory,
+    double? EnergyHartree,
+    Molecule? Geometry,
+    IReadOnlyList<double> FrequenciesCm1,
+    IReadOnlyList<NormalMode> Modes,
+    IReadOnlyList<double> HessianHartreePerBohr2,
+    double? ThermalTemperatureKelvin,
+    double? ZeroPointHartree,
+    double? EnthalpyCorrectionHartree,
+    double? GibbsCorrectionHartree,
+    string? File,
+    string Note);
+
+public sealed record DraftTerm(string Species, int Coefficient);
+
+public sealed record DraftState(string Label, StateKind Kind, IReadOnlyList<DraftTerm> Terms, string? Calculation, IReadOnlyList<(int A, int B)> ReactionCoordinate);
+
+public sealed record DraftReaction(string Label, string Description, IReadOnlyList<DraftState> States);
+
+public sealed record DraftScan(string Label, string Species, string LevelOfTheory, ScanCoordinate Coordinate, IReadOnlyList<ScanPoint> Points, string? File);

@@ -1,0 +1,50 @@
+using BarrierLedger.Core.Chemistry;
+
+namespace BarrierLedger.Ledger.Uploads;
+
+/// <summary>What an upload holds and what is wrong with it, before anything is stored.</summary>
+public sealed record UploadPreview(
+    string? StudyName,
+    bool NewStudy,
+    IReadOnlyList<PreviewFile> Files,
+    IReadOnlyList<PreviewSpecies> Species,
+    IReadOnlyList<PreviewCalculation> Calculations,
+    IReadOnlyList<PreviewReaction> Reactions,
+    IReadOnlyList<PreviewScan> Scans,
+    IReadOnlyList<UploadIssue> Issues)
+{
+    public IEnumerable<UploadIssue> Errors => Issues.Where(i => i.IsError);
+    public IEnumerable<UploadIssue> Warnings => Issues.Where(i => !i.IsError);
+    public bool CanStore => !Issues.Any(i => i.IsError);
+}
+
+public sealed record PreviewFile(string FileName, long SizeBytes, string Sha256);
+
+public sealed record PreviewSpecies(string Label, int Charge, int Multiplicity, string Formula, bool Exists);
+
+/// <summary>A calculation found; <see cref="Duplicate"/> when the same file already gave this species this calculation.</summary>
+public sealed record PreviewCalculation(string Label, string Species, CalculationKind Kind, string LevelOfTheory, int AtomCount, string Formula,
+    double? EnergyHartree, IReadOnlyList<double> FrequenciesCm1, int ImaginaryCount, bool HasHessian, bool Duplicate, string? File);
+
+public sealed record PreviewReaction(string Label, string States, bool Exists);
+
+public sealed record PreviewScan(string Label, string Species, string Coordinate, int PointCount, bool HasGeometries, bool Duplicate);
+
+/// <summary>
+/// The result of a store: <see cref="Stored"/> false with every error (nothing was written), or true with what was written
+/// and which records were already there (reported, not stored twice).
+/// </summary>
+public sealed record UploadOutcome(
+    bool Stored,
+    int? UploadId,
+    int? StudyId,
+    IReadOnlyList<int> CalculationIds,
+    IReadOnlyList<int> ReactionIds,
+    IReadOnlyList<int> ScanIds,
+    IReadOnlyList<string> Duplicates,
+    IReadOnlyList<UploadIssue> Issues)
+{
+    public IEnumerable<UploadIssue> Errors => Issues.Where(i => i.IsError);
+
+    internal static UploadOutcome Failed(IEnumerable<UploadIssue> issues) => new(false, null, null, [], [], [], [], [.. issues]);
+}

@@ -1,0 +1,253 @@
+using System.Globalization;
+using System.Security.Cryptography;
+using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Vibrations;
+using BarrierLedger.Ledger.Auditing;
+using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Storage;
+using Microsoft.Data.Sqlite;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Storage;
+
+namespace BarrierLedger.Ledger.Uploads;
+
+/// <summary>
+/// The upload workflow: read files (Core readers) into a draft, match it against the store, show a preview, and store it
+/// as one transaction with its original files. Any error: nothing is written and every error is returned at once. A
+/// calculation already stored from the same file for the same species is reported and not stored twice.
+/// </summary>
+public sealed class UploadService(
+    IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time)
+{
+    /// <summary>Reads and checks the files against the store; writes nothing.</summary>
+    public async Task<UploadPreview> PreviewAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, CancellationToken ct = default)
+    {
+        var draft = UploadReader.Read(files, choices);
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var plan = await UploadPlan.ResolveAsync(db, draft, choices, ct);
+        return plan.ToPreview();
+    }
+
+    /// <summary>Reads, checks and stores the files in one transaction.</summary>
+    public Task<UploadOutcome> StoreAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, string uploaderUserId, CancellationToken ct = default)
+    {
+        var draft = UploadReader.Read(files, choices);
+        return StoreDraftAsync(draft, choices, uploaderUserId, ct);
+    }
+
+    /// <summary>
+    /// Imports one bundle file (manifest .json or .zip) from a stream, e.g. the demo scenario on first start. The study is the
+    /// bundle's own (created when no live study has its name).
+    /// </summary>
+    public async Task<UploadOutcome> ImportBundleAsync(Stream stream, string fileName, string uploaderUserId, CancellationToken ct = default)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        using var buffer = new MemoryStream();
+        await stream.CopyToAsync(buffer, ct);
+        return await StoreAsync([new UploadFile(fileName, buffer.ToArray())], new UploadChoices(), uploaderUserId, ct);
+    }
+
+    /// <summary>Stores an already-read draft (the step after reading; also what the benchmarks time).</summary>
+    public async Task<UploadOutcome> StoreDraftAsync(UploadDraft draft, UploadChoices choices, string uploaderUserId, CancellationToken ct = default)
+    {
+        ArgumentNullException.ThrowIfNull(draft);
+        ArgumentException.ThrowIfNullOrWhiteSpace(uploaderUserId);
+        if (draft.Issues.Any(i => i.IsError)) return UploadOutcome.Failed(draft.Issues);
+        var key = choices.UploadKey ?? Guid.NewGuid().ToString("N");
+        return await LedgerRetry.RunAsync(async token =>
+        {
+            await using var db = await factory.CreateDbContextAsync(token);
+            await using var tx = await LedgerRetry.BeginWriteAsync(db, token);
+            if (await db.Uploads.AsNoTracking().FirstOrDefaultAsync(u => u.Key == key, token) is { } earlier)
+                return new UploadOutcome(true, earlier.Id, earlier.StudyId, [], [], [], [$"upload {key} was already stored"], draft.Issues);
+            var plan = await UploadPlan.ResolveAsync(db, draft, choices, token);
+            if (plan.Issues.Any(i => i.IsError)) return UploadOutcome.Failed(plan.Issues);
+            var outcome = await WriteAsync(db, plan, key, uploaderUserId, token);
+            await tx.CommitAsync(token);
+            return outcome;
+        }, ct);
+    }
+
+    private async Task<UploadOutcome> WriteAsync(LedgerDbContext db, UploadPlan plan, string key, string user, CancellationToken ct)
+    {
+        var now = time.GetUtcNow();
+        var draft = plan.Draft;
+
+        var study = plan.Study ?? new Study { Name = plan.StudyName!, Description = draft.StudyDescription, OwnerUserId = user, CreatedAt = now };
+        if (plan.Study is null)
+        {
+            db.Studies.Add(study);
+            await db.SaveChangesAsync(ct);
+            audit.Record(db, user, "study.created", nameof(Study), study.Id, $"Study '{study.Name}' created by an upload.");
+        }
+
+        foreach (var s in plan.NewSpecies)
+        {
+            s.StudyId = study.Id;
+            db.Species.Add(s);
+        }
+        foreach (var (species, formula) in plan.FormulaUpdates) species.Formula = formula;
+
+        // Original files, content-addressed: bytes stored once however often they are named.
+        var fileIds = new Dictionary<string, int>(StringComparer.Ordinal);
+        var known = await db.StoredFiles.Where(f => plan.FileSha.Values.Contains(f.Sha256)).Select(f => new { f.Sha256, f.Id }).ToListAsync(ct);
+        var bySha = known.ToDictionary(k => k.Sha256, k => k.Id);
+        var newFiles = new Dictionary<string, StoredFile>(StringComparer.Ordinal);
+        foreach (var (name, sha) in plan.FileSha)
+        {
+            if (bySha.ContainsKey(sha) || newFiles.ContainsKey(sha)) continue;
+            var bytes = draft.Files[name];
+            var f = new StoredFile { Sha256 = sha, FileName = name, SizeBytes = bytes.Length, Content = bytes, UploadedByUserId = user, UploadedAt = now };
+            newFiles[sha] = f;
+            db.StoredFiles.Add(f);
+        }
+        var upload = new Upload { Key = key, StudyId = study.Id, UploaderUserId = user, At = now, Summary = plan.Summary() };
+        db.Uploads.Add(upload);
+        await db.SaveChangesAsync(ct);
+        foreach (var f in newFiles.Values) bySha[f.Sha256] = f.Id;
+        foreach (var (name, sha) in plan.FileSha) fileIds[name] = bySha[sha];
+
+        var speciesByLabel = plan.SpeciesByLabel;
+        var calcByLabel = new Dictionary<string, Calculation>(StringComparer.Ordinal);
+        foreach (var c in plan.NewCalculations)
+        {
+            var species = speciesByLabel[c.Draft.Species];
+            var sourceFile = c.Draft.File ?? draft.PrimaryFile;
+            var level = c.Draft.LevelOfTheory;
+            var rec = new Calculation
+            {
+                Species = species, UploadId = upload.Id, Label = c.Draft.Label, Kind = c.Draft.Kind,
+                LevelOfTheory = level.ToString(), Method = level.Method, Basis = level.Basis, Solvation = level.Solvation,
+                GeometryLevel = level.GeometryLevel?.EnergyPart ?? "", EnergyLevelKey = EnergyLevels.Key(level.EnergyPart),
+                EnergyHartree = c.Draft.EnergyHartree,
+                AtomCount = c.Draft.Geometry?.AtomCount ?? 0,
+                AtomicNumbers = c.Draft.Geometry is { } g ? Blobs.FromElements(g.Elements) : null,
+                PositionsAngstrom = c.Draft.Geometry is { } g2 ? Blobs.FromPositions(g2.PositionsAngstrom) : null,
+                FrequenciesCm1 = c.Frequencies.Count > 0 ? Blobs.FromDoubles([.. c.Frequencies]) : null,
+                Modes = c.Modes.Count > 0 ? Blobs.FromModes(c.Modes) : null,
+                HessianHartreePerBohr2 = c.Draft.HessianHartreePerBohr2.Count > 0 ? Blobs.FromDoubles([.. c.Draft.HessianHartreePerBohr2]) : null,
+                ThermalTemperatureKelvin = c.Draft.ThermalTemperatureKelvin, ZeroPointHartree = c.Draft.ZeroPointHartree,
+                EnthalpyCorrectionHartree = c.Draft.EnthalpyCorrectionHartree, GibbsCorrectionHartree = c.Draft.GibbsCorrectionHartree,
+                StoredFileId = sourceFile is not null && fileIds.TryGetValue(sourceFile, out var fid) ? fid : null,
+                SourceSha256 = c.SourceSha, Note = c.Draft.Note, UploadedByUserId = user, UploadedAt = now,
+            };
+            db.Calculations.Add(rec);
+            calcByLabel[c.Draft.Label] = rec;
+        }
+        await db.SaveChangesAsync(ct);
+        foreach (var (label, id) in plan.DuplicateCalculationIds) calcByLabel[label] = await db.Calculations.FindAsync([id], ct) ?? throw new InvalidOperationException($"calculation {id} vanished");
+
+        // Scans: points go through one prepared statement in the same transaction (a scan may have thousands of points).
+        var scanIds = new List<int>();
+        foreach (var s in plan.NewScans)
+        {
+            var first = s.Points.Select(p => p.Geometry).FirstOrDefault(m => m is not null);
+            var scan = new Scan
+            {
+                Species = speciesByLabel[s.Species], UploadId = upload.Id, Label = s.Label, LevelOfTheory = s.LevelOfTheory,
+                CoordinateKind = s.Coordinate.Kind, CoordinateAtoms = string.Join(",", s.Coordinate.Atoms.Select(a => a + 1)),
+                AtomicNumbers = first is null ? null : Blobs.FromElements(first.Elements),
+                StoredFileId = (s.File ?? draft.PrimaryFile) is { } sf && fileIds.TryGetValue(sf, out var sid) ? sid : null,
+                SourceSha256 = plan.ShaOf(s.File), UploadedByUserId = user, UploadedAt = now,
+            };
+            db.Scans.Add(scan);
+            await db.SaveChangesAsync(ct);
+            await InsertScanPointsAsync(db, scan.Id, s.Points, ct);
+            scanIds.Add(scan.Id);
+        }
+
+        // Reactions: new ones with their states; existing ones get their saddle points re-linked (which reopens reviews).
+        var reactionIds = new List<int>();
+        var reopened = new List<int>();
+        foreach (var r in plan.NewReactions)
+        {
+            var reaction = new Reaction { StudyId = study.Id, Label = r.Label, Description = r.Description, OwnerUserId = user };
+            var position = 0;
+            foreach (var s in r.States)
+            {
+                reaction.States.Add(new ReactionState
+                {
+                    Position = position++, Label = s.Label, Kind = s.Kind,
+                    SaddleCalculation = s.Calculation is null ? null : calcByLabel[s.Calculation],
+                    Terms = [.. s.Terms.Select(t => new ReactionStateTerm { Species = speciesByLabel[t.Species], Coefficient = t.Coefficient })],
+                    CoordinatePairs = [.. s.ReactionCoordinate.Select(p => new ReactionCoordinatePair { AtomA = p.A, AtomB = p.B })],
+                });
+            }
+            db.Reactions.Add(reaction);
+            await db.SaveChangesAsync(ct);
+            audit.Record(db, user, "reaction.created", nameof(Reaction), reaction.Id, $"Reaction '{reaction.Label}' with {reaction.States.Count} states.");
+            reactionIds.Add(reaction.Id);
+        }
+        foreach (var (state, calcLabel) in plan.StateRelinks)
+        {
+            var calc = calcByLabel[calcLabel];
+            if (state.SaddleCalculationId == calc.Id) continue;
+            if (state.SaddleCalculationId is { } oldId)
+            {
+                var last = await db.Reviews.Where(v => v.CalculationId == oldId).OrderByDescending(v => v.Id).FirstOrDefaultAsync(ct);
+                if (last is { Outcome: ReviewOutcome.Verified or ReviewOutcome.Returned })
+                {
+                    db.Reviews.Add(new Review
+                    {
+                        CalculationId = oldId, Outcome = ReviewOutcome.Reopened, ReviewerUserId = user, At = now,
+                        Comment = $"Replaced by calculation '{calc.Label}' (upload {upload.Id}); the new saddle point awaits review.",
+                    });
+                    audit.Record(db, user, "review.reopened", nameof(ReactionState), state.Id,
+                        $"State '{state.Label}': a new saddle-point calculation replaced one that was {last.Outcome.ToString().ToLowerInvariant()}; it awaits review again.",
+                        before: $"calculation {oldId} ({last.Outcome})", after: $"calculation {calc.Id} (awaiting review)");
+                    reopened.Add(oldId);
+                }
+            }
+            audit.Record(db, user, "state.saddle-replaced", nameof(ReactionState), state.Id,
+                $"State '{state.Label}' now uses calculation '{calc.Label}'.", before: state.SaddleCalculationId?.ToString(CultureInfo.InvariantCulture),
+                after: calc.Id.ToString(CultureInfo.InvariantCulture));
+            state.SaddleCalculationId = calc.Id;
+            if (!reactionIds.Contains(state.ReactionId)) reactionIds.Add(state.ReactionId);
+        }
+
+        audit.Record(db, user, "upload.stored", nameof(Upload), upload.Id, upload.Summary);
+        await db.SaveChangesAsync(ct);
+
+        // Derived values follow the stored inputs in the same transaction.
+        var newCalcIds = plan.NewCalculations.Select(c => calcByLabel[c.Draft.Label].Id).ToList();
+        var touchedSpecies = plan.NewCalculations.Select(c => speciesByLabel[c.Draft.Species].Id)
+            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Distinct().ToList();
+        await derivation.AfterInputsChangedAsync(db, study.Id, touchedSpecies, reactionIds, ct);
+
+        return new UploadOutcome(true, upload.Id, study.Id, newCalcIds, reactionIds, scanIds,
+            [.. plan.DuplicateCalculationIds.Select(d => $"calculation '{d.Label}' of species '{plan.Draft.Calculations.First(c => c.Label == d.Label).Species}' is already stored (same file); not stored again"),
+             .. plan.DuplicateScans.Select(s => $"scan '{s}' is already stored (same file); not stored again")],
+            plan.Issues);
+    }
+
+    internal static async Task InsertScanPointsAsync(LedgerDbContext db, int scanId, IReadOnlyList<Core.Scans.ScanPoint> points, CancellationToken ct)
+    {
+        var connection = (SqliteConnection)db.Database.GetDbConnection();
+        await using var cmd = connection.CreateCommand();
+        cmd.Transaction = (SqliteTransaction?)db.Database.CurrentTransaction?.GetDbTransaction();
+        cmd.CommandText = "INSERT INTO ScanPoints (ScanId, \"Index\", Coordinate, EnergyHartree, Converged, PositionsAngstrom) VALUES ($s, $i, $c, $e, $v, $p)";
+        var ps = cmd.Parameters.Add("$s", SqliteType.Integer);
+        var pi = cmd.Parameters.Add("$i", SqliteType.Integer);
+        var pc = cmd.Parameters.Add("$c", SqliteType.Real);
+        var pe = cmd.Parameters.Add("$e", SqliteType.Real);
+        var pv = cmd.Parameters.Add("$v", SqliteType.Integer);
+        var pp = cmd.Parameters.Add("$p", SqliteType.Blob);
+        cmd.Prepare();
+        ps.Value = scanId;
+        for (var i = 0; i < points.Count; i++)
+        {
+            var p = points[i];
+            pi.Value = i;
+            pc.Value = p.Coordinate;
+            pe.Value = p.EnergyHartree;
+            pv.Value = p.Converged ? 1 : 0;
+            pp.Value = p.Geometry is { } g ? Blobs.FromPositions(g.PositionsAngstrom) : DBNull.Value;
+            await cmd.ExecuteNonQueryAsync(ct);
+        }
+    }
+
+    internal static string Sha256Hex(byte[] bytes) => Convert.ToHexStringLower(SHA256.HashData(bytes));
+}
