@@ -56,13 +56,17 @@ public sealed record SaddleCheckInput(
 /// saddle point needs exactly one significant one, is common practice, no source.
 /// </param>
 /// <param name="LeadingComponentCount">How many of the mode's largest components count as leading.</param>
-/// <param name="LeadingMinimumShare">A leading component must also carry at least this share of the motion.</param>
+/// <param name="LeadingMinimumRelativeShare">
+/// A leading component must also carry at least this fraction of the largest component's share. Relative, not absolute,
+/// because shares are normalised over every internal coordinate: in a large molecule the many small bends dilute every share,
+/// but not the ratio to the largest. Default 0.25: common practice, no source.
+/// </param>
 /// <param name="ScanStepTolerance">The saddle geometry's scanned coordinate may lie this many typical scan steps from the scan maximum.</param>
 /// <param name="ModeCharacter">Settings for describing modes.</param>
 public sealed record SaddleCheckOptions(
     double SignificantImaginaryCm1 = 100.0,
     int LeadingComponentCount = 3,
-    double LeadingMinimumShare = 0.10,
+    double LeadingMinimumRelativeShare = 0.25,
     double ScanStepTolerance = 1.0,
     ModeCharacterOptions? ModeCharacter = null)
 {
@@ -172,7 +176,8 @@ public static class SaddleCheck
             }
             else if (character.Class != ModeClass.Unknown)
             {
-                var leading = character.Leading(o.LeadingComponentCount).Where(c => c.Share >= o.LeadingMinimumShare).ToList();
+                var top = character.Components.IsEmpty ? 0 : character.Components[0].Share;
+                var leading = character.Leading(o.LeadingComponentCount).Where(c => c.Share >= o.LeadingMinimumRelativeShare * top).ToList();
                 if (!leading.Any(c => c.IsReactionBond))
                 {
                     var declared = string.Join(", ", bonds.Select(b => new Bond(b.A, b.B).Label(mol)));
