@@ -1,4 +1,5 @@
 using BarrierLedger.Ledger;
+using BarrierLedger.Web.Api;
 using BarrierLedger.Web.Components;
 using BarrierLedger.Web.Components.Account;
 using BarrierLedger.Web.Hosting;
@@ -14,6 +15,7 @@ builder.WebHost.UseStaticWebAssets();
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddLedger(builder.Configuration);
 builder.Services.AddBarrierLedgerAuth();
+builder.Services.AddBarrierLedgerApi(builder.Configuration);
 
 var app = builder.Build();
 
@@ -26,6 +28,7 @@ if (!app.Environment.IsDevelopment())
 app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
 app.UseStaticFiles();
 app.UseRouting();
+app.UseRateLimiter();
 app.UseAuthentication();
 app.UseAuthorization();
 app.UseMustChangePassword();
@@ -34,6 +37,7 @@ app.UseAntiforgery();
 app.MapStaticAssets().AllowAnonymous();
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 app.MapAccountEndpoints();
+app.MapBarrierLedgerApi();
 app.MapGet("/health", () => Results.Ok(new { status = "ok" })).AllowAnonymous();
 
 app.Run();
