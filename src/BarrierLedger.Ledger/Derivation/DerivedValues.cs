@@ -11,28 +11,28 @@ public sealed record DerivedState(int Position, string Label, string Kind, doubl
     IReadOnlyList<int> EnergyCalculationIds, IReadOnlyList<int> ThermalCalculationIds, string LevelOfTheory);
 
 /// <summary>
-/// One elementary step at a saddle-point state: barriers from the preceding minimum, reaction energy to the following minimum
-/// (hartree), and the Eyring rate constant (s⁻¹, with κ) and half-life (s) at the model temperature.
+/// One elementary step minimum → saddle point → minimum (Core <c>PathwayEnergies</c>): barriers from the minimum before, reaction
+/// energies to the minimum after (hartree), molecularity, the Eyring rate constant in <see cref="RateConstantUnit"/> with κ, and
+/// the half-life (s) for a unimolecular step, at the model temperature.
 /// </summary>
-public sealed record DerivedStep(int SaddlePosition, string Label, string From, string? To, double? BarrierEHartree, double? BarrierHHartree,
-    double? BarrierGHartree, double? ReactionGHartree, double? RateConstantPerSecond, double? HalfLifeSeconds, double? ImaginaryCm1,
-    double TransmissionCoefficient, IReadOnlyList<ConsistencyReason> Reasons);
+public sealed record DerivedStep(int SaddlePosition, string Label, string From, string To, double BarrierEHartree, double? BarrierGHartree,
+    double ReactionEHartree, double? ReactionGHartree, int Molecularity, double? RateConstant, string RateConstantUnit, double? HalfLifeSeconds,
+    double? ImaginaryCm1, double TransmissionCoefficient);
 
-/// <summary>Why a barrier or reaction energy may mislead. Blocking reasons make the reaction inconsistent.</summary>
-public sealed record ConsistencyReason(string Code, bool Blocking, string Message);
-
-/// <summary>Stable codes of consistency reasons.</summary>
-public static class ConsistencyCodes
+/// <summary>Why a barrier or reaction energy may mislead: a stable code, "Failure" / "Attention" / "Info", and a sentence.
+/// A failure makes the reaction inconsistent (its barrier is shown and exported with the reason).</summary>
+public sealed record ConsistencyReason(string Code, string Severity, string Message)
 {
-    public const string FormulaDiffers = "consistency.formula-differs";
-    public const string ChargeDiffers = "consistency.charge-differs";
-    public const string ElectronsDiffer = "consistency.electrons-differ";
-    public const string FormulaUnknown = "consistency.formula-unknown";
-    public const string MixedLevels = "consistency.mixed-levels";
-    public const string MissingEnergy = "consistency.missing-energy";
-    public const string MissingThermal = "consistency.missing-thermal";
-    public const string SpinChanges = "consistency.spin-changes";
-    public const string ReportedThermal = "consistency.reported-thermal";
+    public bool Blocking => Severity == "Failure";
+}
+
+/// <summary>Stable codes of reasons the ledger adds to Core's consistency and pathway reasons.</summary>
+public static class LedgerReasonCodes
+{
+    public const string MissingEnergy = "ledger.missing-energy";
+    public const string FormulaUnknown = "ledger.formula-unknown";
+    public const string PathwayShape = "ledger.pathway-shape";
+    public const string MissingSpecies = "ledger.missing-species";
 }
 
 internal static class DerivedJson

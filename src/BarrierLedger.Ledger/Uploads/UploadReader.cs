@@ -23,6 +23,7 @@ public static class UploadReader
             return draft;
         }
         var names = new HashSet<string>(StringComparer.Ordinal);
+        var formats = new Dictionary<UploadFile, FileFormat>();
         foreach (var f in files)
         {
             if (!names.Add(f.FileName))
@@ -31,20 +32,16 @@ public static class UploadReader
                 continue;
             }
             draft.Files[f.FileName] = f.Content;
-            var format = FileFormats.Detect(f.FileName, f.Content.AsSpan(0, Math.Min(f.Content.Length, 512)));
-            switch (format)
-            {
-                case FileFormat.Xyz:
-                    ReadXyz(f, choices, limits, draft);
-                    break;
-                case FileFormat.Bundle:
-                case FileFormat.BundleZip:
-                    BundleImport.Read(f, files, limits, draft);
-                    break;
-                default:
-                    SingleFileFormats.Read(f, format, choices, limits, draft);
-                    break;
-            }
+            formats[f] = FileFormats.Detect(f.FileName, f.Content.AsSpan(0, Math.Min(f.Content.Length, 512)));
+        }
+        // Bundles first: the files a manifest names are part of it, not separate uploads.
+        var consumed = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var (f, format) in formats.Where(x => x.Value is FileFormat.Bundle or FileFormat.BundleZip))
+            consumed.UnionWith(BundleImport.Read(f, files, limits, draft));
+        foreach (var (f, format) in formats.Where(x => x.Value is not (FileFormat.Bundle or FileFormat.BundleZip) && !consumed.Contains(x.Key.FileName)))
+        {
+            if (format == FileFormat.Xyz) ReadXyz(f, choices, limits, draft);
+            else SingleFileFormats.Read(f, format, choices, limits, draft);
         }
         return draft;
     }

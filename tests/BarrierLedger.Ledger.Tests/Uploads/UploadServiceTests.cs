@@ -168,3 +168,55 @@ public sealed class UploadServiceTests
         Assert.InRange(Energy.FromHartree(H3System.ETs - H3System.EH2 - H3System.EH).KcalPerMol, 9.40, 9.42);
     }
 }
+
+public sealed class BundleUploadTests
+{
+    [Fact]
+    public async Task ImportBundle_Manifest_StoresThePathwayAndDerivesIt()
+    {
+        await using var ledger = await TempLedger.CreateAsync();
+        var bytes = System.Text.Encoding.UTF8.GetBytes(H3Bundle.Manifest());
+        var outcome = await ledger.Get<UploadService>().ImportBundleAsync(new MemoryStream(bytes), "h3.json", "loader");
+        Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
+        await using var db = await ledger.DbAsync();
+        Assert.Equal("Hydrogen exchange (bundle test)", (await db.Studies.SingleAsync()).Name);
+        Assert.Equal(3, await db.Calculations.CountAsync());
+        Assert.Equal(Verdict.Passed, (await db.FrequencyChecks.SingleAsync()).Verdict);
+        var d = await db.ReactionDerivations.SingleAsync();
+        Assert.Equal(H3System.ETs - H3System.EH2 - H3System.EH, d.BarrierElectronicHartree!.Value, 9);
+
+        // The same bundle again: everything is reported as already stored, nothing doubles.
+        var again = await ledger.Get<UploadService>().ImportBundleAsync(new MemoryStream(bytes), "h3.json", "loader");
+        Assert.True(again.Stored);
+        Assert.Equal(3, again.Duplicates.Count);
+        Assert.Equal(3, await db.Calculations.CountAsync());
+        Assert.Equal(1, await db.Reactions.CountAsync());
+    }
+
+    [Fact]
+    public async Task Store_Zip_KeepsTheZipAndItsMembersAsOriginals()
+    {
+        await using var ledger = await TempLedger.CreateAsync();
+        var zip = H3Bundle.Zip();
+        var outcome = await ledger.Get<UploadService>().StoreAsync([new UploadFile("h3.zip", zip)], new UploadChoices(), "member");
+        Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
+        await using var db = await ledger.DbAsync();
+        var names = await db.StoredFiles.Select(f => f.FileName).ToListAsync();
+        Assert.Contains("h3.zip", names);
+        Assert.Contains("h3.zip!ts.xyz", names);
+        var ts = await db.Calculations.Include(c => c.StoredFile).SingleAsync(c => c.Label == "ts");
+        Assert.Equal("h3.zip!ts.xyz", ts.StoredFile!.FileName);
+    }
+
+    [Fact]
+    public async Task Preview_BundleWithBrokenReference_ReportsTheJsonPathAndStoresNothing()
+    {
+        await using var ledger = await TempLedger.CreateAsync();
+        var text = H3Bundle.Manifest().Replace("\"calculation\": \"ts\"", "\"calculation\": \"nope\"");
+        var preview = await ledger.Get<UploadService>().PreviewAsync([new UploadFile("h3.json", System.Text.Encoding.UTF8.GetBytes(text))], new UploadChoices());
+        Assert.False(preview.CanStore);
+        Assert.Contains(preview.Errors, e => e.FileName == "h3.json" && e.JsonPath is not null && e.Message.Contains("nope"));
+        await using var db = await ledger.DbAsync();
+        Assert.Equal(0, await db.Studies.CountAsync());
+    }
+}
