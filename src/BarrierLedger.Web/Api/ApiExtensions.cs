@@ -94,6 +94,7 @@ public static class ApiExtensions
             .WithName("Me")
             .WithSummary("The account, roles and scope this token acts with");
         UploadEndpoints.Map(api, options);
+        LedgerEndpoints.Map(api);
 
         endpoints.MapFallback("/api/{**rest}", (HttpContext c) => ApiProblems.NotFound($"No API endpoint at {c.Request.Method} {c.Request.Path}; see {Prefix}/openapi.json."))
             .AllowAnonymous().ExcludeFromDescription();
