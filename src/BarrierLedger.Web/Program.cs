@@ -6,7 +6,7 @@ using BarrierLedger.Web.Hosting;
 
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions
 {
-    Args = args,
+    Args = args.Where(a => a != "--no-demo").ToArray(),
     WebRootPath = WebRootLocator.Find(),
 });
 builder.WebHost.UseBarrierLedgerDefaultAddress(builder.Configuration);
@@ -15,6 +15,7 @@ builder.WebHost.UseStaticWebAssets();
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddLedger(builder.Configuration);
 builder.Services.AddBarrierLedgerAuth();
+builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
 builder.Services.AddBarrierLedgerApi(builder.Configuration);
 
 var app = builder.Build();

@@ -45,6 +45,7 @@ public sealed class ApiTestHost : WebApplicationFactory<Program>
         builder.UseEnvironment("Production");
         builder.UseSetting("urls", "http://127.0.0.1:0");
         builder.UseSetting("BarrierLedger:DataDirectory", DataDirectory);
+        builder.UseSetting("BarrierLedger:LoadDemo", "false"); // an empty store, so counts show exactly what a test stored
         foreach (var (k, v) in _settings) builder.UseSetting(k, v);
         builder.ConfigureTestServices(s =>
         {
