@@ -14,7 +14,7 @@ public sealed record DemoFile(string RelativePath, string Content);
 /// <param name="Label">Unique label in the study.</param>
 /// <param name="Slug">File-name stem (lower case, no spaces).</param>
 /// <param name="Geometry">Structure in Å with charge and multiplicity.</param>
-/// <param name="Kind">Minimum, saddle point, or single point for a lone atom (nothing to optimise, no Hessian).</param>
+/// <param name="Kind">Minimum or saddle point (a lone atom is a minimum without a Hessian).</param>
 /// <param name="ForceField">What the force field should produce; null for a lone atom.</param>
 /// <param name="OptEnergyHartree">Electronic energy at the geometry level.</param>
 /// <param name="SinglePointEnergyHartree">Electronic energy of the single point, or null for none.</param>

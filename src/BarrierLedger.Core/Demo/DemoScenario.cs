@@ -80,7 +80,8 @@ public static class DemoScenario
         }
         var min = CalculationKind.Minimum;
         var ts = CalculationKind.SaddlePoint;
-        var atom = CalculationKind.SinglePoint;
+        // A lone atom is trivially at its minimum; it has no Hessian (energy driver only).
+        var atom = CalculationKind.Minimum;
         var plain = ForceFieldSpec.Minimum;
 
         // Invented single-point energies (hartree) of the reference minima; the others follow from invented reaction energies.
