@@ -1,4 +1,8 @@
 using BarrierLedger.Ledger.Auditing;
+using BarrierLedger.Ledger.Backups;
+using BarrierLedger.Ledger.Queries;
+using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Uploads;
@@ -28,6 +32,13 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<AuditService>();
         services.AddSingleton<DerivationService>();
         services.AddSingleton<UploadService>();
+        services.AddSingleton<RecomputeService>();
+        services.AddSingleton<EnergyModelService>();
+        services.AddSingleton<ReviewService>();
+        services.AddSingleton<LedgerQueryService>();
+        services.AddSingleton<ReactionQueryService>();
+        services.AddSingleton<RecordService>();
+        services.AddSingleton<BackupService>();
         return services;
     }
 }

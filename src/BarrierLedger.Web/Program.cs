@@ -5,7 +5,7 @@ using BarrierLedger.Web.Hosting;
 
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions
 {
-    Args = args,
+    Args = args.Where(a => a != "--no-demo").ToArray(),
     WebRootPath = WebRootLocator.Find(),
 });
 builder.WebHost.UseBarrierLedgerDefaultAddress(builder.Configuration);
@@ -14,6 +14,7 @@ builder.WebHost.UseStaticWebAssets();
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddLedger(builder.Configuration);
 builder.Services.AddBarrierLedgerAuth();
+builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
 
 var app = builder.Build();
 

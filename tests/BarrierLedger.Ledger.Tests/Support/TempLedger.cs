@@ -35,6 +35,23 @@ public sealed class TempLedger : IAsyncDisposable
 
     public async Task<LedgerDbContext> DbAsync() => await Factory.CreateDbContextAsync();
 
+    /// <summary>Adds an account with one role directly in the store (what the web app's account pages do through Identity).</summary>
+    public async Task<string> AddUserAsync(string name, string role)
+    {
+        await using var db = await DbAsync();
+        var roleRow = await db.Roles.FirstOrDefaultAsync(r => r.Name == role);
+        if (roleRow is null)
+        {
+            roleRow = new Microsoft.AspNetCore.Identity.IdentityRole(role) { NormalizedName = role.ToUpperInvariant() };
+            db.Roles.Add(roleRow);
+        }
+        var user = new Accounts.LedgerUser { UserName = name, NormalizedUserName = name.ToUpperInvariant(), DisplayName = name };
+        db.Users.Add(user);
+        db.UserRoles.Add(new Microsoft.AspNetCore.Identity.IdentityUserRole<string> { UserId = user.Id, RoleId = roleRow.Id });
+        await db.SaveChangesAsync();
+        return user.Id;
+    }
+
     public async ValueTask DisposeAsync()
     {
         await Services.DisposeAsync();

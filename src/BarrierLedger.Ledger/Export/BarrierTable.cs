@@ -1,0 +1,187 @@
+using System.Globalization;
+using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Units;
+
+namespace BarrierLedger.Ledger.Export;
+
+/// <summary>How a cell's value is written.</summary>
+public enum CellKind
+{
+    Text,
+    /// <summary>An energy in the table unit, rounded to the table's decimals.</summary>
+    Fixed,
+    /// <summary>A positive quantity over many decades (k, t½): three significant digits, mantissa × 10^exponent.</summary>
+    Scientific,
+    /// <summary>An imaginary wavenumber: its magnitude, whole cm⁻¹, written with "i".</summary>
+    Imaginary,
+    Empty,
+}
+
+/// <summary>
+/// One formatted cell. <see cref="Number"/> is the value as printed (already rounded); writers format it for their
+/// medium (ASCII minus in CSV, "−" in Markdown, "$-$" in LaTeX, a numeric cell in XLSX).
+/// </summary>
+public sealed record TableCell(CellKind Kind, string Text, double? Number = null, int Decimals = 0, double Mantissa = 0, int Exponent = 0)
+{
+    public static TableCell Empty { get; } = new(CellKind.Empty, "");
+
+    /// <summary>Plain text with an ASCII minus (what CSV carries and what parses back).</summary>
+    public string Plain => Kind switch
+    {
+        CellKind.Fixed => Number!.Value.ToString("F" + Decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture),
+        CellKind.Scientific => Number!.Value.ToString("0.00E+00", CultureInfo.InvariantCulture),
+        CellKind.Imaginary => Number!.Value.ToString("F0", CultureInfo.InvariantCulture),
+        _ => Text,
+    };
+}
+
+/// <summary>A column header in the three notations the writers need.</summary>
+public sealed record TableHeader(ExportColumn Column, string Plain, string Latex, string Markdown, bool Numeric);
+
+/// <summary>A formatted row: its cells (one per chosen column) and the marks of its footnotes.</summary>
+public sealed record TableRow(IReadOnlyList<TableCell> Cells, IReadOnlyList<string> Marks);
+
+/// <summary>A footnote: its mark ("a") and why the marked rows may mislead.</summary>
+public sealed record TableFootnote(string Mark, string Text);
+
+/// <summary>
+/// A barrier table ready to write in any format: title, model lines, headers, rows (values rounded once, here), marks with
+/// their footnotes, and the caution. Every writer prints all of it.
+/// </summary>
+public sealed record BarrierTable(
+    string Title,
+    IReadOnlyList<string> ModelLines,
+    IReadOnlyList<TableHeader> Headers,
+    IReadOnlyList<TableRow> Rows,
+    IReadOnlyList<TableFootnote> Footnotes,
+    string Caution,
+    EnergyUnit Unit,
+    int Decimals)
+{
+    /// <summary>Header of the marks column that every format appends.</summary>
+    public const string NoteHeader = "Note";
+
+    /// <summary>
+    /// Builds the table. Energies are converted from hartree and rounded half away from zero to <see cref="TableOptions.Decimals"/>
+    /// only here. A row is marked when its saddle point is not verified by a reviewer, and when its barrier breaks a
+    /// consistency rule; each distinct reason gets one footnote.
+    /// </summary>
+    public static BarrierTable Build(BarrierTableSource source, TableOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        ArgumentNullException.ThrowIfNull(options);
+        if (options.Columns is null || options.Columns.Count == 0) throw new ArgumentException("Choose at least one column.", nameof(options));
+        if (options.Columns.Distinct().Count() != options.Columns.Count) throw new ArgumentException("A column is chosen twice.", nameof(options));
+        if (options.Decimals is < 0 or > 6) throw new ArgumentException($"Decimals must be 0 to 6, not {options.Decimals}.", nameof(options));
+
+        var unit = Energy.Symbol(options.Unit);
+        var headers = options.Columns.Select(c => Header(c, unit)).ToList();
+        var footnotes = new List<TableFootnote>();
+        var rows = new List<TableRow>();
+        foreach (var r in source.Rows)
+        {
+            var marks = new List<string>();
+            if (!r.IsVerified) marks.Add(MarkFor(footnotes, UnverifiedText(r)));
+            if (!r.IsConsistent) marks.Add(MarkFor(footnotes, $"{r.Reaction}: the barrier breaks a consistency rule: {string.Join("; ", r.ConsistencyProblems)}"));
+            if (r.RateConstantUnit != "s⁻¹" && r.RateConstant is not null && options.Columns.Contains(ExportColumn.RateConstant))
+                marks.Add(MarkFor(footnotes, $"k of a step with more than one molecule is in {r.RateConstantUnit} (standard state {source.Model.StandardStateText})."));
+            rows.Add(new TableRow([.. options.Columns.Select(c => Cell(r, c, options))], marks));
+        }
+        var model = source.Model.Lines(options.Unit).ToList();
+        model.Add($"Energies rounded to {options.Decimals} decimal{(options.Decimals == 1 ? "" : "s")} for this table only; stored values are unrounded.");
+        return new BarrierTable($"Barriers and reaction energies: {source.StudyName}", model, headers, rows, footnotes, ExportCaution.Text, options.Unit, options.Decimals);
+    }
+
+    /// <summary>Why an unverified row is marked, in words.</summary>
+    public static string UnverifiedText(BarrierRow r)
+    {
+        var status = r.Review switch
+        {
+            ReviewState.AwaitingReview => "awaiting review",
+            ReviewState.Returned => "returned by the reviewer",
+            ReviewState.Reopened => "reopened after a new upload",
+            _ => "not verified",
+        };
+        var check = r.Check is { } v ? $"automatic check: {VerdictText.Of(v)}" : "no automatic check";
+        var reasons = r.Check is Verdict.NeedsAttention or Verdict.Failed && r.CheckReasons.Count > 0 ? $" ({string.Join("; ", r.CheckReasons)})" : "";
+        return $"{r.Reaction}, {r.SaddleLabel}: saddle point not verified by a reviewer ({status}); {check}{reasons}.";
+    }
+
+    private static string MarkFor(List<TableFootnote> footnotes, string text)
+    {
+        var existing = footnotes.FirstOrDefault(f => f.Text == text);
+        if (existing is not null) return existing.Mark;
+        var mark = MarkName(footnotes.Count);
+        footnotes.Add(new TableFootnote(mark, text));
+        return mark;
+    }
+
+    /// <summary>a, b, …, z, aa, ab, …</summary>
+    internal static string MarkName(int index) => index < 26 ? ((char)('a' + index)).ToString() : MarkName(index / 26 - 1) + (char)('a' + index % 26);
+
+    private static TableHeader Header(ExportColumn c, string unit)
+    {
+        var latexUnit = unit switch { "cm⁻¹" => "cm$^{-1}$", "kcal/mol" => "kcal\\,mol$^{-1}$", "kJ/mol" => "kJ\\,mol$^{-1}$", "Eh" => "$E_\\mathrm{h}$", _ => unit };
+        return c switch
+        {
+            ExportColumn.Reaction => new(c, "Reaction", "Reaction", "Reaction", false),
+            ExportColumn.Step => new(c, "Step", "Step", "Step", false),
+            ExportColumn.BarrierElectronic => new(c, $"ΔE‡ ({unit})", $"$\\Delta E^{{\\ddagger}}$ ({latexUnit})", $"ΔE‡ ({unit})", true),
+            ExportColumn.BarrierEnthalpy => new(c, $"ΔH‡ ({unit})", $"$\\Delta H^{{\\ddagger}}$ ({latexUnit})", $"ΔH‡ ({unit})", true),
+            ExportColumn.BarrierGibbs => new(c, $"ΔG‡ ({unit})", $"$\\Delta G^{{\\ddagger}}$ ({latexUnit})", $"ΔG‡ ({unit})", true),
+            ExportColumn.ReactionGibbs => new(c, $"ΔG_r ({unit})", $"$\\Delta G_\\mathrm{{r}}$ ({latexUnit})", $"ΔG<sub>r</sub> ({unit})", true),
+            ExportColumn.RateConstant => new(c, "k (s⁻¹)", "$k$ (s$^{-1}$)", "k (s⁻¹)", true),
+            ExportColumn.HalfLife => new(c, "t½ (s)", "$t_{1/2}$ (s)", "t½ (s)", true),
+            ExportColumn.ImaginaryFrequency => new(c, "Imaginary frequency (i cm⁻¹)", "$\\tilde{\\nu}_\\mathrm{imag}$ (cm$^{-1}$)", "Imaginary frequency (cm⁻¹)", true),
+            ExportColumn.Verdict => new(c, "Check", "Check", "Check", false),
+            ExportColumn.ReviewStatus => new(c, "Review", "Review", "Review", false),
+            ExportColumn.LevelOfTheory => new(c, "Level of theory", "Level of theory", "Level of theory", false),
+            _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown column."),
+        };
+    }
+
+    private static TableCell Cell(BarrierRow r, ExportColumn c, TableOptions o) => c switch
+    {
+        ExportColumn.Reaction => new(CellKind.Text, r.Reaction),
+        ExportColumn.Step => new(CellKind.Text, r.Step),
+        ExportColumn.BarrierElectronic => EnergyCell(r.BarrierElectronic, o),
+        ExportColumn.BarrierEnthalpy => EnergyCell(r.BarrierEnthalpy, o),
+        ExportColumn.BarrierGibbs => EnergyCell(r.BarrierGibbs, o),
+        ExportColumn.ReactionGibbs => EnergyCell(r.ReactionGibbs, o),
+        ExportColumn.RateConstant => ScientificCell(r.RateConstant),
+        ExportColumn.HalfLife => ScientificCell(r.HalfLifeSeconds),
+        ExportColumn.ImaginaryFrequency => r.ImaginaryFrequencyCm1 is { } f && double.IsFinite(f)
+            ? new(CellKind.Imaginary, "", Math.Round(Math.Abs(f), 0, MidpointRounding.AwayFromZero)) : TableCell.Empty,
+        ExportColumn.Verdict => new(CellKind.Text, r.Check is { } v ? VerdictText.Of(v) : "not checked"),
+        ExportColumn.ReviewStatus => new(CellKind.Text, ReviewText(r.Review)),
+        ExportColumn.LevelOfTheory => new(CellKind.Text, r.LevelOfTheory),
+        _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown column."),
+    };
+
+    public static string ReviewText(ReviewState s) => s switch
+    {
+        ReviewState.AwaitingReview => "awaiting review",
+        ReviewState.Verified => "verified",
+        ReviewState.Returned => "returned",
+        ReviewState.Reopened => "reopened",
+        _ => s.ToString(),
+    };
+
+    private static TableCell EnergyCell(Energy? e, TableOptions o)
+    {
+        if (e is not { } v || !double.IsFinite(v.Hartree)) return TableCell.Empty;
+        var rounded = Math.Round(v.In(o.Unit), o.Decimals, MidpointRounding.AwayFromZero);
+        if (rounded == 0) rounded = 0; // no "-0.0"
+        return new TableCell(CellKind.Fixed, "", rounded, o.Decimals);
+    }
+
+    private static TableCell ScientificCell(double? x)
+    {
+        if (x is not { } v || !double.IsFinite(v) || v <= 0) return TableCell.Empty;
+        var exponent = (int)Math.Floor(Math.Log10(v));
+        var mantissa = Math.Round(v / Math.Pow(10, exponent), 2, MidpointRounding.AwayFromZero);
+        if (mantissa >= 10) { mantissa /= 10; exponent++; }
+        var number = double.Parse($"{mantissa.ToString("0.00", CultureInfo.InvariantCulture)}E{exponent.ToString(CultureInfo.InvariantCulture)}", CultureInfo.InvariantCulture);
+        return new TableCell(CellKind.Scientific, "", number, 2, mantissa, exponent);
+    }
+}

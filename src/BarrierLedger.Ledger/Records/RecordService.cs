@@ -1,0 +1,159 @@
+using BarrierLedger.Ledger.Auditing;
+using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.Storage;
+using Microsoft.EntityFrameworkCore;
+
+namespace BarrierLedger.Ledger.Records;
+
+/// <summary>The kinds of record that can be retired and restored.</summary>
+public enum RecordKind
+{
+    Study,
+    Species,
+    Calculation,
+    Reaction,
+    Scan,
+}
+
+/// <summary>
+/// Edits people make to records: rename and describe, retire and restore (nothing is deleted outright). Every edit names the
+/// version the editor saw; if someone saved in between, nothing is written and the conflict is explained. Retiring or
+/// restoring an input re-derives the reactions that use it in the same transaction.
+/// </summary>
+public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time)
+{
+    public async Task<int> CreateStudyAsync(string name, string description, string userId, CancellationToken ct = default)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(name);
+        return await LedgerRetry.RunAsync(async token =>
+        {
+            await using var db = await factory.CreateDbContextAsync(token);
+            if (await db.Studies.AnyAsync(s => s.Name == name.Trim() && !s.Retired, token))
+                throw new ArgumentException($"A study named '{name.Trim()}' already exists.", nameof(name));
+            var s = new Study { Name = name.Trim(), Description = description.Trim(), OwnerUserId = userId, CreatedAt = time.GetUtcNow() };
+            db.Studies.Add(s);
+            await db.SaveChangesAsync(token);
+            audit.Record(db, userId, "study.created", nameof(Study), s.Id, $"Study '{s.Name}' created.");
+            await db.SaveChangesAsync(token);
+            return s.Id;
+        }, ct);
+    }
+
+    public Task<EditResult> EditStudyAsync(int id, string name, string description, long expectedVersion, string userId, CancellationToken ct = default) =>
+        EditAsync<Study>(id, expectedVersion, userId, s =>
+        {
+            if (string.IsNullOrWhiteSpace(name)) return ["the study name is empty"];
+            s.Name = name.Trim();
+            s.Description = description.Trim();
+            return [];
+        }, s => ("study.edited", $"Study renamed or described: '{s.Name}'."), ct);
+
+    public Task<EditResult> EditReactionAsync(int id, string label, string description, long expectedVersion, string userId, CancellationToken ct = default) =>
+        EditAsync<Reaction>(id, expectedVersion, userId, r =>
+        {
+            if (string.IsNullOrWhiteSpace(label)) return ["the reaction label is empty"];
+            r.Label = label.Trim();
+            r.Description = description.Trim();
+            return [];
+        }, r => ("reaction.edited", $"Reaction now '{r.Label}': {r.Description}"), ct);
+
+    /// <summary>Sets a species' rotational symmetry number (it changes its entropy), and re-derives the reactions using it.</summary>
+    public async Task<EditResult> EditSpeciesAsync(int id, int symmetryNumber, long expectedVersion, string userId, CancellationToken ct = default)
+    {
+        var result = await EditAsync<Species>(id, expectedVersion, userId, s =>
+        {
+            if (symmetryNumber < 1) return [$"the symmetry number must be 1 or more (got {symmetryNumber})"];
+            s.SymmetryNumber = symmetryNumber;
+            return [];
+        }, s => ("species.edited", $"Species '{s.Label}': symmetry number {s.SymmetryNumber}."), ct, rederiveSpecies: true);
+        return result;
+    }
+
+    public Task<EditResult> RetireAsync(RecordKind kind, int id, long expectedVersion, string userId, string reason, CancellationToken ct = default) =>
+        SetRetiredAsync(kind, id, expectedVersion, userId, true, reason, ct);
+
+    public Task<EditResult> RestoreAsync(RecordKind kind, int id, long expectedVersion, string userId, CancellationToken ct = default) =>
+        SetRetiredAsync(kind, id, expectedVersion, userId, false, "", ct);
+
+    /// <summary>The current version of a record (what an editor passes back), or null when it does not exist.</summary>
+    public async Task<long?> GetVersionAsync(RecordKind kind, int id, CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        return kind switch
+        {
+            RecordKind.Study => await db.Studies.Where(x => x.Id == id).Select(x => (long?)x.Version).FirstOrDefaultAsync(ct),
+            RecordKind.Species => await db.Species.Where(x => x.Id == id).Select(x => (long?)x.Version).FirstOrDefaultAsync(ct),
+            RecordKind.Calculation => await db.Calculations.Where(x => x.Id == id).Select(x => (long?)x.Version).FirstOrDefaultAsync(ct),
+            RecordKind.Reaction => await db.Reactions.Where(x => x.Id == id).Select(x => (long?)x.Version).FirstOrDefaultAsync(ct),
+            _ => await db.Scans.Where(x => x.Id == id).Select(x => (long?)x.Version).FirstOrDefaultAsync(ct),
+        };
+    }
+
+    private Task<EditResult> SetRetiredAsync(RecordKind kind, int id, long expectedVersion, string userId, bool retire, string reason, CancellationToken ct)
+    {
+        var verb = retire ? "retired" : "restored";
+        Func<IRetirable, IReadOnlyList<string>> apply = e =>
+        {
+            if (e.Retired == retire) return [$"it is already {verb}"];
+            e.Retired = retire;
+            e.RetiredAt = retire ? time.GetUtcNow() : null;
+            e.RetiredByUserId = retire ? userId : null;
+            return [];
+        };
+        (string, string) Describe(object e) => ($"record.{verb}", $"{kind} {id} {verb}" + (reason.Length > 0 ? $": {reason}" : "."));
+        var rederive = kind is RecordKind.Species or RecordKind.Calculation or RecordKind.Scan;
+        return kind switch
+        {
+            RecordKind.Study => EditAsync<Study>(id, expectedVersion, userId, apply, Describe, ct),
+            RecordKind.Species => EditAsync<Species>(id, expectedVersion, userId, apply, Describe, ct, rederiveSpecies: rederive),
+            RecordKind.Calculation => EditAsync<Calculation>(id, expectedVersion, userId, apply, Describe, ct, rederiveSpecies: rederive),
+            RecordKind.Reaction => EditAsync<Reaction>(id, expectedVersion, userId, apply, Describe, ct),
+            _ => EditAsync<Scan>(id, expectedVersion, userId, apply, Describe, ct, rederiveSpecies: rederive),
+        };
+    }
+
+    private async Task<EditResult> EditAsync<T>(int id, long expectedVersion, string userId, Func<T, IReadOnlyList<string>> apply, Func<T, (string Action, string Summary)> describe,
+        CancellationToken ct, bool rederiveSpecies = false) where T : class, IVersioned
+    {
+        return await LedgerRetry.RunAsync(async token =>
+        {
+            await using var db = await factory.CreateDbContextAsync(token);
+            await using var tx = await LedgerRetry.BeginWriteAsync(db, token);
+            var entity = await db.Set<T>().FindAsync([id], token);
+            if (entity is null) return EditResult.Invalid([$"{typeof(T).Name} {id} does not exist"]);
+            if (entity.Version != expectedVersion)
+                return EditResult.Conflicted(ConflictText(typeof(T).Name, id, expectedVersion, entity.Version));
+            db.Entry(entity).Property(e => e.Version).OriginalValue = expectedVersion;
+            var errors = apply(entity);
+            if (errors.Count > 0) return EditResult.Invalid(errors);
+            var (action, summary) = describe(entity);
+            audit.Record(db, userId, action, typeof(T).Name, id, summary, before: $"version {expectedVersion}", after: $"version {expectedVersion + 1}");
+            try
+            {
+                await db.SaveChangesAsync(token);
+            }
+            catch (DbUpdateConcurrencyException)
+            {
+                return EditResult.Conflicted(ConflictText(typeof(T).Name, id, expectedVersion, null));
+            }
+            if (rederiveSpecies)
+            {
+                var speciesId = entity switch
+                {
+                    Species s => s.Id,
+                    Calculation c => c.SpeciesId,
+                    Scan sc => sc.SpeciesId,
+                    _ => 0,
+                };
+                var studyId = await db.Species.Where(s => s.Id == speciesId).Select(s => s.StudyId).FirstAsync(token);
+                await derivation.AfterInputsChangedAsync(db, studyId, [speciesId], [], token);
+            }
+            await tx.CommitAsync(token);
+            return EditResult.Ok(entity.Version);
+        }, ct);
+    }
+
+    private static string ConflictText(string type, int id, long seen, long? now) =>
+        $"This {type.ToLowerInvariant()} ({id}) was changed by someone else after you opened it (you had version {seen}" +
+        (now is { } n ? $", it is now version {n}" : "") + "). Your change was not saved: reload to see theirs, then make yours again.";
+}

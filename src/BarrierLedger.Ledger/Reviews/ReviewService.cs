@@ -1,0 +1,162 @@
+using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Auditing;
+using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Storage;
+using Microsoft.EntityFrameworkCore;
+
+namespace BarrierLedger.Ledger.Reviews;
+
+/// <summary>Where a saddle point stands in review.</summary>
+public enum ReviewStatus
+{
+    AwaitingReview,
+    Verified,
+    Returned,
+}
+
+/// <summary>Words for a review status, as shown to users.</summary>
+public static class ReviewStatusText
+{
+    public static string Of(ReviewStatus s) => s switch
+    {
+        ReviewStatus.AwaitingReview => "Awaiting review",
+        ReviewStatus.Verified => "Verified",
+        ReviewStatus.Returned => "Returned",
+        _ => throw new ArgumentOutOfRangeException(nameof(s), s, "Unknown review status."),
+    };
+
+    /// <summary>The status a calculation's latest review entry gives (none or a reopening: awaiting review).</summary>
+    public static ReviewStatus FromLatest(ReviewOutcome? latest) => latest switch
+    {
+        ReviewOutcome.Verified => ReviewStatus.Verified,
+        ReviewOutcome.Returned => ReviewStatus.Returned,
+        _ => ReviewStatus.AwaitingReview,
+    };
+}
+
+/// <summary>One entry of a review history.</summary>
+public sealed record ReviewEntry(int Id, int CalculationId, string CalculationLabel, ReviewOutcome Outcome, string Comment, string ReviewerUserId, string ReviewerName, DateTimeOffset At);
+
+/// <summary>A saddle point awaiting sign-off, with its evidence.</summary>
+public sealed record ReviewQueueItem(
+    int CalculationId, string CalculationLabel, string LevelOfTheory, int StateId, string StateLabel, int ReactionId, string ReactionLabel,
+    int StudyId, string StudyName, string UploadedByUserId, string UploadedByName, DateTimeOffset UploadedAt,
+    Verdict? Verdict, IReadOnlyList<StoredReason> Reasons, CheckEvidence? Evidence, bool PreviouslyReviewed);
+
+/// <summary>A refusal because the user is not a reviewer (the page hides the controls too; this is the server's own check).</summary>
+public sealed class ReviewerRequiredException(string message) : UnauthorizedAccessException(message);
+
+/// <summary>
+/// The review workflow: the queue of saddle points awaiting sign-off, verify and return (only users in the Reviewer role,
+/// checked here against the store), and review history. A new calculation for a reviewed saddle point reopens it (written by
+/// the upload); the old reviews stay.
+/// </summary>
+public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, AuditService audit, TimeProvider time)
+{
+    /// <summary>Saddle points in use by a live reaction whose current calculation has no verdict yet, oldest upload first.</summary>
+    public async Task<IReadOnlyList<ReviewQueueItem>> QueueAsync(int? studyId = null, CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var q = db.ReactionStates.AsNoTracking()
+            .Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired && !s.Reaction.Study!.Retired
+                        && !s.SaddleCalculation!.Retired);
+        if (studyId is { } sid) q = q.Where(s => s.Reaction!.StudyId == sid);
+        var rows = await q.Select(s => new
+        {
+            CalcId = s.SaddleCalculationId!.Value,
+            CalcLabel = s.SaddleCalculation!.Label,
+            s.SaddleCalculation.LevelOfTheory,
+            StateId = s.Id,
+            StateLabel = s.Label,
+            s.ReactionId,
+            ReactionLabel = s.Reaction!.Label,
+            s.Reaction.StudyId,
+            StudyName = s.Reaction.Study!.Name,
+            s.SaddleCalculation.UploadedByUserId,
+            UploaderName = db.Users.Where(u => u.Id == s.SaddleCalculation.UploadedByUserId).Select(u => u.DisplayName).FirstOrDefault(),
+            s.SaddleCalculation.UploadedAt,
+            Latest = db.Reviews.Where(v => v.CalculationId == s.SaddleCalculationId).OrderByDescending(v => v.Id).Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefault(),
+            Earlier = db.Reviews.Any(v => v.Calculation!.SpeciesId == s.SaddleCalculation.SpeciesId && v.Calculation.Kind == CalculationKind.SaddlePoint),
+            Check = db.FrequencyChecks.Where(c => c.CalculationId == s.SaddleCalculationId).Select(c => new { c.Verdict, c.ReasonsJson, c.EvidenceJson }).FirstOrDefault(),
+        }).ToListAsync(ct);
+        return [.. rows.Where(r => r.Latest is null or ReviewOutcome.Reopened).OrderBy(r => r.CalcId).Select(r => new ReviewQueueItem(
+            r.CalcId, r.CalcLabel, r.LevelOfTheory, r.StateId, r.StateLabel, r.ReactionId, r.ReactionLabel, r.StudyId, r.StudyName,
+            r.UploadedByUserId, string.IsNullOrEmpty(r.UploaderName) ? r.UploadedByUserId : r.UploaderName, r.UploadedAt,
+            r.Check?.Verdict, r.Check is null ? [] : DerivedJson.Read<List<StoredReason>>(r.Check.ReasonsJson),
+            r.Check is null ? null : DerivedJson.Read<CheckEvidence>(r.Check.EvidenceJson), r.Earlier))];
+    }
+
+    /// <summary>Signs off a saddle-point calculation. Throws <see cref="ReviewerRequiredException"/> for a non-reviewer.</summary>
+    public Task<ReviewEntry> VerifyAsync(int calculationId, string reviewerUserId, string? comment, CancellationToken ct = default) =>
+        DecideAsync(calculationId, reviewerUserId, comment ?? "", ReviewOutcome.Verified, ct);
+
+    /// <summary>Returns a saddle-point calculation to its owner with a comment (required: the owner must learn what to fix).</summary>
+    public Task<ReviewEntry> ReturnAsync(int calculationId, string reviewerUserId, string comment, CancellationToken ct = default)
+    {
+        if (string.IsNullOrWhiteSpace(comment)) throw new ArgumentException("Say why the saddle point is returned, so its owner knows what to fix.", nameof(comment));
+        return DecideAsync(calculationId, reviewerUserId, comment, ReviewOutcome.Returned, ct);
+    }
+
+    /// <summary>Whether the user holds the Reviewer role (read from the store, not from a cookie).</summary>
+    public async Task<bool> IsReviewerAsync(string userId, CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        return await IsReviewerAsync(db, userId, ct);
+    }
+
+    private static Task<bool> IsReviewerAsync(LedgerDbContext db, string userId, CancellationToken ct) =>
+        db.UserRoles.AnyAsync(ur => ur.UserId == userId && db.Roles.Any(r => r.Id == ur.RoleId && r.Name == Roles.Reviewer), ct);
+
+    private async Task<ReviewEntry> DecideAsync(int calculationId, string reviewerUserId, string comment, ReviewOutcome outcome, CancellationToken ct)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(reviewerUserId);
+        return await LedgerRetry.RunAsync(async token =>
+        {
+            await using var db = await factory.CreateDbContextAsync(token);
+            await using var tx = await LedgerRetry.BeginWriteAsync(db, token);
+            if (!await IsReviewerAsync(db, reviewerUserId, token))
+                throw new ReviewerRequiredException("Only a reviewer can verify or return a saddle point; this account does not have the Reviewer role.");
+            var calc = await db.Calculations.FirstOrDefaultAsync(c => c.Id == calculationId, token)
+                ?? throw new ArgumentException($"Calculation {calculationId} does not exist.", nameof(calculationId));
+            if (calc.Kind != CalculationKind.SaddlePoint)
+                throw new ArgumentException($"Calculation '{calc.Label}' is a {calc.Kind}, not a saddle point; only saddle points are reviewed.", nameof(calculationId));
+            if (calc.Retired) throw new ArgumentException($"Calculation '{calc.Label}' is retired; restore it before reviewing it.", nameof(calculationId));
+            var previous = await db.Reviews.Where(v => v.CalculationId == calculationId).OrderByDescending(v => v.Id).Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefaultAsync(token);
+            var review = new Review { CalculationId = calculationId, Outcome = outcome, Comment = comment.Trim(), ReviewerUserId = reviewerUserId, At = time.GetUtcNow() };
+            db.Reviews.Add(review);
+            audit.Record(db, reviewerUserId, outcome == ReviewOutcome.Verified ? "review.verified" : "review.returned", nameof(Calculation), calculationId,
+                $"Saddle point '{calc.Label}' {(outcome == ReviewOutcome.Verified ? "verified" : "returned")}" + (comment.Length > 0 ? $": {comment.Trim()}" : "."),
+                before: ReviewStatusText.Of(ReviewStatusText.FromLatest(previous)), after: ReviewStatusText.Of(ReviewStatusText.FromLatest(outcome)));
+            await db.SaveChangesAsync(token);
+            await tx.CommitAsync(token);
+            var name = await db.Users.Where(u => u.Id == reviewerUserId).Select(u => u.DisplayName).FirstOrDefaultAsync(token);
+            return new ReviewEntry(review.Id, calculationId, calc.Label, outcome, review.Comment, reviewerUserId, string.IsNullOrEmpty(name) ? reviewerUserId : name, review.At);
+        }, ct);
+    }
+
+    /// <summary>Every review of every saddle-point calculation of the state's species (newest first), so replaced ones stay visible.</summary>
+    public async Task<IReadOnlyList<ReviewEntry>> HistoryAsync(int stateId, CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        return await HistoryAsync(db, [stateId], ct) is var all && all.TryGetValue(stateId, out var list) ? list : [];
+    }
+
+    internal static async Task<Dictionary<int, List<ReviewEntry>>> HistoryAsync(LedgerDbContext db, IReadOnlyCollection<int> stateIds, CancellationToken ct)
+    {
+        var species = await db.ReactionStates.AsNoTracking().Where(s => stateIds.Contains(s.Id) && s.SaddleCalculationId != null)
+            .Select(s => new { s.Id, s.SaddleCalculation!.SpeciesId }).ToListAsync(ct);
+        var speciesIds = species.Select(s => s.SpeciesId).Distinct().ToList();
+        var reviews = await db.Reviews.AsNoTracking().Where(v => speciesIds.Contains(v.Calculation!.SpeciesId))
+            .OrderByDescending(v => v.Id)
+            .Select(v => new
+            {
+                v.Calculation!.SpeciesId,
+                Entry = new ReviewEntry(v.Id, v.CalculationId, v.Calculation.Label, v.Outcome, v.Comment, v.ReviewerUserId,
+                    db.Users.Where(u => u.Id == v.ReviewerUserId).Select(u => u.DisplayName).FirstOrDefault() ?? v.ReviewerUserId, v.At),
+            }).ToListAsync(ct);
+        return species.ToDictionary(s => s.Id, s => reviews.Where(r => r.SpeciesId == s.SpeciesId).Select(r => r.Entry).ToList());
+    }
+}
