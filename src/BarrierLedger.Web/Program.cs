@@ -1,4 +1,5 @@
 using BarrierLedger.Ledger;
+using BarrierLedger.Web.Api;
 using BarrierLedger.Web.Components;
 using BarrierLedger.Web.Components.Account;
 using BarrierLedger.Web.Hosting;
@@ -15,6 +16,7 @@ builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddLedger(builder.Configuration);
 builder.Services.AddBarrierLedgerAuth();
 builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
+builder.Services.AddBarrierLedgerApi(builder.Configuration);
 
 var app = builder.Build();
 
@@ -27,6 +29,7 @@ if (!app.Environment.IsDevelopment())
 app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
 app.UseStaticFiles();
 app.UseRouting();
+app.UseRateLimiter();
 app.UseAuthentication();
 app.UseAuthorization();
 app.UseMustChangePassword();
@@ -35,6 +38,7 @@ app.UseAntiforgery();
 app.MapStaticAssets().AllowAnonymous();
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 app.MapAccountEndpoints();
+app.MapBarrierLedgerApi();
 app.MapGet("/health", () => Results.Ok(new { status = "ok" })).AllowAnonymous();
 
 app.Run();

@@ -106,4 +106,17 @@ public class SaddleCheckTests
         Assert.NotNull(r.Scan);
         Assert.Equal(1.40, r.Scan!.SaddleCoordinate, 9);
     }
+
+    [Fact]
+    public void WavenumbersWithoutDisplacements_CountsStillCheck_CharacterNeedsAttention()
+    {
+        var m = TestSystems.HydrogenTransfer();
+        NormalMode[] modes = [new(-1450, []), new(300, []), new(980, [])];
+        var r = SaddleCheck.Run(new(m, modes, TransferBonds));
+        Assert.Equal(Verdict.NeedsAttention, r.Verdict);
+        Assert.Contains(r.Reasons, x => x.Code == SaddleCheckCodes.ModeCharacterUnknown);
+        Assert.Equal(ModeClass.Unknown, r.SignificantCharacter!.Class);
+        NormalMode[] two = [new(-1450, []), new(-400, []), new(980, [])];
+        Assert.Equal(Verdict.Failed, SaddleCheck.Run(new(m, two, TransferBonds)).Verdict);
+    }
 }
