@@ -119,4 +119,20 @@ public class SaddleCheckTests
         NormalMode[] two = [new(-1450, []), new(-400, []), new(980, [])];
         Assert.Equal(Verdict.Failed, SaddleCheck.Run(new(m, two, TransferBonds)).Verdict);
     }
+
+    [Theory]
+    // A significant mode mixing the methyl turn with the H8 transfer: with a small transfer part the reaction stretches fall
+    // below a quarter of the leading torsion's share and the check fails; with an equal part they lead and it does not.
+    [InlineData(0.15, Verdict.Failed)]
+    [InlineData(1.0, Verdict.Passed)]
+    public void ReactionBondMustBeAmongTheLeadingComponents_RelativeToTheLargest(double transferWeight, Verdict expected)
+    {
+        var m = TestSystems.HydrogenTransfer();
+        var rot = TestSystems.MethylRotation(m);
+        var transfer = TestSystems.TransferDisplacement(m);
+        var mixed = TestSystems.Normalised(rot.Zip(transfer, (a, b) => a + transferWeight * b));
+        var r = SaddleCheck.Run(new(m, [new NormalMode(-600, mixed), new NormalMode(900, transfer)], TransferBonds));
+        Assert.True(r.Verdict == expected, r.Report());
+        Assert.Equal(expected == Verdict.Failed, r.Reasons.Any(x => x.Code == SaddleCheckCodes.ModeMissesReactionBond));
+    }
 }
