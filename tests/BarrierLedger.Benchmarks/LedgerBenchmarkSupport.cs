@@ -1,4 +1,5 @@
 using System.Globalization;
+using BenchmarkDotNet.Jobs;
 using System.Text;
 using BarrierLedger.Ledger;
 using BarrierLedger.Ledger.Storage;
@@ -51,5 +52,21 @@ internal sealed class LedgerBenchHost : IDisposable
             }
         }
         return sb.ToString();
+    }
+}
+
+/// <summary>
+/// In-process runs (no generated project to build: on a shared, loaded machine that build times out), one launch, a few
+/// warm-up and measured iterations, one invocation each (every invocation writes to the store).
+/// </summary>
+internal sealed class LedgerBenchConfig : BenchmarkDotNet.Configs.ManualConfig
+{
+    public LedgerBenchConfig()
+    {
+        AddJob(BenchmarkDotNet.Jobs.Job.Default
+            .WithToolchain(BenchmarkDotNet.Toolchains.InProcess.Emit.InProcessEmitToolchain.Instance)
+            .WithStrategy(BenchmarkDotNet.Engines.RunStrategy.Monitoring)
+            .WithLaunchCount(1).WithWarmupCount(2).WithIterationCount(8));
+        AddDiagnoser(BenchmarkDotNet.Diagnosers.MemoryDiagnoser.Default);
     }
 }

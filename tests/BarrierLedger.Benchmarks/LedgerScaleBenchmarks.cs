@@ -6,7 +6,6 @@ using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Uploads;
 using BenchmarkDotNet.Attributes;
-using BenchmarkDotNet.Engines;
 using Microsoft.EntityFrameworkCore;
 
 namespace BarrierLedger.Benchmarks;
@@ -16,8 +15,7 @@ namespace BarrierLedger.Benchmarks;
 /// with a geometry and frequencies, invented). Goals of issue 6: recompute every derived value after an energy-model change
 /// ≤ 2 s; the ledger query for the study ≤ 50 ms.
 /// </summary>
-[SimpleJob(RunStrategy.Monitoring, launchCount: 1, warmupCount: 2, iterationCount: 8)]
-[MemoryDiagnoser]
+[Config(typeof(LedgerBenchConfig))]
 public class LedgerScaleBenchmarks
 {
     private const int Reactions = 2000;

@@ -5,7 +5,6 @@ using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Uploads;
 using BenchmarkDotNet.Attributes;
-using BenchmarkDotNet.Engines;
 using Microsoft.Data.Sqlite;
 
 namespace BarrierLedger.Benchmarks;
@@ -15,8 +14,7 @@ namespace BarrierLedger.Benchmarks;
 /// the same rows inserted by raw Microsoft.Data.Sqlite prepared statements in one transaction (file, upload, scan, 1,000 points
 /// with their geometry blobs). Each invocation writes into a fresh migrated database file.
 /// </summary>
-[SimpleJob(RunStrategy.Monitoring, launchCount: 1, warmupCount: 2, iterationCount: 10)]
-[MemoryDiagnoser]
+[Config(typeof(LedgerBenchConfig))]
 public class LedgerUploadBenchmarks
 {
     private const int Frames = 1000;
