@@ -57,6 +57,9 @@ public static class Program
         root.Subcommands.Add(ScanCommand.Create(context));
         root.Subcommands.Add(ValidateCommand.Create(context));
         root.Subcommands.Add(DemoCommand.Create(context));
+        root.Subcommands.Add(ExportCommand.Create(context));
+        root.Subcommands.Add(BackupCommand.Create(context));
+        root.Subcommands.Add(RestoreCommand.Create(context));
         return root;
     }
 

@@ -1,11 +1,12 @@
 using BarrierLedger.Ledger;
+using BarrierLedger.Web.Api;
 using BarrierLedger.Web.Components;
 using BarrierLedger.Web.Components.Account;
 using BarrierLedger.Web.Hosting;
 
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions
 {
-    Args = args,
+    Args = args.Where(a => a != "--no-demo").ToArray(),
     WebRootPath = WebRootLocator.Find(),
 });
 builder.WebHost.UseBarrierLedgerDefaultAddress(builder.Configuration);
@@ -14,6 +15,8 @@ builder.WebHost.UseStaticWebAssets();
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddLedger(builder.Configuration);
 builder.Services.AddBarrierLedgerAuth();
+builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
+builder.Services.AddBarrierLedgerApi(builder.Configuration);
 
 var app = builder.Build();
 
@@ -26,6 +29,7 @@ if (!app.Environment.IsDevelopment())
 app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
 app.UseStaticFiles();
 app.UseRouting();
+app.UseRateLimiter();
 app.UseAuthentication();
 app.UseAuthorization();
 app.UseMustChangePassword();
@@ -34,6 +38,7 @@ app.UseAntiforgery();
 app.MapStaticAssets().AllowAnonymous();
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 app.MapAccountEndpoints();
+app.MapBarrierLedgerApi();
 app.MapGet("/health", () => Results.Ok(new { status = "ok" })).AllowAnonymous();
 
 app.Run();

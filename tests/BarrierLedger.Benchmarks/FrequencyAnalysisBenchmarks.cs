@@ -12,7 +12,7 @@ namespace BarrierLedger.Benchmarks;
 /// Run: dotnet run -c Release --project tests/BarrierLedger.Benchmarks -- --filter '*FrequencyAnalysis*'
 /// </summary>
 [SimpleJob(launchCount: 1, warmupCount: 2, iterationCount: 5)]
-[MemoryDiagnoser]
+[MemoryDiagnoser, MinColumn, MedianColumn]
 public class FrequencyAnalysisBenchmarks
 {
     private Molecule _molecule = null!;

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Vibrations;
 
@@ -36,27 +37,28 @@ internal static class FreqCommand
                 return ExitCodes.Unreadable;
             }
             var isSaddle = analysis.ImaginaryModes.Length > 0 || data.Kind == Core.Chemistry.CalculationKind.SaddlePoint;
-            if (pr.GetValue(json)) ctx.WriteJson(ToJson(data, analysis, isSaddle));
+            var check = isSaddle ? SaddleCheck.Run(new SaddleCheckInput(analysis.Molecule, analysis.Modes, data.ReactionBonds)) : null;
+            if (pr.GetValue(json)) ctx.WriteJson(ToJson(data, analysis, isSaddle, check));
             else WriteTable(ctx.Out, data, analysis);
-            return WriteSaddleCheck(ctx, data, analysis, isSaddle, pr.GetValue(json));
+            return WriteSaddleCheck(ctx, check, pr.GetValue(json));
         });
         return command;
     }
 
     /// <summary>
-    /// Extension point for the saddle-point verdict (SaddleCheck): prints it and returns the exit code
-    /// (<see cref="ExitCodes.ChecksFailed"/> when the check fails). Until it is wired in, reports the imaginary count only.
+    /// Prints the saddle-point verdict (<see cref="SaddleCheck"/>) with its reasons and returns the exit code
+    /// (<see cref="ExitCodes.ChecksFailed"/> when the check fails). Nothing for a structure that is neither declared a saddle point nor has an imaginary mode.
     /// </summary>
-    private static int WriteSaddleCheck(CliContext ctx, CalculationData data, VibrationalAnalysis analysis, bool isSaddle, bool json)
+    private static int WriteSaddleCheck(CliContext ctx, SaddleCheckResult? check, bool json)
     {
-        _ = data;
-        if (!json && isSaddle)
-            ctx.Out.WriteLine($"{analysis.ImaginaryModes.Length} imaginary mode(s); the saddle-point verdict is not computed by this command yet.");
-        return ExitCodes.Ok;
+        if (check is null) return ExitCodes.Ok;
+        if (!json) VerdictOutput.Write(ctx.Out, "Saddle-point check", check.Verdict, check.Reasons);
+        return VerdictOutput.ExitCode(check.Verdict);
     }
 
-    internal static object ToJson(CalculationData data, VibrationalAnalysis a, bool isSaddle) => new
+    internal static object ToJson(CalculationData data, VibrationalAnalysis a, bool isSaddle, SaddleCheckResult? check = null) => new
     {
+        saddle_check = check is null ? null : VerdictOutput.Json(check.Verdict, check.Reasons),
         file = data.Source,
         calculation = data.Label,
         formula = StructureChecks.FormulaOf(a.Molecule),

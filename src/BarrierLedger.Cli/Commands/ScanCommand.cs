@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Units;
@@ -65,29 +66,30 @@ internal static class ScanCommand
                 ctx.Err.WriteLine($"barrierledger: {label}: the scan cannot be analysed: {ex.Message}");
                 return ExitCodes.Unreadable;
             }
-            if (pr.GetValue(json)) ctx.WriteJson(ToJson(label, profile));
+            var check = ScanCheck.Run(profile);
+            if (pr.GetValue(json)) ctx.WriteJson(ToJson(label, profile, check));
             else WriteTable(ctx.Out, label, profile);
-            return WriteScanVerdict(ctx, profile, pr.GetValue(json));
+            return WriteScanVerdict(ctx, check, pr.GetValue(json));
         });
         return command;
     }
 
-    /// <summary>Extension point for a scan verdict; for now: checks failed (exit 1) when a jump is flagged.</summary>
-    private static int WriteScanVerdict(CliContext ctx, ScanProfile profile, bool json)
+    /// <summary>Prints the scan verdict (<see cref="ScanCheck"/>) with its reasons; exit 1 only when the check fails.</summary>
+    private static int WriteScanVerdict(CliContext ctx, ScanCheckResult check, bool json)
     {
-        var jumps = profile.Flags.Count(f => f.Code == ScanFlagCodes.Jump);
-        if (!json && jumps > 0) ctx.Out.WriteLine($"{jumps} point(s) flagged as jumps: the profile is not continuous there.");
-        return jumps > 0 ? ExitCodes.ChecksFailed : ExitCodes.Ok;
+        if (!json) VerdictOutput.Write(ctx.Out, "Scan check", check.Verdict, check.Reasons);
+        return VerdictOutput.ExitCode(check.Verdict);
     }
 
     private static double Reference(ScanProfile p) =>
         p.Points.Where(x => x.Converged).Select(x => x.EnergyHartree).DefaultIfEmpty(p.Points[0].EnergyHartree).Min();
 
-    private static object ToJson(string label, ScanProfile p)
+    private static object ToJson(string label, ScanProfile p, ScanCheckResult check)
     {
         var e0 = Reference(p);
         return new
         {
+            scan_check = VerdictOutput.Json(check.Verdict, check.Reasons),
             scan = label,
             coordinate_kind = p.Coordinate?.Kind.ToString().ToLowerInvariant(),
             coordinate_atoms = p.Coordinate?.Atoms.Select(a => a + 1),

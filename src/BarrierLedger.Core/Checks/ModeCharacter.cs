@@ -16,6 +16,8 @@ public enum ModeClass
     Bend,
     /// <summary>Near-zero numerical noise: a tiny wavenumber, or a displacement that is almost only overall translation and rotation.</summary>
     NumericalNoise,
+    /// <summary>Not known: the mode came as a wavenumber without displacements.</summary>
+    Unknown,
 }
 
 /// <summary>
@@ -87,6 +89,13 @@ public sealed record ModeCharacterOptions(
 public static class ModeCharacter
 {
     private const double Step = 1e-5;
+
+    /// <summary>The character of a mode given without displacements: class <see cref="ModeClass.Unknown"/>, no components.</summary>
+    public static ModeCharacterResult Unknown(NormalMode mode)
+    {
+        ArgumentNullException.ThrowIfNull(mode);
+        return new ModeCharacterResult(mode.FrequencyCm1, [], ModeClass.Unknown, false, double.NaN, "character unknown (no displacements given)");
+    }
 
     /// <summary>Describes <paramref name="mode"/> of <paramref name="molecule"/>; <paramref name="reactionBonds"/> are 0-based atom pairs.</summary>
     public static ModeCharacterResult Describe(Molecule molecule, NormalMode mode, IReadOnlyList<(int A, int B)> reactionBonds, ModeCharacterOptions? options = null)

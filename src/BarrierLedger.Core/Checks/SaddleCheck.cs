@@ -20,6 +20,7 @@ public static class SaddleCheckCodes
     public const string NearScanMaximum = "saddle.near-scan-maximum";
     public const string ScanWithoutMaximum = "saddle.scan-without-maximum";
     public const string ScanCoordinateUnknown = "saddle.scan-coordinate-unknown";
+    public const string ModeCharacterUnknown = "saddle.mode-character-unknown";
 }
 
 /// <summary>
@@ -55,20 +56,24 @@ public sealed record SaddleCheckInput(
 /// saddle point needs exactly one significant one, is common practice, no source.
 /// </param>
 /// <param name="LeadingComponentCount">How many of the mode's largest components count as leading.</param>
-/// <param name="LeadingMinimumShare">A leading component must also carry at least this share of the motion.</param>
+/// <param name="LeadingMinimumRelativeShare">
+/// A leading component must also carry at least this fraction of the largest component's share. Relative, not absolute,
+/// because shares are normalised over every internal coordinate: in a large molecule the many small bends dilute every share,
+/// but not the ratio to the largest. Default 0.25: common practice, no source.
+/// </param>
 /// <param name="ScanStepTolerance">The saddle geometry's scanned coordinate may lie this many typical scan steps from the scan maximum.</param>
 /// <param name="ModeCharacter">Settings for describing modes.</param>
 public sealed record SaddleCheckOptions(
     double SignificantImaginaryCm1 = 100.0,
     int LeadingComponentCount = 3,
-    double LeadingMinimumShare = 0.10,
+    double LeadingMinimumRelativeShare = 0.25,
     double ScanStepTolerance = 1.0,
     ModeCharacterOptions? ModeCharacter = null)
 {
     public static SaddleCheckOptions Default { get; } = new();
 }
 
-/// <summary>An imaginary mode below the significance threshold, with what it does.</summary>
+/// <summary>An imaginary mode with what it does (class <see cref="ModeClass.Unknown"/> when the mode came without displacements).</summary>
 public sealed record SoftMode(NormalMode Mode, ModeCharacterResult Character);
 
 /// <summary>The saddle geometry's scanned coordinate against the scan's maximum.</summary>
@@ -129,10 +134,14 @@ public static class SaddleCheck
         var thr = o.SignificantImaginaryCm1;
 
         var imaginary = input.Modes.Where(m => m.IsImaginary).OrderBy(m => m.FrequencyCm1).ToList();
-        var significant = imaginary.Where(m => Math.Abs(m.FrequencyCm1) >= thr)
-            .Select(m => new SoftMode(m, ModeCharacter.Describe(mol, m, bonds, o.ModeCharacter))).ToList();
-        var soft = imaginary.Where(m => Math.Abs(m.FrequencyCm1) < thr)
-            .Select(m => new SoftMode(m, ModeCharacter.Describe(mol, m, bonds, o.ModeCharacter))).ToList();
+        ModeCharacterResult Describe(NormalMode m) =>
+            m.DisplacementCartesian.IsDefaultOrEmpty ? ModeCharacter.Unknown(m) : ModeCharacter.Describe(mol, m, bonds, o.ModeCharacter);
+        var significant = imaginary.Where(m => Math.Abs(m.FrequencyCm1) >= thr).Select(m => new SoftMode(m, Describe(m))).ToList();
+        var soft = imaginary.Where(m => Math.Abs(m.FrequencyCm1) < thr).Select(m => new SoftMode(m, Describe(m))).ToList();
+        if (imaginary.Any(m => m.DisplacementCartesian.IsDefaultOrEmpty))
+            reasons.Add(new(SaddleCheckCodes.ModeCharacterUnknown, CheckSeverity.Attention,
+                "Only wavenumbers were given, without the modes' displacements, so what the imaginary modes move cannot be checked. " +
+                "Provide the normal modes or the Hessian."));
 
         if (imaginary.Count == 0)
         {
@@ -149,7 +158,7 @@ public static class SaddleCheck
         else if (significant.Count > 1)
         {
             reasons.Add(new(SaddleCheckCodes.SeveralSignificantImaginaryModes, CheckSeverity.Failure,
-                $"There are {significant.Count} significant imaginary frequencies ({string.Join("; ", significant.Select(s => $"{Wave(s.Mode)}: {s.Character.Summary}"))}). " +
+                $"There are {significant.Count} significant imaginary frequencies ({string.Join("; ", significant.Select(s => $"{Wave(s.Mode)}: {Summary(s)}"))}). " +
                 "A saddle point for one reaction step has exactly one; follow the unwanted mode down and optimise again."));
         }
 
@@ -158,16 +167,17 @@ public static class SaddleCheck
         {
             character = significant[0].Character;
             reasons.Add(new(SaddleCheckCodes.ReactionMode, CheckSeverity.Info,
-                $"One significant imaginary frequency, {Wave(significant[0].Mode)}: {character.Summary}."));
+                $"One significant imaginary frequency, {Wave(significant[0].Mode)}: {Summary(significant[0])}."));
             if (bonds.Count == 0)
             {
                 reasons.Add(new(SaddleCheckCodes.NoReactionBondDeclared, CheckSeverity.Attention,
                     "No reaction bond is declared, so nobody has checked that the imaginary mode is the intended reaction. " +
                     "Declare the atom pairs that form or break (e.g. C3–C11) on the reaction."));
             }
-            else
+            else if (character.Class != ModeClass.Unknown)
             {
-                var leading = character.Leading(o.LeadingComponentCount).Where(c => c.Share >= o.LeadingMinimumShare).ToList();
+                var top = character.Components.IsEmpty ? 0 : character.Components[0].Share;
+                var leading = character.Leading(o.LeadingComponentCount).Where(c => c.Share >= o.LeadingMinimumRelativeShare * top).ToList();
                 if (!leading.Any(c => c.IsReactionBond))
                 {
                     var declared = string.Join(", ", bonds.Select(b => new Bond(b.A, b.B).Label(mol)));
@@ -182,10 +192,10 @@ public static class SaddleCheck
         foreach (var s in soft.Where(_ => significant.Count > 0))
         {
             reasons.Add(new(SaddleCheckCodes.SoftImaginaryMode, CheckSeverity.Attention,
-                $"A small imaginary frequency, {Wave(s.Mode)} (below the {Num(thr)}i cm⁻¹ threshold): {s.Character.Summary}. " +
-                (s.Character.RotorLike
+                $"A small imaginary frequency, {Wave(s.Mode)} (below the {Num(thr)}i cm⁻¹ threshold): {Summary(s)}. " +
+                (s.Character is { RotorLike: true }
                     ? "A terminal group turning like this is common and often acceptable after inspection; a tighter optimisation or a finer integration grid usually removes it."
-                    : s.Character.Class == ModeClass.NumericalNoise
+                    : s.Character is { Class: ModeClass.NumericalNoise }
                         ? "This looks like numerical noise from loose convergence; tighten the optimisation and recompute the frequencies."
                         : "Inspect it: it may be loose convergence, or a second reaction path; displacing along it and reoptimising tells which.")));
         }
@@ -232,6 +242,8 @@ public static class SaddleCheck
         return new SaddleCheckResult(CheckReason.VerdictOf(ordered), ordered,
             significant.Count == 1 ? significant[0].Mode : null, character, significant, soft, comparison);
     }
+
+    private static string Summary(SoftMode s) => s.Character.Summary;
 
     private static string Wave(NormalMode m) =>
         m.IsImaginary ? $"{Num(Math.Abs(m.FrequencyCm1))}i cm⁻¹" : $"{Num(m.FrequencyCm1)} cm⁻¹";

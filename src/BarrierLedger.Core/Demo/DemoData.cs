@@ -19,8 +19,12 @@ public static class DemoData
     /// <summary>Largest reaction count <see cref="Scale"/> accepts.</summary>
     public const int MaxScaleReactions = 100_000;
 
-    /// <summary>The showcase study as a bundle: <c>bundle.json</c> and the files it names.</summary>
-    public static IReadOnlyList<DemoFile> Showcase() => DemoWriter.Write(DemoScenario.Build());
+    /// <summary>The showcase study as a bundle: <c>bundle.json</c>, the files it names, and a README.md that explains them.</summary>
+    public static IReadOnlyList<DemoFile> Showcase()
+    {
+        var study = DemoScenario.Build();
+        return [.. DemoWriter.Write(study), new DemoFile("README.md", DemoScenario.Readme(study))];
+    }
 
     /// <summary>
     /// A large ledger of <paramref name="reactions"/> reactions for benchmarks and load tests: studies of
@@ -46,8 +50,8 @@ public static class DemoData
             var study = ScaleStudy(showcase, s, first, count, variant);
             perStudy[s] = DemoWriter.Write(study, $"study-{s + 1:0000}/", sp =>
                 sp.Label.StartsWith("TS-", StringComparison.Ordinal)
-                    ? DemoWriter.QcSchema(sp, study.GeometryLevel, sp.ForceField is null)
-                    : shared.GetOrAdd(sp.Label, _ => DemoWriter.QcSchema(sp, study.GeometryLevel, sp.ForceField is null)));
+                    ? DemoWriter.QcSchema(sp, sp.GeometryLevel ?? study.GeometryLevel, sp.ForceField is null)
+                    : shared.GetOrAdd(sp.Label, _ => DemoWriter.QcSchema(sp, sp.GeometryLevel ?? study.GeometryLevel, sp.ForceField is null)));
         });
         return [.. perStudy.SelectMany(f => f)];
     }

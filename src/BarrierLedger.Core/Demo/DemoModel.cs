@@ -14,12 +14,13 @@ public sealed record DemoFile(string RelativePath, string Content);
 /// <param name="Label">Unique label in the study.</param>
 /// <param name="Slug">File-name stem (lower case, no spaces).</param>
 /// <param name="Geometry">Structure in Å with charge and multiplicity.</param>
-/// <param name="Kind">Minimum, saddle point, or single point for a lone atom (nothing to optimise, no Hessian).</param>
+/// <param name="Kind">Minimum or saddle point (a lone atom is a minimum without a Hessian).</param>
 /// <param name="ForceField">What the force field should produce; null for a lone atom.</param>
 /// <param name="OptEnergyHartree">Electronic energy at the geometry level.</param>
 /// <param name="SinglePointEnergyHartree">Electronic energy of the single point, or null for none.</param>
 /// <param name="SinglePointLevel">Level of the single point.</param>
 /// <param name="Note">Free text kept with the calculations.</param>
+/// <param name="GeometryLevel">Level of the optimisation and Hessian when it is not the study's.</param>
 public sealed record DemoSpecies(
     string Label,
     string Slug,
@@ -29,7 +30,8 @@ public sealed record DemoSpecies(
     double OptEnergyHartree,
     double? SinglePointEnergyHartree,
     string SinglePointLevel,
-    string Note = "");
+    string Note = "",
+    string? GeometryLevel = null);
 
 /// <summary>One state of a demo pathway: a sum of species; saddle-point states name their species and reaction bonds (1-based).</summary>
 public sealed record DemoState(string Label, bool IsSaddlePoint, IReadOnlyList<(string Species, int Coefficient)> Terms, IReadOnlyList<(int First, int Second)> ReactionCoordinate)

@@ -19,15 +19,17 @@ namespace BarrierLedger.Core.Demo;
 /// <item>HF: HF elimination from fluoroethane, where the stored "saddle point" is the eclipsed rotamer: its imaginary mode is a
 /// methyl turn that moves none of the declared bonds. Fails.</item>
 /// <item>CB: conrotatory ring opening of cyclobutene; its relaxed scan has a jump where a CH2 group flips.</item>
-/// <item>KE: 1,3-hydrogen shift from acetaldehyde to vinyl alcohol; the vinyl alcohol single point lacks the solvent model, so
-/// the reaction energy mixes levels of theory.</item>
+/// <item>KE: 1,3-hydrogen shift from acetaldehyde to vinyl alcohol; vinyl alcohol comes from another protocol (def2-TZVP
+/// geometry), so the reaction energy mixes levels of theory whichever energies the energy model takes.</item>
 /// </list>
 /// </summary>
 public static class DemoScenario
 {
     public const string GeometryLevel = "wB97X-D/def2-SVP";
     public const string SinglePointLevel = "revDSD-PBEP86-D4/def2-QZVPP (PCM, acetonitrile)//wB97X-D/def2-SVP";
-    public const string SinglePointLevelNoSolvent = "revDSD-PBEP86-D4/def2-QZVPP//wB97X-D/def2-SVP";
+    /// <summary>The other protocol one state of KE was computed with (a larger basis for the geometry).</summary>
+    public const string OtherGeometryLevel = "wB97X-D/def2-TZVP";
+    public const string OtherSinglePointLevel = "revDSD-PBEP86-D4/def2-QZVPP (PCM, acetonitrile)//wB97X-D/def2-TZVP";
 
     public const string StudyName = "Demo study: small-molecule barriers (invented data)";
 
@@ -39,7 +41,7 @@ public static class DemoScenario
         "from single points at revDSD-PBEP86-D4/def2-QZVPP with a continuum model of acetonitrile. " +
         "The six reactions are chosen to show every check: DA passes and can be verified; MT needs attention (two soft methyl " +
         "rotations); IX is a two-step pathway with a catalyst; HF fails (the stored saddle point is a rotamer); CB has a relaxed " +
-        "scan with a jump; KE mixes levels of theory in its reaction energy.";
+        "scan with a jump; KE mixes levels of theory (vinyl alcohol was computed with def2-TZVP geometries).";
 
     private static double Kcal(double x) => Energy.FromKcalPerMol(x).Hartree;
 
@@ -70,15 +72,16 @@ public static class DemoScenario
     {
         var species = new List<DemoSpecies>();
         DemoSpecies Add(string label, string slug, Molecule m, CalculationKind kind, ForceFieldSpec? ff, double sp, double solvKcal,
-            string spLevel = SinglePointLevel, string note = "")
+            string spLevel = SinglePointLevel, string note = "", string? geometryLevel = null)
         {
-            var s = new DemoSpecies(label, slug, m, kind, ff, OptEnergy(m, R8(sp), solvKcal), R8(sp), spLevel, note);
+            var s = new DemoSpecies(label, slug, m, kind, ff, OptEnergy(m, R8(sp), solvKcal), R8(sp), spLevel, note, geometryLevel);
             species.Add(s);
             return s;
         }
         var min = CalculationKind.Minimum;
         var ts = CalculationKind.SaddlePoint;
-        var atom = CalculationKind.SinglePoint;
+        // A lone atom is trivially at its minimum; it has no Hessian (energy driver only).
+        var atom = CalculationKind.Minimum;
         var plain = ForceFieldSpec.Minimum;
 
         // Invented single-point energies (hartree) of the reference minima; the others follow from invented reaction energies.
@@ -134,13 +137,15 @@ public static class DemoScenario
             new ForceFieldSpec(Reaction: [new ReactionCurvature([(2, 3, 1.0)], -1.3)]),
             cyclobutene + Kcal(33.9), 1.2);
 
-        // KE: acetaldehyde → vinyl alcohol; the product's single point was run without the solvent model.
+        // KE: acetaldehyde → vinyl alcohol; the product was computed with another protocol (def2-TZVP geometry, so another
+        // optimisation energy and another single-point level). Its invented opt energy is 0.21 Eh (the larger basis) lower.
         Add("acetaldehyde", "acetaldehyde", DemoStructures.Acetaldehyde, min, plain, acetaldehyde, 3.4);
         Add("TS-KE", "ts-ke", DemoStructures.HydrogenShiftSaddle, ts,
             new ForceFieldSpec(Reaction: [new ReactionCurvature([(2, 3, 1.0), (1, 3, -1.0)], -1.6)]),
             acetaldehyde + Kcal(67.2), 3.9);
-        Add("vinyl alcohol", "vinyl-alcohol", DemoStructures.VinylAlcohol, min, plain, acetaldehyde + Kcal(10.4) + Kcal(1.9), 0.8,
-            spLevel: SinglePointLevelNoSolvent, note: "Single point run without the solvent model by mistake.");
+        Add("vinyl alcohol", "vinyl-alcohol", DemoStructures.VinylAlcohol, min, plain, acetaldehyde + Kcal(10.4) + Kcal(0.7), 0.8 - 131.8,
+            spLevel: OtherSinglePointLevel, geometryLevel: OtherGeometryLevel,
+            note: "Taken over from an earlier project that optimised with def2-TZVP; not yet recomputed with this study's protocol.");
 
         var reactions = new List<DemoReaction>
         {
@@ -181,8 +186,8 @@ public static class DemoScenario
                 DemoState.Saddle("TS", "TS-CB", [], (3, 4)),
                 DemoState.Minimum("butadiene", "butadiene"),
             ]),
-            new("KE", "1,3-hydrogen shift from acetaldehyde to vinyl alcohol (uncatalysed, high barrier). The vinyl alcohol single " +
-                      "point lacks the solvent model, so the reaction energy mixes levels of theory.",
+            new("KE", "1,3-hydrogen shift from acetaldehyde to vinyl alcohol (uncatalysed, high barrier). Vinyl alcohol was computed " +
+                      "with another protocol (def2-TZVP geometry), so the reaction energy mixes levels of theory.",
             [
                 DemoState.Minimum("acetaldehyde", "acetaldehyde"),
                 DemoState.Saddle("TS", "TS-KE", [], (2, 4), (3, 4)),
@@ -197,6 +202,33 @@ public static class DemoScenario
             RingOpeningScan(byLabel["TS-CB"]),
         };
         return new DemoStudy(StudyName, StudyDescription, GeometryLevel, species, reactions, scans);
+    }
+
+    /// <summary>What each reaction is meant to show and the verdicts it is meant to get (tests check them independently).</summary>
+    public static IReadOnlyList<(string Reaction, string Shows, string FrequencyCheck, string Consistency)> Intent { get; } =
+    [
+        ("DA", "clean saddle point with a clean relaxed scan (C1–C6, 3.2 → 1.9 Å)", "Passed: one imaginary mode on C1–C6 and C4–C5, at the scan maximum", "Passed"),
+        ("MT", "soft imaginary modes from methyl rotors", "Needs attention: reaction mode on N1–C2/C2–Cl3 plus two small imaginary N-methyl turns", "Passed"),
+        ("IX", "two-step pathway with a catalyst (iodide) in several states", "Passed for TS1 and TS2", "Passed"),
+        ("HF", "a saddle point that is not the reaction", "Failed: the significant mode turns the methyl group; C1–F3, C2–H6, F3–H6 do not move", "Passed"),
+        ("CB", "relaxed scan with a jump (C3–C4, between 2.6 and 2.7 Å a CH2 group flips)", "Passed (the scan is flagged, not the saddle point)", "Passed"),
+        ("KE", "barrier mixing levels of theory (one state at another level)", "Passed", "Failed: vinyl alcohol was optimised and single-pointed on def2-TZVP geometries"),
+    ];
+
+    /// <summary>The README.md written beside the bundle.</summary>
+    public static string Readme(DemoStudy study)
+    {
+        var sb = new System.Text.StringBuilder();
+        sb.Append("# Demo study (invented data)\n\n");
+        sb.Append(study.Description).Append("\n\n");
+        sb.Append("Generated by `barrierledger demo generate --out seed-data` from `src/BarrierLedger.Core/Demo/`; do not edit by hand ");
+        sb.Append("(a test compares this folder with the generator output byte for byte).\n\n");
+        sb.Append("| reaction | shows | frequency check | consistency |\n|---|---|---|---|\n");
+        foreach (var (r, shows, freq, cons) in Intent) sb.Append($"| {r} | {shows} | {freq} | {cons} |\n");
+        sb.Append("\nFiles: `bundle.json` (the manifest, see docs/formats.md), `structures/*.json` (QCSchema AtomicResult, hessian driver; ");
+        sb.Append("energy driver for lone ions), `structures/*.sp.xyz` (single points, extended XYZ with energy=), `scans/*.xyz` ");
+        sb.Append("(one frame per scan point, energy= on each).\n");
+        return sb.ToString();
     }
 
     /// <summary>

@@ -58,12 +58,12 @@ public static class DemoWriter
                     CalculationKind.SaddlePoint => "saddle_point",
                     _ => "single_point",
                 },
-                ["level_of_theory"] = study.GeometryLevel,
+                ["level_of_theory"] = s.GeometryLevel ?? study.GeometryLevel,
                 ["file"] = structurePath,
             };
             if (s.Note.Length > 0) calc["note"] = s.Note;
             calculations.Add(calc);
-            files.Add(new DemoFile(prefix + structurePath, structureFiles?.Invoke(s) ?? QcSchema(s, study.GeometryLevel, isAtom)));
+            files.Add(new DemoFile(prefix + structurePath, structureFiles?.Invoke(s) ?? QcSchema(s, s.GeometryLevel ?? study.GeometryLevel, isAtom)));
             if (s.SinglePointEnergyHartree is { } sp)
             {
                 var spPath = $"structures/{s.Slug}.sp.xyz";

@@ -115,7 +115,9 @@ public static class SvgEnergyDiagram
             var py = Py(l.Y);
             lines.Add(new SceneLine(Px(l.X0), py, Px(l.X1), py, colour, DiagramStyle.LevelWidthPx, false, "level"));
             var label = text.LevelMarks.TryGetValue(l.Index, out var mark) && mark.Length > 0 ? $"{l.Label} [{mark}]" : l.Label;
-            texts.Add(new SceneText(Px(l.XCentre), py - 22, label, 12, TextAnchor.Middle, colour, Bold: true));
+            var labelLines = SplitLabel(label, (Px(1) - Px(0)) / (0.62 * 12));
+            for (var k = 0; k < labelLines.Count; k++)
+                texts.Add(new SceneText(Px(l.XCentre), py - 22 - 14 * (labelLines.Count - 1 - k), labelLines[k], 12, TextAnchor.Middle, colour, Bold: true));
             texts.Add(new SceneText(Px(l.XCentre), py - 8, l.ValueText, 12, TextAnchor.Middle, DiagramStyle.TextColour));
         }
 
@@ -193,6 +195,22 @@ public static class SvgEnergyDiagram
             line.Append(word);
         }
         if (line.Length > 0) yield return line.ToString();
+    }
+
+    /// <summary>Splits a long state label ("A + B + C") after its " + " signs so each line fits a slot; short labels stay whole.</summary>
+    internal static IReadOnlyList<string> SplitLabel(string label, double maxChars)
+    {
+        if (label.Length <= maxChars || !label.Contains(" + ")) return [label];
+        var parts = label.Split(" + ");
+        var lines = new List<string>();
+        var current = parts[0];
+        foreach (var p in parts.Skip(1))
+        {
+            if (current.Length + 3 + p.Length <= maxChars) current += " + " + p;
+            else { lines.Add(current + " +"); current = p; }
+        }
+        lines.Add(current);
+        return lines;
     }
 
     private static void AddLegendEntry(List<SceneLine> lines, List<SceneText> texts, double x, double y, string colour, string label)

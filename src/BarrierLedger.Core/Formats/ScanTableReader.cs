@@ -102,6 +102,11 @@ public static class ScanTableReader
                 issues.Error(lineNo, $"expected at least {needed} {delimiterName}-separated columns, found {fields.Count}: {TextInput.Quote(raw.Trim())}");
                 continue;
             }
+            if (delimiter != ',' && fields.FirstOrDefault(f => IsDecimalComma(f.Trim())) is { } dc)
+            {
+                issues.Error(lineNo, $"found {TextInput.Quote(dc.Trim())}, a number with a decimal comma; expected a decimal point (1.5, not 1,5)");
+                return null;
+            }
             var okRow = true;
             var x = Cell(fields[coordCol], lineNo, "coordinate", delimiter, issues, ref okRow);
             var y = Cell(fields[energyCol], lineNo, "energy", delimiter, issues, ref okRow);
@@ -148,6 +153,12 @@ public static class ScanTableReader
         }
         ok = false;
         return double.NaN;
+    }
+
+    private static bool IsDecimalComma(string t)
+    {
+        var c = t.IndexOf(',');
+        return c > 0 && c < t.Length - 1 && t.IndexOf(',', c + 1) < 0 && Numbers.TryParseDouble(t.Replace(',', '.'), out _);
     }
 
     /// <summary>The text inside the last (...) or [...] of a header, e.g. "kcal/mol" from "energy (kcal/mol)".</summary>

@@ -11,8 +11,21 @@ internal static class TextInput
         ArgumentNullException.ThrowIfNull(stream);
         try
         {
+            if (stream.CanSeek)
+            {
+                // Known length: check it before reading and read into an array of exactly that size.
+                var remaining = stream.Length - stream.Position;
+                if (remaining > maxBytes)
+                {
+                    issues.Error(null, $"file is larger than the limit of {FormatBytes(maxBytes)}; raise ReaderLimits.MaxBytes if it really is this large");
+                    return null;
+                }
+                var exact = new byte[remaining];
+                stream.ReadExactly(exact);
+                return exact;
+            }
             using var buffer = new MemoryStream();
-            var chunk = new byte[81920];
+            var chunk = new byte[16384];
             long total = 0;
             int n;
             while ((n = stream.Read(chunk, 0, chunk.Length)) > 0)

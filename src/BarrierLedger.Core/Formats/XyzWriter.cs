@@ -14,7 +14,8 @@ public static class XyzWriter
     {
         ArgumentNullException.ThrowIfNull(writer);
         ArgumentNullException.ThrowIfNull(molecule);
-        if (comment.Contains('\n') || comment.Contains('\r')) throw new ArgumentException("The comment must be one line.", nameof(comment));
+        if (comment.Contains('\n') || comment.Contains('\r') || comment.Contains('\0'))
+            throw new ArgumentException("The comment must be one line of text (no line breaks or NUL).", nameof(comment));
         writer.Write(molecule.AtomCount.ToString(CultureInfo.InvariantCulture));
         writer.Write('\n');
         writer.Write(energyHartree is { } e ? Numbers.Format(e) : comment);
@@ -42,7 +43,8 @@ public static class XyzWriter
         {
             if (k.Length == 0 || k.Any(c => char.IsWhiteSpace(c) || c is '=' or '"'))
                 throw new ArgumentException($"Key '{k}' cannot be written: keys must be non-empty without spaces, '=' or quotes.", nameof(extraKeys));
-            if (v.Contains('\n') || v.Contains('\r')) throw new ArgumentException($"Value of '{k}' must be one line.", nameof(extraKeys));
+            if (v.Contains('\n') || v.Contains('\r') || v.Contains('\0'))
+                throw new ArgumentException($"Value of '{k}' must be one line of text (no line breaks or NUL).", nameof(extraKeys));
             parts.Add($"{k}={KeyValueLine.FormatValue(v)}");
         }
         writer.Write(molecule.AtomCount.ToString(CultureInfo.InvariantCulture));

@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Collections.Immutable;
 using System.Numerics;
 using System.Runtime.InteropServices;
@@ -52,44 +53,58 @@ public static class FrequencyAnalysis
         var n = 3 * molecule.AtomCount;
         if (molecule.AtomCount == 0) throw new HessianException(HessianProblem.EmptyMolecule, "The molecule has no atoms.", nameof(molecule));
         var masses = ResolveMasses(molecule, options);
-        CheckSizeAndFiniteness(molecule, hessianHartreePerBohr2);
+        CheckSize(molecule, hessianHartreePerBohr2);
 
         var shape = ShapeOf(molecule, masses, options.LinearToleranceAmuAngstrom2);
         var invSqrtMass = new double[n];
         for (var i = 0; i < n; i++) invSqrtMass[i] = 1.0 / Math.Sqrt(masses[i / 3]);
 
-        var f = SymmetriseAndMassWeight(hessianHartreePerBohr2, n, invSqrtMass, out var worst, out var wi, out var wj);
-        if (worst > options.AsymmetryToleranceHartreePerBohr2)
+        // The working matrix comes from the shared pool: for large n a fresh 3N×3N array costs more in page faults and GC than the
+        // projection itself. Every element is overwritten before use, and nothing refers to it after the modes are copied out.
+        var f = ArrayPool<double>.Shared.Rent(n * n);
+        try
         {
-            var h = hessianHartreePerBohr2;
-            throw new HessianException(HessianProblem.Asymmetric,
-                $"Hessian is not symmetric: H[{wi + 1},{wj + 1}] = {h[wi * n + wj]:G6} but H[{wj + 1},{wi + 1}] = {h[wj * n + wi]:G6} " +
-                $"({Coordinate(molecule, wi)} / {Coordinate(molecule, wj)}), difference {worst:G3} hartree/bohr² exceeds the tolerance " +
-                $"{options.AsymmetryToleranceHartreePerBohr2:G3}.");
+            var scan = SymmetriseAndMassWeight(hessianHartreePerBohr2, n, invSqrtMass, f);
+            if (scan.NonFiniteIndex >= 0)
+            {
+                var i = scan.NonFiniteIndex;
+                throw new HessianException(HessianProblem.NonFinite,
+                    $"Hessian element at row {i / n + 1}, column {i % n + 1} ({Coordinate(molecule, i / n)}, {Coordinate(molecule, i % n)}) is {hessianHartreePerBohr2[i]}.");
+            }
+            if (scan.WorstAsymmetry > options.AsymmetryToleranceHartreePerBohr2)
+            {
+                var (h, wi, wj) = (hessianHartreePerBohr2, scan.WorstRow, scan.WorstColumn);
+                throw new HessianException(HessianProblem.Asymmetric,
+                    $"Hessian is not symmetric: H[{wi + 1},{wj + 1}] = {h[wi * n + wj]:G6} but H[{wj + 1},{wi + 1}] = {h[wj * n + wi]:G6} " +
+                    $"({Coordinate(molecule, wi)} / {Coordinate(molecule, wj)}), difference {scan.WorstAsymmetry:G3} hartree/bohr² exceeds the tolerance " +
+                    $"{options.AsymmetryToleranceHartreePerBohr2:G3}.");
+            }
+            // The ∞-norm bounds the spectrum; the shift must lie above it.
+            var shift = 2.0 * scan.NormInf + 1.0;
+
+            var d = RigidBodyBasis(molecule, masses, shape);
+            var k = d.Length / n;
+            ProjectAndShift(f, n, d, k, shift);
+
+            var eigenvalues = new double[n];
+            var solver = SymmetricEigensolver.SolveInPlace(f, n, eigenvalues, options.Solver);
+
+            // The k rigid-body eigenvalues sit at the shift, above every vibrational one (‖PFP‖₂ ≤ ‖F‖∞ < shift/2).
+            for (var r = n - k; r < n; r++)
+                if (Math.Abs(eigenvalues[r] - shift) > 1e-8 * shift)
+                    throw new InvalidOperationException(
+                        $"Projection of translations and rotations failed: eigenvalue {eigenvalues[r]:G6} where {shift:G6} was expected.");
+
+            var modes = ImmutableArray.CreateBuilder<NormalMode>(n - k);
+            var scratch = new double[n];
+            for (var r = 0; r < n - k; r++)
+                modes.Add(ModeFromEigenpair(eigenvalues[r], f.AsSpan(r * n, n), invSqrtMass, masses, scratch));
+            return new VibrationalAnalysis(molecule, shape, modes.MoveToImmutable(), k, solver) { MassesAmu = [.. masses] };
         }
-        // ∞-norm bounds the spectrum; the shift must lie above it.
-        var normInf = 0.0;
-        for (var i = 0; i < n; i++) normInf = Math.Max(normInf, SumAbs(f.AsSpan(i * n, n)));
-        var shift = 2.0 * normInf + 1.0;
-
-        var d = RigidBodyBasis(molecule, masses, shape);
-        var k = d.Length / n;
-        ProjectAndShift(f, n, d, k, shift);
-
-        var eigenvalues = new double[n];
-        var solver = SymmetricEigensolver.Solve(f, n, eigenvalues, options.Solver);
-
-        // The k rigid-body eigenvalues sit at the shift, above every vibrational one (‖PFP‖₂ ≤ ‖F‖∞ < shift/2).
-        for (var r = n - k; r < n; r++)
-            if (Math.Abs(eigenvalues[r] - shift) > 1e-8 * shift)
-                throw new InvalidOperationException(
-                    $"Projection of translations and rotations failed: eigenvalue {eigenvalues[r]:G6} where {shift:G6} was expected.");
-
-        var modes = ImmutableArray.CreateBuilder<NormalMode>(n - k);
-        var scratch = new double[n];
-        for (var r = 0; r < n - k; r++)
-            modes.Add(ModeFromEigenpair(eigenvalues[r], f.AsSpan(r * n, n), invSqrtMass, masses, scratch));
-        return new VibrationalAnalysis(molecule, shape, modes.MoveToImmutable(), k, solver) { MassesAmu = [.. masses] };
+        finally
+        {
+            ArrayPool<double>.Shared.Return(f);
+        }
     }
 
     /// <summary>
@@ -363,33 +378,30 @@ public static class FrequencyAnalysis
         return [.. options.MassesAmu];
     }
 
-    private static void CheckSizeAndFiniteness(Molecule molecule, double[] h)
+    private static void CheckSize(Molecule molecule, double[] h)
     {
         var n = 3 * molecule.AtomCount;
-        if (h.Length != n * n)
-        {
-            var side = Math.Sqrt(h.Length);
-            var hint = side == Math.Floor(side) ? $" (a {side}×{side} matrix, which fits {side / 3:0.##} atoms)" : "";
-            throw new HessianException(HessianProblem.SizeMismatch,
-                $"Hessian has {h.Length} elements{hint}, but {molecule.AtomCount} atoms need 3N×3N = {n}×{n} = {n * n}.");
-        }
-        for (var i = 0; i < h.Length; i++)
-            if (!double.IsFinite(h[i]))
-                throw new HessianException(HessianProblem.NonFinite,
-                    $"Hessian element at row {i / n + 1}, column {i % n + 1} ({Coordinate(molecule, i / n)}, {Coordinate(molecule, i % n)}) is {h[i]}.");
+        if (h.Length == n * n) return;
+        var side = Math.Sqrt(h.Length);
+        var hint = side == Math.Floor(side) ? $" (a {side}×{side} matrix, which fits {side / 3:0.##} atoms)" : "";
+        throw new HessianException(HessianProblem.SizeMismatch,
+            $"Hessian has {h.Length} elements{hint}, but {molecule.AtomCount} atoms need 3N×3N = {n}×{n} = {n * n}.");
     }
 
+    private readonly record struct HessianScan(double WorstAsymmetry, int WorstRow, int WorstColumn, int NonFiniteIndex, double NormInf);
+
     /// <summary>
-    /// F_ij = F_ji = ½(H_ij + H_ji)/√(m_i m_j), and the largest |H_ij − H_ji| with its position, in one pass over 32×32 tiles of the
-    /// upper triangle (reading H column-wise element by element would miss the cache on every access for large n).
+    /// F_ij = F_ji = ½(H_ij + H_ji)/√(m_i m_j) into <paramref name="f"/>, and in the same pass the largest |H_ij − H_ji| with its
+    /// position, the first non-finite element and the ∞-norm of F. Works on 32×32 tiles of the upper triangle: reading H column-wise
+    /// element by element would miss the cache on every access for large n.
     /// </summary>
-    private static double[] SymmetriseAndMassWeight(double[] h, int n, double[] invSqrtMass, out double worst, out int worstRow, out int worstColumn)
+    private static HessianScan SymmetriseAndMassWeight(double[] h, int n, double[] invSqrtMass, double[] f)
     {
         const int tile = 32;
-        var f = new double[n * n];
-        worst = 0.0;
-        worstRow = 0;
-        worstColumn = 0;
+        var worst = 0.0;
+        var (worstRow, worstColumn) = (0, 0);
+        var nonFinite = -1;
+        var rowSums = new double[n];
         for (var bi = 0; bi < n; bi += tile)
         {
             var iEnd = Math.Min(bi + tile, n);
@@ -400,36 +412,31 @@ public static class FrequencyAnalysis
                 {
                     var rowI = i * n;
                     var wI = 0.5 * invSqrtMass[i];
+                    var sumI = 0.0;
                     for (var j = bj == bi ? i : bj; j < jEnd; j++)
                     {
                         var a = h[rowI + j];
                         var b = h[j * n + i];
+                        if (!double.IsFinite(a) || !double.IsFinite(b))
+                        {
+                            var index = double.IsFinite(a) ? j * n + i : rowI + j;
+                            if (nonFinite < 0 || index < nonFinite) nonFinite = index;
+                            continue;
+                        }
                         var diff = Math.Abs(a - b);
                         if (diff > worst) { worst = diff; worstRow = i; worstColumn = j; }
                         var v = (a + b) * wI * invSqrtMass[j];
                         f[rowI + j] = v;
                         f[j * n + i] = v;
+                        var abs = Math.Abs(v);
+                        sumI += abs;
+                        if (j != i) rowSums[j] += abs;
                     }
+                    rowSums[i] += sumI;
                 }
             }
         }
-        return f;
-    }
-
-    private static double SumAbs(ReadOnlySpan<double> a)
-    {
-        var i = 0;
-        var sum = 0.0;
-        if (Vector.IsHardwareAccelerated && a.Length >= 2 * Vector<double>.Count)
-        {
-            var acc = Vector<double>.Zero;
-            var va = MemoryMarshal.Cast<double, Vector<double>>(a);
-            for (var v = 0; v < va.Length; v++) acc += Vector.Abs(va[v]);
-            sum = Vector.Sum(acc);
-            i = va.Length * Vector<double>.Count;
-        }
-        for (; i < a.Length; i++) sum += Math.Abs(a[i]);
-        return sum;
+        return new HessianScan(worst, worstRow, worstColumn, nonFinite, rowSums.Length == 0 ? 0.0 : rowSums.Max());
     }
 
     private static string Coordinate(Molecule m, int index) => $"{m.AtomLabel(index / 3)} {"xyz"[index % 3]}";

@@ -79,6 +79,25 @@ public static unsafe class SymmetricEigensolver
         return ManagedName;
     }
 
+    /// <summary>
+    /// As <see cref="Solve"/>, but <paramref name="buffer"/> may be longer than n² (a pooled array); only its first n² elements are used.
+    /// </summary>
+    internal static string SolveInPlace(double[] buffer, int n, double[] eigenvalues, EigenSolverChoice choice)
+    {
+        if (buffer.Length == n * n) return Solve(buffer, n, eigenvalues, choice);
+        if (buffer.Length < n * n) throw new ArgumentException($"Buffer of {buffer.Length} elements is smaller than {n}².", nameof(buffer));
+        if (choice != EigenSolverChoice.Managed && NativeAvailable)
+        {
+            if (eigenvalues.Length != n) throw new ArgumentException($"Expected {n} eigenvalue slots, got {eigenvalues.Length}.", nameof(eigenvalues));
+            if (n > 0) SolveNative(s_native.Value!, buffer, n, eigenvalues);
+            return NativeName;
+        }
+        var exact = buffer.AsSpan(0, n * n).ToArray();
+        var name = Solve(exact, n, eigenvalues, choice);
+        exact.CopyTo(buffer, 0);
+        return name;
+    }
+
     private static void SolveManaged(double[] matrix, int n, double[] eigenvalues)
     {
         // Symmetric, so row-major and column-major storage are the same matrix.

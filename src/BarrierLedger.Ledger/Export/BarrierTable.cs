@@ -82,7 +82,9 @@ public sealed record BarrierTable(
         {
             var marks = new List<string>();
             if (!r.IsVerified) marks.Add(MarkFor(footnotes, UnverifiedText(r)));
-            if (!r.IsConsistent) marks.Add(MarkFor(footnotes, $"{r.Reaction}, {r.SaddleLabel}: the barrier breaks a consistency rule: {string.Join("; ", r.ConsistencyProblems)}"));
+            if (!r.IsConsistent) marks.Add(MarkFor(footnotes, $"{r.Reaction}: the barrier breaks a consistency rule: {string.Join("; ", r.ConsistencyProblems.Select(p => p.TrimEnd('.')))}."));
+            if (r.RateConstantUnit != "s⁻¹" && r.RateConstant is not null && options.Columns.Contains(ExportColumn.RateConstant))
+                marks.Add(MarkFor(footnotes, $"k of a step with more than one molecule is in {r.RateConstantUnit} (standard state {source.Model.StandardStateText})."));
             rows.Add(new TableRow([.. options.Columns.Select(c => Cell(r, c, options))], marks));
         }
         var model = source.Model.Lines(options.Unit).ToList();
@@ -101,7 +103,7 @@ public sealed record BarrierTable(
             _ => "not verified",
         };
         var check = r.Check is { } v ? $"automatic check: {VerdictText.Of(v)}" : "no automatic check";
-        var reasons = r.Check is Verdict.NeedsAttention or Verdict.Failed && r.CheckReasons.Count > 0 ? $" ({string.Join("; ", r.CheckReasons)})" : "";
+        var reasons = r.Check is Verdict.NeedsAttention or Verdict.Failed && r.CheckReasons.Count > 0 ? $" ({string.Join("; ", r.CheckReasons.Select(x => x.TrimEnd('.')))})" : "";
         return $"{r.Reaction}, {r.SaddleLabel}: saddle point not verified by a reviewer ({status}); {check}{reasons}.";
     }
 
@@ -146,7 +148,7 @@ public sealed record BarrierTable(
         ExportColumn.BarrierEnthalpy => EnergyCell(r.BarrierEnthalpy, o),
         ExportColumn.BarrierGibbs => EnergyCell(r.BarrierGibbs, o),
         ExportColumn.ReactionGibbs => EnergyCell(r.ReactionGibbs, o),
-        ExportColumn.RateConstant => ScientificCell(r.RateConstantPerSecond),
+        ExportColumn.RateConstant => ScientificCell(r.RateConstant),
         ExportColumn.HalfLife => ScientificCell(r.HalfLifeSeconds),
         ExportColumn.ImaginaryFrequency => r.ImaginaryFrequencyCm1 is { } f && double.IsFinite(f)
             ? new(CellKind.Imaginary, "", Math.Round(Math.Abs(f), 0, MidpointRounding.AwayFromZero)) : TableCell.Empty,

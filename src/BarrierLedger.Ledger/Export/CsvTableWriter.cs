@@ -19,10 +19,10 @@ public static class CsvTableWriter
         ArgumentNullException.ThrowIfNull(table);
         ArgumentNullException.ThrowIfNull(writer);
         using var csv = CsvWriter.Create(writer, new CsvWriterOptions { CommentPrefix = CommentPrefix, NewLine = "\n" }, true);
-        csv.WriteComment(table.Title);
-        foreach (var line in table.ModelLines) csv.WriteComment(line);
-        foreach (var f in table.Footnotes) csv.WriteComment($"[{f.Mark}] {f.Text}");
-        csv.WriteComment(table.Caution);
+        csv.WriteComment(" " + table.Title);
+        foreach (var line in table.ModelLines) csv.WriteComment(" " + line);
+        foreach (var f in table.Footnotes) csv.WriteComment($" [{f.Mark}] {f.Text}");
+        csv.WriteComment(" " + table.Caution);
         csv.WriteHeader([.. table.Headers.Select(h => h.Plain), BarrierTable.NoteHeader, NoteTextHeader]);
         var texts = table.Footnotes.ToDictionary(f => f.Mark, f => f.Text);
         foreach (var row in table.Rows)

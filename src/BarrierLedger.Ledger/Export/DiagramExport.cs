@@ -51,7 +51,7 @@ public static class DiagramExport
         if (source.ConsistencyProblems.Count > 0)
         {
             inconsistentMark = BarrierTable.MarkName(footnotes.Count);
-            footnotes.Add($"[{inconsistentMark}] {source.Reaction}: the energies break a consistency rule: {string.Join("; ", source.ConsistencyProblems)}.");
+            footnotes.Add($"[{inconsistentMark}] {source.Reaction}: the energies break a consistency rule: {string.Join("; ", source.ConsistencyProblems.Select(p => p.TrimEnd('.')))}.");
         }
         for (var i = 0; i < source.States.Count; i++)
         {

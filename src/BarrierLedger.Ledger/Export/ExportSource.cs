@@ -45,7 +45,7 @@ public sealed record ExportModel(
         $"Level of theory (single point // geometry): {LevelOfTheory}",
         $"Temperature: {TemperatureKelvin:0.##} K; standard state: {StandardStateText}",
         $"Thermochemistry: {TreatmentText}; tunnelling: {Tunnelling}",
-        $"Energies in {Energy.Symbol(unit)}; k in s⁻¹; t½ in s; imaginary frequency in cm⁻¹",
+        $"Energies in {Energy.Symbol(unit)}; k in s⁻¹ (first order; a second-order k is marked); t½ in s; imaginary frequency in cm⁻¹",
     ];
 }
 
@@ -69,7 +69,7 @@ public enum ReviewState
 /// <param name="BarrierEnthalpy">ΔH‡.</param>
 /// <param name="BarrierGibbs">ΔG‡.</param>
 /// <param name="ReactionGibbs">ΔG_r of the step (following minimum − preceding minimum).</param>
-/// <param name="RateConstantPerSecond">Eyring k at the model temperature.</param>
+/// <param name="RateConstant">Eyring k at the model temperature, in <paramref name="RateConstantUnit"/>.</param>
 /// <param name="HalfLifeSeconds">ln 2 / k.</param>
 /// <param name="ImaginaryFrequencyCm1">The significant imaginary mode, as a negative wavenumber (cm⁻¹).</param>
 /// <param name="Check">Automatic saddle-point check, null when none ran.</param>
@@ -77,6 +77,7 @@ public enum ReviewState
 /// <param name="Review">Reviewer status.</param>
 /// <param name="LevelOfTheory">Level(s) of theory of this step's energies.</param>
 /// <param name="ConsistencyProblems">Every consistency rule the barrier breaks, as sentences; empty when consistent.</param>
+/// <param name="RateConstantUnit">"s⁻¹" for a unimolecular step, "M⁻¹ s⁻¹" for a bimolecular one.</param>
 public sealed record BarrierRow(
     string Reaction,
     string Step,
@@ -85,14 +86,15 @@ public sealed record BarrierRow(
     Energy? BarrierEnthalpy,
     Energy? BarrierGibbs,
     Energy? ReactionGibbs,
-    double? RateConstantPerSecond,
+    double? RateConstant,
     double? HalfLifeSeconds,
     double? ImaginaryFrequencyCm1,
     Verdict? Check,
     IReadOnlyList<string> CheckReasons,
     ReviewState Review,
     string LevelOfTheory,
-    IReadOnlyList<string> ConsistencyProblems)
+    IReadOnlyList<string> ConsistencyProblems,
+    string RateConstantUnit = "s⁻¹")
 {
     public bool IsVerified => Review == ReviewState.Verified;
     public bool IsConsistent => ConsistencyProblems.Count == 0;

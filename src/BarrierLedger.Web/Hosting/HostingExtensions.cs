@@ -6,6 +6,17 @@ namespace BarrierLedger.Web.Hosting;
 
 public static class HostingExtensions
 {
+    /// <summary>Demo settings: "BarrierLedger:LoadDemo" and "BarrierLedger:DemoDirectory", and the --no-demo switch.</summary>
+    public static IServiceCollection AddBarrierLedgerDemo(this IServiceCollection services, IConfiguration configuration, string[] args)
+    {
+        var options = new DemoOptions();
+        configuration.GetSection("BarrierLedger").Bind(options);
+        if (args.Contains("--no-demo")) options.LoadDemo = false;
+        services.AddSingleton(options);
+        services.AddScoped<DemoSetup>();
+        return services;
+    }
+
     /// <summary>The dashboard listens on http://127.0.0.1:5080 unless --urls (or ASPNETCORE_URLS) says otherwise.</summary>
     public static IWebHostBuilder UseBarrierLedgerDefaultAddress(this IWebHostBuilder web, IConfiguration configuration)
     {
@@ -24,6 +35,7 @@ public static class HostingExtensions
 
         await using var scope = app.Services.CreateAsyncScope();
         var bootstrap = scope.ServiceProvider.GetRequiredService<AccountBootstrap>();
-        await bootstrap.EnsureRolesAndFirstAdminAsync(Console.Out);
+        var storeWasEmpty = await bootstrap.EnsureRolesAndFirstAdminAsync(Console.Out);
+        await scope.ServiceProvider.GetRequiredService<DemoSetup>().LoadIfEmptyAsync(storeWasEmpty);
     }
 }

@@ -87,7 +87,7 @@ public class SaddleCheckFromHessianTests
         var result = SaddleCheck.Run(SaddleCheckInput.FromHessian(m, HydrogenTransferHessian(-0.03), [(1, 7), (7, 8)]));
         Assert.True(result.Verdict == Verdict.Failed, result.Report());
         Assert.Equal(SaddleCheckCodes.SeveralSignificantImaginaryModes, result.Reasons[0].Code);
-        Assert.Contains(result.SignificantModes, s => s.Character.Class == ModeClass.Torsion && s.Character.RotorLike);
+        Assert.Contains(result.SignificantModes, s => s.Character is { Class: ModeClass.Torsion, RotorLike: true });
     }
 
     /// <summary>The force-field Hessian of the hydrogen transfer described above, with the methyl-torsion constant as given (hartree/rad²).</summary>

@@ -106,4 +106,33 @@ public class SaddleCheckTests
         Assert.NotNull(r.Scan);
         Assert.Equal(1.40, r.Scan!.SaddleCoordinate, 9);
     }
+
+    [Fact]
+    public void WavenumbersWithoutDisplacements_CountsStillCheck_CharacterNeedsAttention()
+    {
+        var m = TestSystems.HydrogenTransfer();
+        NormalMode[] modes = [new(-1450, []), new(300, []), new(980, [])];
+        var r = SaddleCheck.Run(new(m, modes, TransferBonds));
+        Assert.Equal(Verdict.NeedsAttention, r.Verdict);
+        Assert.Contains(r.Reasons, x => x.Code == SaddleCheckCodes.ModeCharacterUnknown);
+        Assert.Equal(ModeClass.Unknown, r.SignificantCharacter!.Class);
+        NormalMode[] two = [new(-1450, []), new(-400, []), new(980, [])];
+        Assert.Equal(Verdict.Failed, SaddleCheck.Run(new(m, two, TransferBonds)).Verdict);
+    }
+
+    [Theory]
+    // A significant mode mixing the methyl turn with the H8 transfer: with a small transfer part the reaction stretches fall
+    // below a quarter of the leading torsion's share and the check fails; with an equal part they lead and it does not.
+    [InlineData(0.15, Verdict.Failed)]
+    [InlineData(1.0, Verdict.Passed)]
+    public void ReactionBondMustBeAmongTheLeadingComponents_RelativeToTheLargest(double transferWeight, Verdict expected)
+    {
+        var m = TestSystems.HydrogenTransfer();
+        var rot = TestSystems.MethylRotation(m);
+        var transfer = TestSystems.TransferDisplacement(m);
+        var mixed = TestSystems.Normalised(rot.Zip(transfer, (a, b) => a + transferWeight * b));
+        var r = SaddleCheck.Run(new(m, [new NormalMode(-600, mixed), new NormalMode(900, transfer)], TransferBonds));
+        Assert.True(r.Verdict == expected, r.Report());
+        Assert.Equal(expected == Verdict.Failed, r.Reasons.Any(x => x.Code == SaddleCheckCodes.ModeMissesReactionBond));
+    }
 }

@@ -102,3 +102,14 @@ public class SvgEnergyDiagramTests
         Assert.All(lines, l => Assert.True(l.Length <= (int)(300 / (0.56 * 11))));
     }
 }
+
+public class SvgLabelSplitTests
+{
+    [Fact]
+    public void SplitLabel_BreaksLongSumsAfterPlusSigns_AndKeepsShortLabels()
+    {
+        Assert.Equal(["TS1"], SvgEnergyDiagram.SplitLabel("TS1", 10));
+        Assert.Equal(["iodomethane +", "chloride +", "fluoride"], SvgEnergyDiagram.SplitLabel("iodomethane + chloride + fluoride", 14));
+        Assert.Equal(["averyveryverylonglabel"], SvgEnergyDiagram.SplitLabel("averyveryverylonglabel", 5));
+    }
+}

@@ -9,13 +9,14 @@ public sealed class AccountBootstrap(UserManager<LedgerUser> users, RoleManager<
 {
     public const string FirstAdminUserName = "admin";
 
-    public async Task EnsureRolesAndFirstAdminAsync(TextWriter console)
+    /// <summary>Returns true when the store had no accounts (a first start).</summary>
+    public async Task<bool> EnsureRolesAndFirstAdminAsync(TextWriter console)
     {
         foreach (var role in Roles.All)
             if (!await roles.RoleExistsAsync(role))
                 await roles.CreateAsync(new IdentityRole(role));
 
-        if (users.Users.Any()) return;
+        if (users.Users.Any()) return false;
 
         var password = OneTimePassword();
         var admin = new LedgerUser { UserName = FirstAdminUserName, DisplayName = "Administrator", MustChangePassword = true };
@@ -27,6 +28,7 @@ public sealed class AccountBootstrap(UserManager<LedgerUser> users, RoleManager<
         await console.WriteLineAsync($"First sign-in: user '{FirstAdminUserName}', one-time password: {password}");
         await console.WriteLineAsync("(shown once; you will be asked to choose your own password at first sign-in)");
         await console.FlushAsync();
+        return true;
     }
 
     /// <summary>16 characters from an alphabet without look-alikes (no 0/O, 1/l/I), from a cryptographic RNG.</summary>

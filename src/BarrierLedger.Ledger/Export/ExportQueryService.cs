@@ -1,0 +1,210 @@
+using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Storage;
+using Microsoft.EntityFrameworkCore;
+using CoreThermo = BarrierLedger.Core.Thermochemistry.Thermochemistry;
+
+namespace BarrierLedger.Ledger.Export;
+
+/// <summary>A study that can be exported.</summary>
+public sealed record ExportStudy(int Id, string Name, IReadOnlyList<ExportReaction> Reactions);
+
+/// <summary>A reaction of a study, with whether its derived values exist yet.</summary>
+public sealed record ExportReaction(int Id, string Label, bool HasDerivedValues);
+
+/// <summary>
+/// Reads what the exports need from the ledger (derived values as stored by the derivation, checks, latest reviews, the
+/// study's energy model) and maps it to the writers' plain records. Never changes the ledger.
+/// </summary>
+public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factory)
+{
+    public async Task<IReadOnlyList<ExportStudy>> ListStudiesAsync(CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var studies = await db.Studies.AsNoTracking().Where(s => !s.Retired).OrderBy(s => s.Name).Select(s => new { s.Id, s.Name }).ToListAsync(ct);
+        var reactions = (await db.Reactions.AsNoTracking().Where(r => !r.Retired).OrderBy(r => r.Label)
+            .Select(r => new { r.Id, r.StudyId, r.Label, Has = r.Derivation != null }).ToListAsync(ct)).ToLookup(r => r.StudyId);
+        return [.. studies.Select(s => new ExportStudy(s.Id, s.Name, [.. reactions[s.Id].Select(r => new ExportReaction(r.Id, r.Label, r.Has))]))];
+    }
+
+    /// <summary>The study's energy model as exports state it; <paramref name="levels"/> are the levels the numbers came from.</summary>
+    private static async Task<ExportModel> ModelAsync(LedgerDbContext db, int studyId, IEnumerable<string> levels, CancellationToken ct)
+    {
+        var (m, _) = await DerivationService.EffectiveModelAsync(db, studyId, ct);
+        var distinct = levels.SelectMany(l => l.Split("; ", StringSplitOptions.RemoveEmptyEntries)).Distinct(StringComparer.OrdinalIgnoreCase).ToList();
+        var level = distinct.Count > 0 ? string.Join("; ", distinct) : m.EnergyLevel.Length > 0 ? m.EnergyLevel : "each state's own calculation";
+        return new ExportModel(level, m.TemperatureKelvin, m.StandardState, m.Treatment, m.QuasiRrhoCutoffCm1,
+            m.Tunnelling == TunnellingCorrection.Wigner ? "Wigner" : "none");
+    }
+
+    /// <summary>
+    /// One row per elementary step of each chosen reaction (all live reactions of the study when <paramref name="reactionIds"/>
+    /// is null), in reaction and pathway order. Throws <see cref="ArgumentException"/> for an unknown study.
+    /// </summary>
+    public async Task<BarrierTableSource> GetTableSourceAsync(int studyId, IReadOnlyCollection<int>? reactionIds = null, CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var study = await db.Studies.AsNoTracking().FirstOrDefaultAsync(s => s.Id == studyId && !s.Retired, ct)
+            ?? throw new ArgumentException($"There is no study with id {studyId}.", nameof(studyId));
+        var q = db.Reactions.AsNoTracking().Where(r => r.StudyId == studyId && !r.Retired);
+        if (reactionIds is not null) q = q.Where(r => reactionIds.Contains(r.Id));
+        var reactions = await q.OrderBy(r => r.Label)
+            .Select(r => new { r.Id, r.Label, r.Derivation, States = r.States.Select(s => new { s.Position, s.SaddleCalculationId }).ToList() })
+            .ToListAsync(ct);
+        if (reactionIds is not null && reactions.Count != reactionIds.Count)
+            throw new ArgumentException($"Reaction(s) {string.Join(", ", reactionIds.Except(reactions.Select(r => r.Id)))} are not live reactions of study {studyId}.", nameof(reactionIds));
+
+        var calcIds = reactions.SelectMany(r => r.States).Where(s => s.SaddleCalculationId != null).Select(s => s.SaddleCalculationId!.Value).Distinct().ToList();
+        var checks = await db.FrequencyChecks.AsNoTracking().Where(c => calcIds.Contains(c.CalculationId)).ToDictionaryAsync(c => c.CalculationId, ct);
+        var reviews = await LatestReviewsAsync(db, calcIds, ct);
+
+        var rows = new List<BarrierRow>();
+        foreach (var r in reactions)
+        {
+            if (r.Derivation is null)
+            {
+                rows.Add(new BarrierRow(r.Label, "—", "—", null, null, null, null, null, null, null, null, [], ReviewState.AwaitingReview, "",
+                    ["no derived values yet (the reaction has not been computed)"]));
+                continue;
+            }
+            var steps = DerivedJson.Read<List<DerivedStep>>(r.Derivation.StepsJson);
+            var states = DerivedJson.Read<List<DerivedState>>(r.Derivation.StatesJson);
+            var problems = DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson).Where(c => c.Blocking).Select(c => c.Message).ToList();
+            if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
+            foreach (var s in steps)
+            {
+                var calcId = r.States.FirstOrDefault(x => x.Position == s.SaddlePosition)?.SaddleCalculationId;
+                var (verdict, reasons) = CheckOf(calcId, checks);
+                var saddle = states.FirstOrDefault(x => x.Position == s.SaddlePosition);
+                var from = states.Where(x => x.Position < s.SaddlePosition && x.Label == s.From).OrderBy(x => x.Position).LastOrDefault();
+                var barrierH = saddle?.DeltaHHartree is { } hs && from?.DeltaHHartree is { } hf ? hs - hf : (double?)null;
+                rows.Add(new BarrierRow(r.Label, $"{s.From} → {s.To}", s.Label,
+                    H(s.BarrierEHartree), H(barrierH), H(s.BarrierGHartree), H(s.ReactionGHartree),
+                    s.RateConstant, s.HalfLifeSeconds, s.ImaginaryCm1, verdict, reasons,
+                    calcId is { } id && reviews.TryGetValue(id, out var rv) ? rv : ReviewState.AwaitingReview,
+                    r.Derivation.LevelOfTheory, problems, s.RateConstantUnit));
+            }
+        }
+        var model = await ModelAsync(db, studyId, reactions.Where(r => r.Derivation is not null).Select(r => r.Derivation!.LevelOfTheory), ct);
+        return new BarrierTableSource(study.Name, model, rows);
+    }
+
+    /// <summary>The reaction's profile for a figure; <paramref name="quantity"/> is "ΔG", "ΔH" or "ΔE".</summary>
+    public async Task<DiagramSource> GetDiagramSourceAsync(int reactionId, string quantity = "ΔG", CancellationToken ct = default)
+    {
+        if (quantity is not ("ΔG" or "ΔH" or "ΔE")) throw new ArgumentException($"Quantity must be ΔG, ΔH or ΔE, not '{quantity}'.", nameof(quantity));
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var r = await db.Reactions.AsNoTracking().Where(x => x.Id == reactionId && !x.Retired)
+            .Select(x => new { x.Id, x.StudyId, x.Label, x.Derivation, States = x.States.Select(s => new { s.Position, s.SaddleCalculationId }).ToList() })
+            .FirstOrDefaultAsync(ct) ?? throw new ArgumentException($"There is no live reaction with id {reactionId}.", nameof(reactionId));
+        if (r.Derivation is null) throw new InvalidOperationException($"Reaction '{r.Label}' has no derived values yet, so there is nothing to draw.");
+        var states = DerivedJson.Read<List<DerivedState>>(r.Derivation.StatesJson);
+        var calcIds = r.States.Where(s => s.SaddleCalculationId != null).Select(s => s.SaddleCalculationId!.Value).ToList();
+        var checks = await db.FrequencyChecks.AsNoTracking().Where(c => calcIds.Contains(c.CalculationId)).ToDictionaryAsync(c => c.CalculationId, ct);
+        var reviews = await LatestReviewsAsync(db, calcIds, ct);
+        var missing = states.Where(s => Pick(s, quantity) is null).Select(s => s.Label).ToList();
+        if (missing.Count > 0) throw new InvalidOperationException($"Reaction '{r.Label}': no {quantity} for {string.Join(", ", missing)}; choose another quantity.");
+        var infos = states.OrderBy(s => s.Position).Select(s =>
+        {
+            var saddle = s.Kind == nameof(StateKind.SaddlePoint);
+            var calcId = r.States.FirstOrDefault(x => x.Position == s.Position)?.SaddleCalculationId;
+            var (verdict, reasons) = CheckOf(calcId, checks);
+            return new DiagramStateInfo(s.Label, Energy.FromHartree(Pick(s, quantity)!.Value), saddle,
+                calcId is { } id && reviews.TryGetValue(id, out var rv) ? rv : ReviewState.AwaitingReview, verdict, reasons);
+        }).ToList();
+        var problems = r.Derivation.Consistent ? [] : DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson).Where(c => c.Blocking).Select(c => c.Message).ToList();
+        if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
+        var model = await ModelAsync(db, r.StudyId, [r.Derivation.LevelOfTheory], ct);
+        return new DiagramSource(r.Label, model, quantity, infos, problems);
+    }
+
+    /// <summary>
+    /// Every live species of the study that has a geometry: the electronic energy from the model's energy level (else a single
+    /// point, else any energy), thermal corrections computed from its frequencies at the model's settings (else the reported
+    /// ones at the model temperature), its imaginary frequencies, and its geometry.
+    /// </summary>
+    public async Task<(string Study, ExportModel Model, IReadOnlyList<SiStructure> Structures)> GetSupportingInfoAsync(int studyId, CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var study = await db.Studies.AsNoTracking().FirstOrDefaultAsync(s => s.Id == studyId && !s.Retired, ct)
+            ?? throw new ArgumentException($"There is no study with id {studyId}.", nameof(studyId));
+        var (settings, _) = await DerivationService.EffectiveModelAsync(db, studyId, ct);
+        var species = await db.Species.AsNoTracking().Where(s => s.StudyId == studyId && !s.Retired).OrderBy(s => s.Label).ToListAsync(ct);
+        var ids = species.Select(s => s.Id).ToList();
+        var calcs = (await db.Calculations.AsNoTracking().Where(c => ids.Contains(c.SpeciesId) && !c.Retired).OrderBy(c => c.Id).ToListAsync(ct)).ToLookup(c => c.SpeciesId);
+        var saddleSpecies = (await db.ReactionStateTerms.AsNoTracking()
+            .Where(t => db.ReactionStates.Any(s => s.Id == t.ReactionStateId && s.Kind == StateKind.SaddlePoint && !s.Reaction!.Retired))
+            .Select(t => t.SpeciesId).ToListAsync(ct)).ToHashSet();
+        var energyKey = EnergyLevels.Key(settings.EnergyLevel);
+        var thermalKey = EnergyLevels.Key(settings.ThermalLevel);
+
+        var structures = new List<SiStructure>();
+        foreach (var sp in species)
+        {
+            var list = calcs[sp.Id].ToList();
+            var energy = (energyKey.Length > 0 ? list.LastOrDefault(c => c.EnergyHartree != null && c.EnergyLevelKey == energyKey) : null)
+                ?? list.LastOrDefault(c => c.EnergyHartree != null && c.Kind == CalculationKind.SinglePoint)
+                ?? list.LastOrDefault(c => c.EnergyHartree != null);
+            var thermal = (thermalKey.Length > 0 ? list.LastOrDefault(c => c.FrequenciesCm1 != null && EnergyLevels.Key(c.LevelOfTheory).StartsWith(thermalKey, StringComparison.Ordinal)) : null)
+                ?? list.LastOrDefault(c => c.FrequenciesCm1 is { Length: > 0 });
+            var geometryCalc = thermal?.AtomicNumbers is not null ? thermal : list.LastOrDefault(c => c.AtomicNumbers is { Length: > 0 } && c.PositionsAngstrom is not null);
+            var molecule = geometryCalc is null ? null : Blobs.ToMolecule(geometryCalc.AtomicNumbers, geometryCalc.PositionsAngstrom, sp.Charge, sp.Multiplicity);
+            if (molecule is null) continue;
+            var level = energy?.LevelOfTheory ?? geometryCalc!.LevelOfTheory;
+            if (!level.Contains("//") && geometryCalc is not null && !EnergyLevels.Key(geometryCalc.LevelOfTheory).Equals(EnergyLevels.Key(level), StringComparison.Ordinal))
+                level = $"{level}//{geometryCalc.LevelOfTheory}";
+            var frequencies = thermal is null ? [] : Blobs.ToDoubles(thermal.FrequenciesCm1);
+            double? zpe = null, h = null, g = null;
+            if (thermal is not null && frequencies.Length > 0)
+            {
+                try
+                {
+                    var thermalMolecule = Blobs.ToMolecule(thermal.AtomicNumbers, thermal.PositionsAngstrom, sp.Charge, sp.Multiplicity) ?? molecule;
+                    var t = CoreThermo.Compute(thermalMolecule, frequencies, settings.ThermoOptions(sp.SymmetryNumber));
+                    (zpe, h, g) = (t.ZeroPointEnergy.Hartree, t.EnthalpyCorrection.Hartree, t.GibbsCorrection.Hartree);
+                }
+                catch (ArgumentException)
+                {
+                    // Frequencies the thermochemistry cannot use: fall back to reported corrections below.
+                }
+            }
+            if (zpe is null && list.LastOrDefault(c => c.ZeroPointHartree != null && c.ThermalTemperatureKelvin is { } tk && Math.Abs(tk - settings.TemperatureKelvin) < 0.01) is { } reported)
+                (zpe, h, g) = (reported.ZeroPointHartree, reported.EnthalpyCorrectionHartree, reported.GibbsCorrectionHartree);
+            var role = saddleSpecies.Contains(sp.Id) || list.Any(c => c.Kind == CalculationKind.SaddlePoint) ? "saddle point" : "minimum";
+            structures.Add(new SiStructure(sp.Label, role, level, energy?.EnergyHartree, zpe, h, g, [.. frequencies.Where(f => f < 0)], molecule));
+        }
+        var model = await ModelAsync(db, studyId, structures.Select(s => s.LevelOfTheory), ct);
+        return (study.Name, model, structures);
+    }
+
+    private static Energy? H(double? hartree) => hartree is { } v ? Energy.FromHartree(v) : null;
+
+    private static double? Pick(DerivedState s, string quantity) => quantity switch
+    {
+        "ΔE" => s.DeltaEHartree,
+        "ΔH" => s.DeltaHHartree,
+        _ => s.DeltaGHartree,
+    };
+
+    private static (Verdict?, IReadOnlyList<string>) CheckOf(int? calcId, Dictionary<int, FrequencyCheck> checks)
+    {
+        if (calcId is not { } id || !checks.TryGetValue(id, out var c)) return (null, []);
+        var reasons = DerivedJson.Read<List<StoredReason>>(c.ReasonsJson).Where(r => r.Severity != "Info").Select(r => r.Message).ToList();
+        return (c.Verdict, reasons);
+    }
+
+    private static async Task<Dictionary<int, ReviewState>> LatestReviewsAsync(LedgerDbContext db, List<int> calcIds, CancellationToken ct)
+    {
+        var all = await db.Reviews.AsNoTracking().Where(r => calcIds.Contains(r.CalculationId)).Select(r => new { r.CalculationId, r.Outcome, r.At, r.Id }).ToListAsync(ct);
+        return all.GroupBy(r => r.CalculationId).ToDictionary(g => g.Key, g => g.OrderBy(r => r.At).ThenBy(r => r.Id).Last().Outcome switch
+        {
+            ReviewOutcome.Verified => ReviewState.Verified,
+            ReviewOutcome.Returned => ReviewState.Returned,
+            _ => ReviewState.Reopened,
+        });
+    }
+}

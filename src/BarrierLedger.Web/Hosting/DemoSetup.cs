@@ -1,0 +1,87 @@
+using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Uploads;
+using Microsoft.AspNetCore.Identity;
+
+namespace BarrierLedger.Web.Hosting;
+
+/// <summary>Settings of the demo scenario loaded into an empty store.</summary>
+public sealed class DemoOptions
+{
+    /// <summary>Load the demo study and demo accounts on first start with an empty store (turn off with --no-demo).</summary>
+    public bool LoadDemo { get; set; } = true;
+
+    /// <summary>Folder with the demo files; by default the repository's seed-data/ found above the app.</summary>
+    public string? DemoDirectory { get; set; }
+}
+
+/// <summary>The two demo accounts. Their passwords are public on purpose and shown on the sign-in page while the demo study is loaded.</summary>
+public static class DemoAccounts
+{
+    public const string MemberUserName = "demo-member";
+    public const string ReviewerUserName = "demo-reviewer";
+    public const string MemberPassword = "Demo-member-2026";
+    public const string ReviewerPassword = "Demo-reviewer-2026";
+}
+
+/// <summary>
+/// On first start with an empty store, creates the demo accounts and stores the demo scenario through the same
+/// upload workflow a member uses (so the demo exercises the readers, checks and derivations).
+/// </summary>
+public sealed class DemoSetup(
+    UserManager<LedgerUser> users,
+    UploadService uploads,
+    DemoOptions options,
+    ILogger<DemoSetup> log)
+{
+    public async Task LoadIfEmptyAsync(bool storeWasEmpty, CancellationToken ct = default)
+    {
+        if (!options.LoadDemo || !storeWasEmpty) return;
+        var dir = options.DemoDirectory ?? FindDemoDirectory();
+        if (dir is null || !Directory.Exists(dir))
+        {
+            log.LogWarning("No demo files found (looked for seed-data/ above the app); starting with an empty ledger.");
+            return;
+        }
+        var member = await EnsureUserAsync(DemoAccounts.MemberUserName, "Demo Member", DemoAccounts.MemberPassword, [Roles.Member]);
+        await EnsureUserAsync(DemoAccounts.ReviewerUserName, "Demo Reviewer", DemoAccounts.ReviewerPassword, [Roles.Member, Roles.Reviewer]);
+
+        var files = Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories)
+            .Where(f => !Path.GetFileName(f).StartsWith('.'))
+            .Order(StringComparer.Ordinal)
+            .Select(f => new UploadFile(Path.GetRelativePath(dir, f).Replace('\\', '/'), File.ReadAllBytes(f)))
+            .ToList();
+        var outcome = await uploads.StoreAsync(files, new UploadChoices(), member.Id, ct);
+        if (outcome.Stored)
+            log.LogInformation("Loaded the demo study ({Calcs} calculations, {Reactions} reactions) from {Dir}.",
+                outcome.CalculationIds.Count, outcome.ReactionIds.Count, dir);
+        else
+            log.LogError("The demo files in {Dir} could not be stored: {Errors}", dir, string.Join("; ", outcome.Errors));
+    }
+
+    private async Task<LedgerUser> EnsureUserAsync(string userName, string displayName, string password, string[] roles)
+    {
+        var user = await users.FindByNameAsync(userName);
+        if (user is null)
+        {
+            user = new LedgerUser { UserName = userName, DisplayName = displayName };
+            var created = await users.CreateAsync(user, password);
+            if (!created.Succeeded)
+                throw new InvalidOperationException($"Could not create demo account {userName}: " + string.Join("; ", created.Errors.Select(e => e.Description)));
+        }
+        foreach (var role in roles)
+            if (!await users.IsInRoleAsync(user, role)) await users.AddToRoleAsync(user, role);
+        return user;
+    }
+
+    /// <summary>seed-data/ in the nearest folder above the app's binaries or the current directory.</summary>
+    public static string? FindDemoDirectory()
+    {
+        foreach (var start in new[] { AppContext.BaseDirectory, Directory.GetCurrentDirectory() })
+            for (var d = new DirectoryInfo(start); d is not null; d = d.Parent)
+            {
+                var candidate = Path.Combine(d.FullName, "seed-data");
+                if (Directory.Exists(candidate) && Directory.EnumerateFiles(candidate, "*.json").Any()) return candidate;
+            }
+        return null;
+    }
+}

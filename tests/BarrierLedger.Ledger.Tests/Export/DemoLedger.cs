@@ -1,0 +1,31 @@
+using BarrierLedger.Ledger.Tests.Support;
+using BarrierLedger.Ledger.Uploads;
+
+namespace BarrierLedger.Ledger.Tests.Export;
+
+/// <summary>A temporary ledger holding the committed demo study (seed-data/), stored through the real upload service.</summary>
+internal static class DemoLedger
+{
+    public static string SeedFolder
+    {
+        get
+        {
+            for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
+                if (File.Exists(Path.Combine(d.FullName, "seed-data", "bundle.json"))) return Path.Combine(d.FullName, "seed-data");
+            throw new DirectoryNotFoundException("seed-data/bundle.json not found above the test folder.");
+        }
+    }
+
+    public static IReadOnlyList<UploadFile> Files(string folder) =>
+        [.. Directory.EnumerateFiles(folder, "*", SearchOption.AllDirectories).Order(StringComparer.Ordinal)
+            .Select(p => new UploadFile(Path.GetRelativePath(folder, p).Replace('\\', '/'), File.ReadAllBytes(p)))];
+
+    public static async Task<(TempLedger Ledger, int StudyId)> CreateAsync(string? dir = null)
+    {
+        var ledger = await TempLedger.CreateAsync(dir);
+        var outcome = await ledger.Get<UploadService>().StoreAsync(Files(SeedFolder), new UploadChoices(), "demo-user");
+        if (!outcome.Stored || outcome.StudyId is null)
+            throw new InvalidOperationException("The demo study was not stored: " + string.Join("; ", outcome.Issues.Select(i => i.ToString())));
+        return (ledger, outcome.StudyId.Value);
+    }
+}
