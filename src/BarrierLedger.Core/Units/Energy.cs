@@ -102,18 +102,28 @@ public readonly record struct Energy(double Hartree) : IComparable<Energy>
 
     /// <summary>Sum (both in hartree).</summary>
     public static Energy operator +(Energy a, Energy b) => new(a.Hartree + b.Hartree);
+    /// <summary>Difference (hartree).</summary>
     public static Energy operator -(Energy a, Energy b) => new(a.Hartree - b.Hartree);
+    /// <summary>Negation.</summary>
     public static Energy operator -(Energy a) => new(-a.Hartree);
+    /// <summary>Scaling by a dimensionless factor (e.g. a stoichiometric coefficient).</summary>
     public static Energy operator *(double s, Energy a) => new(s * a.Hartree);
+    /// <summary>Scaling by a dimensionless factor.</summary>
     public static Energy operator *(Energy a, double s) => new(s * a.Hartree);
+    /// <summary>Division by a dimensionless factor.</summary>
     public static Energy operator /(Energy a, double s) => new(a.Hartree / s);
+    /// <summary>Comparison by value.</summary>
     public static bool operator <(Energy a, Energy b) => a.Hartree < b.Hartree;
+    /// <summary>Comparison by value.</summary>
     public static bool operator >(Energy a, Energy b) => a.Hartree > b.Hartree;
+    /// <summary>Comparison by value.</summary>
     public static bool operator <=(Energy a, Energy b) => a.Hartree <= b.Hartree;
+    /// <summary>Comparison by value.</summary>
     public static bool operator >=(Energy a, Energy b) => a.Hartree >= b.Hartree;
 
     /// <summary>Orders by value in hartree.</summary>
     public int CompareTo(Energy other) => Hartree.CompareTo(other.Hartree);
 
+    /// <summary>Round-trip text in hartree, e.g. "-76.4 Eh".</summary>
     public override string ToString() => $"{Hartree:R} Eh";
 }

@@ -18,5 +18,6 @@ public sealed record NormalMode(
     double ReducedMassAmu = double.NaN,
     double ForceConstantMdynPerAngstrom = double.NaN)
 {
+    /// <summary>True for a negative (imaginary) wavenumber.</summary>
     public bool IsImaginary => FrequencyCm1 < 0;
 }
