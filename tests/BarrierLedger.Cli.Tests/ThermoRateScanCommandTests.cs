@@ -169,3 +169,17 @@ public class ScanCommandTests
         Assert.Contains("cannot be analysed", err);
     }
 }
+
+public class RateTunnellingTests
+{
+    [Fact]
+    public void Skodje_Truhlar_kappa_is_the_Core_value_for_the_same_barriers()
+    {
+        var j = JsonDocument.Parse(CliRunner.Run("rate", "--json", "--barrier", "15", "--unit", "kcal/mol", "--tunnelling", "skodje-truhlar",
+            "--imaginary-frequency", "1500", "--reverse-barrier", "25").Out).RootElement;
+        var kappa = BarrierLedger.Core.Kinetics.Tunnelling.SkodjeTruhlar(1500, BarrierLedger.Core.Units.Energy.FromKcalPerMol(15),
+            BarrierLedger.Core.Units.Energy.FromKcalPerMol(25), 298.15);
+        Assert.Equal(kappa, j.GetProperty("kappa").GetDouble(), 12);
+        Assert.True(kappa > 1, "tunnelling must speed the reaction up");
+    }
+}

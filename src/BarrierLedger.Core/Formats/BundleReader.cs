@@ -183,7 +183,7 @@ public static class BundleReader
         }
     }
 
-    private sealed record SpeciesInfo(BundleSpecies Species, string Path);
+    private sealed record SpeciesInfo(BundleSpecies Species, string Path, bool Complete = true);
 
     private static Bundle? ReadManifest(byte[] bytes, IssueCollector issues, ReaderLimits limits, FileSource files)
     {
@@ -230,9 +230,11 @@ public static class BundleReader
                 var label = j.String(sp, p, "label", required: true);
                 var charge = j.Integer(sp, p, "charge", required: true);
                 var mult = j.Integer(sp, p, "multiplicity", required: true, min: 1);
-                if (label is null || charge is null || mult is null) continue;
+                if (label is null) continue;
                 if (species.TryGetValue(label, out var prior)) { issues.ErrorAt(JsonInput.Child(p, "label"), $"species '{label}' is already defined at {prior.Path}; labels must be unique"); continue; }
-                species[label] = new SpeciesInfo(new BundleSpecies(label, charge.Value, mult.Value), p);
+                // A species whose charge or multiplicity is wrong keeps its label (the error is already listed), so that
+                // references to it do not raise a second, misleading "not in $.species" error.
+                species[label] = new SpeciesInfo(new BundleSpecies(label, charge ?? 0, mult ?? 1), p, charge is not null && mult is not null);
             }
             if (k == 0) issues.ErrorAt("$.species", "is empty; expected at least one species");
         }
@@ -308,7 +310,7 @@ public static class BundleReader
         var kindText = j.String(c, p, "kind", required: true);
         CalculationKind kind = default;
         if (kindText is not null && !KindNames.TryGetValue(kindText, out kind))
-            issues.ErrorAt(JsonInput.Child(p, "kind"), $"is '{kindText}'; expected one of: {Known(KindNames.Keys)}");
+            issues.ErrorAt(JsonInput.Child(p, "kind"), $"is '{kindText}'; expected one of: {Known(KindNames.OrderBy(k => k.Value).Select(k => k.Key))}");
         LevelOfTheory? level = null;
         if (j.String(c, p, "level_of_theory", required: true) is { } lt)
         {
@@ -353,7 +355,7 @@ public static class BundleReader
             if (geometry is not null && sp is not null)
             {
                 var declaresState = format == FileFormat.QcSchema || (geometry.Charge != 0 || geometry.Multiplicity != 1);
-                if (declaresState && (geometry.Charge != sp.Species.Charge || geometry.Multiplicity != sp.Species.Multiplicity))
+                if (declaresState && sp.Complete && (geometry.Charge != sp.Species.Charge || geometry.Multiplicity != sp.Species.Multiplicity))
                     issues.ErrorAt(JsonInput.Child(p, "file"), $"{display} has charge {geometry.Charge} and multiplicity {geometry.Multiplicity}, " +
                                                                 $"but species '{sp.Species.Label}' has charge {sp.Species.Charge} and multiplicity {sp.Species.Multiplicity}");
             }
@@ -369,7 +371,7 @@ public static class BundleReader
         if (geometry is not null && sp is not null)
         {
             geometry = new Molecule(geometry.Elements, geometry.PositionsAngstrom, sp.Species.Charge, sp.Species.Multiplicity);
-            if (geometry.ElectronCount % 2 == geometry.Multiplicity % 2)
+            if (sp.Complete && geometry.ElectronCount % 2 == geometry.Multiplicity % 2)
                 issues.ErrorAt(JsonInput.Child(sp.Path, "multiplicity"),
                     $"species '{sp.Species.Label}' has {geometry.ElectronCount} electrons (geometry of calculation '{label}') and multiplicity {geometry.Multiplicity}: " +
                     "an even electron count needs an odd multiplicity and vice versa");

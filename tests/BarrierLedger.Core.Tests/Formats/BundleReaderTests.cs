@@ -315,3 +315,19 @@ public class BundleReaderTests
         Assert.Contains(r.Errors, e => e.JsonPath == "$.calculations[1].file" && e.Message.Contains("upload the bundle as a .zip"));
     }
 }
+
+public class BundleCascadeTests
+{
+    [Fact]
+    public void A_species_with_a_bad_charge_is_still_known_to_references()
+    {
+        var json = """
+            {"format":"barrierledger-bundle","format_version":1,"study":{"name":"x"},
+             "species":[{"label":"A","charge":"0","multiplicity":1},{"label":"B","charge":0,"multiplicity":1}],
+             "reactions":[{"label":"R","states":[{"label":"A","kind":"minimum","terms":[{"species":"A"}]},{"label":"B","kind":"minimum","terms":[{"species":"B"}]}]}]}
+            """;
+        var r = BundleReader.Read(FormatTestHelpers.Utf8(json), "b.json");
+        var e = Assert.Single(r.Errors);
+        Assert.Equal("$.species[0].charge", e.JsonPath);
+    }
+}
