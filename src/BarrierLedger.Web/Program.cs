@@ -1,7 +1,9 @@
 using BarrierLedger.Ledger;
+using BarrierLedger.Ledger.Export;
 using BarrierLedger.Web.Api;
 using BarrierLedger.Web.Components;
 using BarrierLedger.Web.Components.Account;
+using BarrierLedger.Web.Endpoints;
 using BarrierLedger.Web.Hosting;
 
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions
@@ -17,6 +19,7 @@ builder.Services.AddLedger(builder.Configuration);
 builder.Services.AddBarrierLedgerAuth();
 builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
 builder.Services.AddBarrierLedgerApi(builder.Configuration);
+builder.Services.AddLedgerExports();
 
 var app = builder.Build();
 
@@ -39,6 +42,7 @@ app.MapStaticAssets().AllowAnonymous();
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 app.MapAccountEndpoints();
 app.MapBarrierLedgerApi();
+app.MapExportEndpoints();
 app.MapGet("/health", () => Results.Ok(new { status = "ok" })).AllowAnonymous();
 
 app.Run();

@@ -11,6 +11,9 @@ namespace BarrierLedger.Cli.Tests;
 
 public class ExportCommandTests
 {
+    /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
+    private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
+
     private static string SeedFolder
     {
         get
@@ -28,7 +31,7 @@ public class ExportCommandTests
         await using var services = LedgerHost.Build(dir).BuildServiceProvider();
         await SqliteSetup.PrepareAsync(services.GetRequiredService<LedgerOptions>(), services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
         var root = SeedFolder;
-        var files = Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Order(StringComparer.Ordinal)
+        var files = Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Where(IsDataFile).Order(StringComparer.Ordinal)
             .Select(p => new UploadFile(Path.GetRelativePath(root, p).Replace('\\', '/'), File.ReadAllBytes(p))).ToList();
         var outcome = await services.GetRequiredService<UploadService>().StoreAsync(files, new UploadChoices(), "test");
         Assert.True(outcome.Stored, string.Join("; ", outcome.Issues));

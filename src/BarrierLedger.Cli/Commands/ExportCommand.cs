@@ -241,6 +241,9 @@ internal static class ExportCommand
 /// <summary>Where the exported numbers come from: an existing ledger folder, or a bundle stored into a temporary ledger.</summary>
 internal sealed class SourceOptions
 {
+    /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
+    private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
+
     public Option<string?> DataDir { get; } = new("--data-dir") { Description = "Ledger data folder (holds barrierledger.db); default ./data" };
     public Option<string?> Bundle { get; } = new("--bundle") { Description = "Export from a bundle instead (a folder with bundle.json, a bundle .json or .zip), stored first into a temporary ledger" };
 
@@ -309,7 +312,7 @@ internal sealed class SourceOptions
         if (Directory.Exists(path))
         {
             var root = Path.GetFullPath(path);
-            files = [.. Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Order(StringComparer.Ordinal)
+            files = [.. Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Where(IsDataFile).Order(StringComparer.Ordinal)
                 .Select(p => new UploadFile(Path.GetRelativePath(root, p).Replace('\\', '/'), File.ReadAllBytes(p)))];
         }
         else if (File.Exists(path))
@@ -317,7 +320,7 @@ internal sealed class SourceOptions
             var root = Path.GetDirectoryName(Path.GetFullPath(path))!;
             files = [new UploadFile(Path.GetFileName(path), File.ReadAllBytes(path))];
             if (path.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
-                files.AddRange(Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Where(p => Path.GetFullPath(p) != Path.GetFullPath(path)).Order(StringComparer.Ordinal)
+                files.AddRange(Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Where(p => Path.GetFullPath(p) != Path.GetFullPath(path) && IsDataFile(p)).Order(StringComparer.Ordinal)
                     .Select(p => new UploadFile(Path.GetRelativePath(root, p).Replace('\\', '/'), File.ReadAllBytes(p))));
         }
         else

@@ -6,6 +6,9 @@ namespace BarrierLedger.Ledger.Tests.Export;
 /// <summary>A temporary ledger holding the committed demo study (seed-data/), stored through the real upload service.</summary>
 internal static class DemoLedger
 {
+    /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
+    private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
+
     public static string SeedFolder
     {
         get
@@ -17,7 +20,7 @@ internal static class DemoLedger
     }
 
     public static IReadOnlyList<UploadFile> Files(string folder) =>
-        [.. Directory.EnumerateFiles(folder, "*", SearchOption.AllDirectories).Order(StringComparer.Ordinal)
+        [.. Directory.EnumerateFiles(folder, "*", SearchOption.AllDirectories).Where(IsDataFile).Order(StringComparer.Ordinal)
             .Select(p => new UploadFile(Path.GetRelativePath(folder, p).Replace('\\', '/'), File.ReadAllBytes(p)))];
 
     public static async Task<(TempLedger Ledger, int StudyId)> CreateAsync(string? dir = null)
