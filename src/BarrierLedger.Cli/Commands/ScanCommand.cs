@@ -69,16 +69,24 @@ internal static class ScanCommand
             var check = ScanCheck.Run(profile);
             if (pr.GetValue(json)) ctx.WriteJson(ToJson(label, profile, check));
             else WriteTable(ctx.Out, label, profile);
-            return WriteScanVerdict(ctx, check, pr.GetValue(json));
+            return WriteScanVerdict(ctx, profile, check, pr.GetValue(json));
         });
         return command;
     }
 
-    /// <summary>Prints the scan verdict (<see cref="ScanCheck"/>) with its reasons; exit 1 only when the check fails.</summary>
-    private static int WriteScanVerdict(CliContext ctx, ScanCheckResult check, bool json)
+    /// <summary>
+    /// Prints the scan verdict (<see cref="ScanCheck"/>) with its reasons. Exit 1 when the check fails or a jump is flagged
+    /// (a discontinuous profile is not usable as it is), else 0.
+    /// </summary>
+    private static int WriteScanVerdict(CliContext ctx, ScanProfile profile, ScanCheckResult check, bool json)
     {
-        if (!json) VerdictOutput.Write(ctx.Out, "Scan check", check.Verdict, check.Reasons);
-        return VerdictOutput.ExitCode(check.Verdict);
+        var jumps = profile.Flags.Count(f => f.Code == ScanFlagCodes.Jump);
+        if (!json)
+        {
+            if (jumps > 0) ctx.Out.WriteLine($"{jumps} point(s) flagged as jumps: the profile is not continuous there.");
+            VerdictOutput.Write(ctx.Out, "Scan check", check.Verdict, check.Reasons);
+        }
+        return jumps > 0 ? ExitCodes.ChecksFailed : VerdictOutput.ExitCode(check.Verdict);
     }
 
     private static double Reference(ScanProfile p) =>
