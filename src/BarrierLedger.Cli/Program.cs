@@ -56,6 +56,7 @@ public static class Program
         root.Subcommands.Add(RateCommand.Create(context));
         root.Subcommands.Add(ScanCommand.Create(context));
         root.Subcommands.Add(ValidateCommand.Create(context));
+        root.Subcommands.Add(PushCommand.Create(context));
         root.Subcommands.Add(DemoCommand.Create(context));
         root.Subcommands.Add(ExportCommand.Create(context));
         root.Subcommands.Add(BackupCommand.Create(context));

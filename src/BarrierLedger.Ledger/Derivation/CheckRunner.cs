@@ -29,8 +29,10 @@ internal static class CheckRunner
     public sealed record Input(int CalculationId, Molecule? Geometry, NormalMode[] Modes, double[] Frequencies, (int A, int B)[] PairsOneBased,
         int? ScanId, IReadOnlyList<ScanPoint>? ScanPoints, ScanCoordinate? ScanCoordinate);
 
-    public static string Fingerprint(Input i, ModelSettings model) => ModelSettings.Hash(string.Join("|", "k1", i.CalculationId, model.CheckFingerprint,
-        string.Join(",", i.PairsOneBased.Select(p => $"{p.A}-{p.B}")), i.ScanId, i.ScanPoints?.Count));
+    /// <summary>What a check depends on: the calculation, the thresholds, the declared pairs and the scan (id and size).</summary>
+    public static string Fingerprint(int calculationId, (int A, int B)[] pairsOneBased, int? scanId, int? scanPointCount, ModelSettings model) =>
+        ModelSettings.Hash(string.Join("|", "k1", calculationId, model.CheckFingerprint,
+            string.Join(",", pairsOneBased.Select(p => $"{p.A}-{p.B}")), scanId, scanPointCount));
 
     public static (Verdict Verdict, string ReasonsJson, string EvidenceJson) Run(Input i, ModelSettings model)
     {

@@ -76,8 +76,7 @@ public sealed class DerivationService(TimeProvider time)
         {
             var pairs = s.Pairs.Select(p => (p.AtomA, p.AtomB)).ToArray();
             scans.TryGetValue(s.SpeciesId, out var scanInfo);
-            var fingerprint = ModelSettings.Hash(string.Join("|", "k1", s.CalcId, model.CheckFingerprint,
-                string.Join(",", pairs.Select(p => $"{p.AtomA}-{p.AtomB}")), scanInfo?.Id, scanInfo?.Count));
+            var fingerprint = CheckRunner.Fingerprint(s.CalcId, pairs, scanInfo?.Id, scanInfo?.Count, model);
             stored.TryGetValue(s.CalcId, out var existing);
             if (!force && existing is not null && existing.InputFingerprint == fingerprint) continue;
 

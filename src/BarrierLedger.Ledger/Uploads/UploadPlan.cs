@@ -206,6 +206,8 @@ internal sealed class UploadPlan
                     else
                     {
                         if (c.Kind != CalculationKind.SaddlePoint) plan.Error(primary, $"{where}, state '{s.Label}': calculation '{c.Label}' is a {c.Kind}, not a saddle point");
+                        if (!s.Terms.Any(t => t.Species == c.Species))
+                            plan.Error(primary, $"{where}, state '{s.Label}': calculation '{c.Label}' is of species '{c.Species}', which is not in this state");
                         var n = c.Geometry?.AtomCount ?? 0;
                         foreach (var (a, b) in s.ReactionCoordinate)
                             if (a < 1 || b < 1 || a > n || b > n || a == b)

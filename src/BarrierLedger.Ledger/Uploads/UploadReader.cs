@@ -38,8 +38,16 @@ public static class UploadReader
         var consumed = new HashSet<string>(StringComparer.Ordinal);
         foreach (var (f, format) in formats.Where(x => x.Value is FileFormat.Bundle or FileFormat.BundleZip))
             consumed.UnionWith(BundleImport.Read(f, files, limits, draft));
+        var hasBundle = formats.Values.Any(v => v is FileFormat.Bundle or FileFormat.BundleZip);
         foreach (var (f, format) in formats.Where(x => x.Value is not (FileFormat.Bundle or FileFormat.BundleZip) && !consumed.Contains(x.Key.FileName)))
         {
+            if (hasBundle && format == FileFormat.Unknown)
+            {
+                // A note beside a bundle (a README) is not data: say so, do not store it, do not refuse the upload.
+                draft.Files.Remove(f.FileName);
+                draft.Issues.Add(new UploadIssue(f.FileName, null, null, "not named by the bundle and not a data file; not read and not stored", IsError: false));
+                continue;
+            }
             if (format == FileFormat.Xyz) ReadXyz(f, choices, limits, draft);
             else SingleFileFormats.Read(f, format, choices, limits, draft);
         }

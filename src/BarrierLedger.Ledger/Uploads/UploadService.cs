@@ -162,6 +162,7 @@ public sealed class UploadService(
         // Reactions: new ones with their states; existing ones get their saddle points re-linked (which reopens reviews).
         var reactionIds = new List<int>();
         var reopened = new List<int>();
+        var newReactions = new List<Reaction>(plan.NewReactions.Count);
         foreach (var r in plan.NewReactions)
         {
             var reaction = new Reaction { StudyId = study.Id, Label = r.Label, Description = r.Description, OwnerUserId = user };
@@ -177,7 +178,11 @@ public sealed class UploadService(
                 });
             }
             db.Reactions.Add(reaction);
-            await db.SaveChangesAsync(ct);
+            newReactions.Add(reaction);
+        }
+        if (newReactions.Count > 0) await db.SaveChangesAsync(ct);
+        foreach (var reaction in newReactions)
+        {
             audit.Record(db, user, "reaction.created", nameof(Reaction), reaction.Id, $"Reaction '{reaction.Label}' with {reaction.States.Count} states.");
             reactionIds.Add(reaction.Id);
         }
@@ -211,10 +216,12 @@ public sealed class UploadService(
         audit.Record(db, user, "upload.stored", nameof(Upload), upload.Id, upload.Summary);
         await db.SaveChangesAsync(ct);
 
-        // Derived values follow the stored inputs in the same transaction.
+        // Derived values follow the stored inputs in the same transaction (with an empty change tracker: a large upload
+        // would otherwise make every later save scan all it wrote).
         var newCalcIds = plan.NewCalculations.Select(c => calcByLabel[c.Draft.Label].Id).ToList();
         var touchedSpecies = plan.NewCalculations.Select(c => speciesByLabel[c.Draft.Species].Id)
             .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Distinct().ToList();
+        db.ChangeTracker.Clear();
         await derivation.AfterInputsChangedAsync(db, study.Id, touchedSpecies, reactionIds, ct);
 
         return new UploadOutcome(true, upload.Id, study.Id, newCalcIds, reactionIds, scanIds,

@@ -3,6 +3,7 @@ using System.Security.Claims;
 using System.Text.Json.Serialization;
 using System.Threading.RateLimiting;
 using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Export;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Authentication.Cookies;
 using Microsoft.AspNetCore.Identity;
@@ -28,6 +29,7 @@ public static class ApiExtensions
         configuration.GetSection(ApiOptions.SectionName).Bind(options);
         services.AddSingleton(options);
         services.AddSingleton<AccessTokenService>();
+        if (!services.Any(d => d.ServiceType == typeof(ExportService))) services.AddLedgerExports();
 
         services.AddAuthentication()
             .AddScheme<AuthenticationSchemeOptions, AccessTokenAuthenticationHandler>(AccessTokenAuthenticationHandler.SchemeName, null);
@@ -95,6 +97,7 @@ public static class ApiExtensions
             .WithSummary("The account, roles and scope this token acts with");
         UploadEndpoints.Map(api, options);
         LedgerEndpoints.Map(api);
+        ExportApiEndpoints.Map(api);
 
         endpoints.MapFallback("/api/{**rest}", (HttpContext c) => ApiProblems.NotFound($"No API endpoint at {c.Request.Method} {c.Request.Path}; see {Prefix}/openapi.json."))
             .AllowAnonymous().ExcludeFromDescription();

@@ -104,6 +104,27 @@ public sealed class WorkflowTests
     }
 
     [Fact]
+    public async Task ThresholdChange_RerunsTheFrequencyCheck()
+    {
+        await using var ledger = await TempLedger.CreateAsync();
+        var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
+        var studyId = stored.StudyId!.Value;
+        Assert.Equal(Verdict.Passed, Assert.Single((await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId)).Rows).Verdict);
+
+        // With a 2000i cm⁻¹ threshold the 1500i mode is no longer significant: the check must now fail, saying so.
+        var models = ledger.Get<EnergyModelService>();
+        var m = await models.GetGroupDefaultAsync();
+        Assert.True((await models.SaveGroupDefaultAsync(m.Settings with { SignificantImaginaryCm1 = 2000 }, m.Version, "admin")).Saved);
+        await ledger.Get<RecomputeService>().WhenIdleAsync();
+        Assert.Equal(1, ledger.Get<RecomputeService>().Current.ChecksRun);
+        var detail = (await ledger.Get<ReactionQueryService>().GetReactionAsync(stored.ReactionIds.Single()))!;
+        var check = Assert.Single(detail.SaddleChecks);
+        Assert.Equal(Verdict.Failed, check.Verdict);
+        Assert.False(check.CheckStale);
+        Assert.Contains(check.Reasons, r => r.Code == SaddleCheckCodes.NoSignificantImaginaryMode);
+    }
+
+    [Fact]
     public async Task ConflictingEdits_SecondEditorIsToldAndNothingIsOverwritten()
     {
         await using var ledger = await TempLedger.CreateAsync();

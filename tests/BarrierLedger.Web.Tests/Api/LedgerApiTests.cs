@@ -84,4 +84,33 @@ public sealed class LedgerApiTests
             Assert.Equal(saddleId, review.CalculationId);
         }
     }
+
+    [Fact]
+    public async Task Exports_OverTheApi_AreTheSameBytesAsTheExportService()
+    {
+        await using var host = new ApiTestHost();
+        var user = await host.CreateUserAsync("mira", Roles.Member);
+        using var uploader = host.Client(await host.CreateTokenAsync(user, TokenScopes.Upload));
+        var (studyId, reactionId, _) = await StoreBundleAsync(host, uploader);
+        using var reader = host.Client(await host.CreateTokenAsync(user, TokenScopes.Read));
+        var exports = host.Get<BarrierLedger.Ledger.Export.ExportService>();
+
+        var csv = await reader.GetAsync($"/api/v1/studies/{studyId}/exports/table?format=csv");
+        Assert.Equal(HttpStatusCode.OK, csv.StatusCode);
+        var expected = await exports.TableAsync(studyId, null, BarrierLedger.Ledger.Export.TableFormat.Csv, BarrierLedger.Ledger.Export.TableOptions.Default);
+        Assert.Equal(expected.Content, await csv.Content.ReadAsByteArrayAsync());
+        Assert.Equal(expected.FileName, csv.Content.Headers.ContentDisposition?.FileName?.Trim('"'));
+
+        var svg = await reader.GetAsync($"/api/v1/reactions/{reactionId}/exports/diagram?format=svg&quantity=E");
+        Assert.Equal(HttpStatusCode.OK, svg.StatusCode);
+        Assert.Equal("image/svg+xml", svg.Content.Headers.ContentType?.MediaType);
+        Assert.Contains("<svg", await svg.Content.ReadAsStringAsync());
+
+        var coordinates = await reader.GetAsync($"/api/v1/studies/{studyId}/exports/coordinates");
+        Assert.Equal(HttpStatusCode.OK, coordinates.StatusCode);
+        Assert.Equal((await exports.SupportingInfoTextAsync(studyId)).Content, await coordinates.Content.ReadAsByteArrayAsync());
+
+        await ProblemAssert.IsProblemAsync(await reader.GetAsync("/api/v1/studies/9999/exports/table"), HttpStatusCode.NotFound, "not-found");
+        await ProblemAssert.IsProblemAsync(await reader.GetAsync($"/api/v1/studies/{studyId}/exports/table?format=pdf"), HttpStatusCode.BadRequest, "bad-request");
+    }
 }
