@@ -51,12 +51,17 @@ public sealed record LevelOfTheory(string Method, string Basis, string Solvation
         error = "";
         var t = text.Trim();
         if (t.Length == 0) { error = "empty method"; return false; }
+        // Solvation is a trailing "(...)" group set off by a space: "method/basis (PCM, water)". Parentheses inside
+        // the method or basis ("CCSD(T)", "6-31G(d)") are not set off by a space and stay where they are.
         var solvation = "";
-        var open = t.IndexOf('(');
-        if (open >= 0 && t.EndsWith(')'))
+        if (t.EndsWith(')'))
         {
-            solvation = t[(open + 1)..^1].Trim();
-            t = t[..open].Trim();
+            var open = OpeningParenthesis(t);
+            if (open > 0 && char.IsWhiteSpace(t[open - 1]))
+            {
+                solvation = t[(open + 1)..^1].Trim();
+                t = t[..open].Trim();
+            }
         }
         var slash = t.IndexOf('/');
         var method = slash >= 0 ? t[..slash].Trim() : t;
@@ -64,5 +69,17 @@ public sealed record LevelOfTheory(string Method, string Basis, string Solvation
         if (method.Length == 0) { error = $"no method before '/' in '{text}'"; return false; }
         level = new LevelOfTheory(method, basis, solvation);
         return true;
+    }
+
+    /// <summary>Index of the "(" that matches the final ")", or −1.</summary>
+    private static int OpeningParenthesis(string t)
+    {
+        var depth = 0;
+        for (var i = t.Length - 1; i >= 0; i--)
+        {
+            if (t[i] == ')') depth++;
+            else if (t[i] == '(' && --depth == 0) return i;
+        }
+        return -1;
     }
 }

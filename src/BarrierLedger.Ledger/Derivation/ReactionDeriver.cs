@@ -33,7 +33,11 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
     private readonly Dictionary<(int CalcId, int Sigma), ThermalCorrection?> _thermo = [];
     private readonly Dictionary<string, Formula> _formulas = new(StringComparer.Ordinal);
     private readonly Dictionary<string, LevelOfTheory> _levels = new(StringComparer.Ordinal);
-    private readonly string _energyKey = EnergyLevels.Key(model.EnergyLevel);
+    // "A//B" in the model means energies at A on geometries from B: calculations store A as their energy level and B
+    // as their geometry level, so both parts are matched, each on its own.
+    private readonly string _energyKey = EnergyLevels.Key(model.EnergyLevel.Split("//", 2)[0]);
+    private readonly string _energyGeometryKey = model.EnergyLevel.Contains("//", StringComparison.Ordinal)
+        ? EnergyLevels.Key(model.EnergyLevel.Split("//", 2)[1]) : "";
     private readonly string _thermalKey = EnergyLevels.Key(model.ThermalLevel);
     private readonly ThermoOptions _thermoOptions = model.ThermoOptions(1);
 
@@ -143,6 +147,9 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
 
     private (SpeciesRecord? Record, CalcInput? Energy, CalcInput? Thermal) Species(SpeciesInput sp, int? preferredCalcId, List<ConsistencyReason> reasons, string state)
     {
+        // The state's saddle calculation is preferred only for its own species: in "TS1 + fluoride" it says nothing about
+        // fluoride, whose record must then be the same instance as in every other state.
+        if (preferredCalcId is { } pid && (!inputs.Calculations.TryGetValue(pid, out var pc) || pc.SpeciesId != sp.Id)) preferredCalcId = null;
         if (!_records.TryGetValue((sp.Id, preferredCalcId), out var entry))
         {
             var own = new List<ConsistencyReason>();
@@ -160,7 +167,8 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
 
         CalcInput? energy;
         if (_energyKey.Length > 0)
-            energy = calcs.Where(c => c.EnergyHartree is not null && c.EnergyKey == _energyKey && c.Kind != CalculationKind.RelaxedScan)
+            energy = calcs.Where(c => c.EnergyHartree is not null && c.EnergyKey == _energyKey && c.Kind != CalculationKind.RelaxedScan
+                                      && (_energyGeometryKey.Length == 0 || EnergyLevels.Key(c.GeometryKey) == _energyGeometryKey))
                 .OrderByDescending(c => preferred is not null && c.Id == preferred.Id).ThenByDescending(c => c.Id).FirstOrDefault();
         else
             energy = preferred is { EnergyHartree: not null } ? preferred

@@ -1,4 +1,8 @@
+using BarrierLedger.Core.Demo;
+using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Uploads;
 using Microsoft.AspNetCore.Identity;
 
@@ -30,9 +34,14 @@ public static class DemoAccounts
 public sealed class DemoSetup(
     UserManager<LedgerUser> users,
     UploadService uploads,
+    EnergyModelService models,
+    RecomputeService recompute,
+    LedgerQueryService ledger,
     DemoOptions options,
     ILogger<DemoSetup> log)
 {
+    private static readonly HashSet<string> s_dataExtensions = new(StringComparer.OrdinalIgnoreCase) { ".json", ".xyz", ".extxyz", ".csv", ".zip" };
+
     public async Task LoadIfEmptyAsync(bool storeWasEmpty, CancellationToken ct = default)
     {
         if (!options.LoadDemo || !storeWasEmpty) return;
@@ -46,17 +55,36 @@ public sealed class DemoSetup(
         await EnsureUserAsync(DemoAccounts.ReviewerUserName, "Demo Reviewer", DemoAccounts.ReviewerPassword, [Roles.Member, Roles.Reviewer]);
 
         var files = Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories)
-            .Where(f => !Path.GetFileName(f).StartsWith('.'))
+            .Where(f => !Path.GetFileName(f).StartsWith('.') && s_dataExtensions.Contains(Path.GetExtension(f)))
             .Order(StringComparer.Ordinal)
             .Select(f => new UploadFile(Path.GetRelativePath(dir, f).Replace('\\', '/'), File.ReadAllBytes(f)))
             .ToList();
         var outcome = await uploads.StoreAsync(files, new UploadChoices(), member.Id, ct);
-        if (outcome.Stored)
-            log.LogInformation("Loaded the demo study ({Calcs} calculations, {Reactions} reactions) from {Dir}.",
-                outcome.CalculationIds.Count, outcome.ReactionIds.Count, dir);
-        else
+        if (!outcome.Stored || outcome.StudyId is not { } studyId)
+        {
             log.LogError("The demo files in {Dir} could not be stored: {Errors}", dir, string.Join("; ", outcome.Errors));
+            return;
+        }
+        // The demo's stated protocol: single-point energies on optimised geometries, thermal corrections from the
+        // frequency calculations. Without it each state would use its own calculations and mix levels.
+        var current = await models.GetForStudyAsync(studyId, ct);
+        var protocol = current.Settings with
+        {
+            EnergyLevel = DemoScenario.SinglePointLevel,
+            ThermalLevel = DemoScenario.GeometryLevel,
+            StandardState = StandardState.Solution1Molar,
+        };
+        var saved = await models.SaveStudyOverrideAsync(studyId, protocol, 0, member.Id, ct);
+        if (!saved.Saved) log.LogWarning("Demo energy model not set: {Why}", saved.Conflict ?? string.Join("; ", saved.Errors));
+        await recompute.WhenIdleAsync();
+        log.LogInformation("Loaded the demo study ({Calcs} calculations, {Reactions} reactions) from {Dir}.",
+            outcome.CalculationIds.Count, outcome.ReactionIds.Count, dir);
     }
+
+    /// <summary>True while the demo study is in the ledger (not retired): then the sign-in page shows the demo accounts.</summary>
+    public async Task<bool> IsDemoLoadedAsync(CancellationToken ct = default) =>
+        options.LoadDemo && (await ledger.GetStudiesAsync(includeRetired: false, ct)).Any(s => s.Name == DemoScenario.StudyName)
+        && await users.FindByNameAsync(DemoAccounts.MemberUserName) is not null;
 
     private async Task<LedgerUser> EnsureUserAsync(string userName, string displayName, string password, string[] roles)
     {

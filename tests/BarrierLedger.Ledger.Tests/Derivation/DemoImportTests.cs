@@ -1,0 +1,62 @@
+using BarrierLedger.Core.Demo;
+using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.Queries;
+using BarrierLedger.Ledger.Tests.Support;
+using BarrierLedger.Ledger.Uploads;
+
+namespace BarrierLedger.Ledger.Tests.Derivation;
+
+/// <summary>
+/// The committed demo study, stored through the upload workflow and derived under its stated protocol
+/// (single-point energies, thermal corrections from the frequency calculations). The energies are invented;
+/// what is checked is that the ledger combines them as a chemist would.
+/// </summary>
+public sealed class DemoImportTests
+{
+    [Fact]
+    public async Task DemoStudy_UnderItsProtocol_GivesSaneBarriers_AndFlagsOnlyTheMixedLevelReaction()
+    {
+        await using var ledger = await TempLedger.CreateAsync();
+        var dir = FindSeedData();
+        var files = Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories).Where(f => !f.EndsWith(".md", StringComparison.Ordinal)).Order(StringComparer.Ordinal)
+            .Select(f => new UploadFile(Path.GetRelativePath(dir, f).Replace('\\', '/'), File.ReadAllBytes(f))).ToList();
+        var outcome = await ledger.Get<UploadService>().StoreAsync(files, new UploadChoices(), "member-1");
+        Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
+        var studyId = outcome.StudyId!.Value;
+
+        var models = ledger.Get<EnergyModelService>();
+        var settings = (await models.GetForStudyAsync(studyId)).Settings with
+        {
+            EnergyLevel = DemoScenario.SinglePointLevel,
+            ThermalLevel = DemoScenario.GeometryLevel,
+        };
+        Assert.True((await models.SaveStudyOverrideAsync(studyId, settings, 0, "member-1")).Saved);
+        await ledger.Get<RecomputeService>().WhenIdleAsync();
+
+        var page = await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId);
+        var rows = page.Rows.ToDictionary(r => r.Label);
+        Assert.Equal(6, rows.Count);
+        // A two-step pathway whose spectator species (fluoride, iodide, chloride) must each keep their own energy:
+        // before the fix the saddle point's energy was used for every species of its state (a barrier of −697 Eh).
+        Assert.True(rows["IX"].Consistent, string.Join(" ", rows["IX"].ConsistencyReasons.Select(r => r.Message)));
+        foreach (var label in new[] { "DA", "MT", "IX", "HF", "CB" })
+        {
+            var row = rows[label];
+            Assert.True(row.Consistent, $"{label}: {string.Join(" ", row.ConsistencyReasons.Select(r => r.Message))}");
+            var barrier = row.BarrierGibbs!.Value.KcalPerMol;
+            // Molecular barriers of reactions that happen at all lie between 0 and ~60 kcal/mol (common practice, no source).
+            Assert.InRange(barrier, 0.0, 60.0);
+        }
+        // KE mixes a geometry protocol on purpose (vinyl alcohol at another level): it must be marked, never silently used.
+        Assert.False(rows["KE"].Consistent);
+        Assert.NotEmpty(rows["KE"].ConsistencyReasons);
+    }
+
+    private static string FindSeedData()
+    {
+        for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
+            if (File.Exists(Path.Combine(d.FullName, "seed-data", "bundle.json"))) return Path.Combine(d.FullName, "seed-data");
+        throw new DirectoryNotFoundException("seed-data/bundle.json not found above " + AppContext.BaseDirectory);
+    }
+}
