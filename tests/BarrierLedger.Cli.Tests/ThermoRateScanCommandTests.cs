@@ -139,13 +139,13 @@ public class ScanCommandTests
     }
 
     [Fact]
-    public void Jump_is_flagged_and_the_scan_needs_attention_without_failing()
+    public void Jump_is_flagged_and_exits_1()
     {
         using var dir = new TempDir();
         var f = dir.Write("scan.csv", Profile(x => x > 2.05 && x < 2.15 ? 10 - 40 * (x - 2.0) * (x - 2.0) + 8 : 10 - 40 * (x - 2.0) * (x - 2.0)));
         var (code, output, _) = CliRunner.Run("scan", f);
-        // ScanCheck: every flag makes the verdict "Needs attention" (exit 0); only a scan without a profile fails (exit 1).
-        Assert.Equal(0, code);
+        // A flagged jump means the profile is not continuous: the scan command exits 1 (checks failed) and prints the verdict.
+        Assert.Equal(1, code);
         Assert.Contains("scan.jump", output);
         Assert.Contains("Needs attention", output);
     }
