@@ -9,7 +9,7 @@ namespace BarrierLedger.Cli.Commands;
 
 /// <summary>
 /// <c>barrierledger scan FILE</c>: the points of a relaxed scan (CSV table or a bundle scan), the interpolated maxima and
-/// flagged points (jumps, non-converged points, irregular steps). Exit 1 when a jump is flagged.
+/// flagged points (jumps, non-converged points, irregular steps), with the scan verdict.
 /// </summary>
 internal static class ScanCommand
 {

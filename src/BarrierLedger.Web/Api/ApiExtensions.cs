@@ -3,7 +3,6 @@ using System.Security.Claims;
 using System.Text.Json.Serialization;
 using System.Threading.RateLimiting;
 using BarrierLedger.Ledger.Accounts;
-using BarrierLedger.Ledger.Export;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Authentication.Cookies;
 using Microsoft.AspNetCore.Identity;
@@ -29,7 +28,6 @@ public static class ApiExtensions
         configuration.GetSection(ApiOptions.SectionName).Bind(options);
         services.AddSingleton(options);
         services.AddSingleton<AccessTokenService>();
-        if (!services.Any(d => d.ServiceType == typeof(ExportService))) services.AddLedgerExports();
 
         services.AddAuthentication()
             .AddScheme<AuthenticationSchemeOptions, AccessTokenAuthenticationHandler>(AccessTokenAuthenticationHandler.SchemeName, null);
