@@ -422,6 +422,10 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
 
+                    b.Property<string>("CheckVerdict")
+                        .HasMaxLength(20)
+                        .HasColumnType("character varying(20)");
+
                     b.Property<string>("Description")
                         .IsRequired()
                         .HasColumnType("text")
@@ -450,6 +454,13 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<string>("RetiredByUserId")
                         .HasColumnType("text")
                         .UseCollation("C");
+
+                    b.Property<string>("ReviewStatus")
+                        .HasMaxLength(20)
+                        .HasColumnType("character varying(20)");
+
+                    b.Property<int?>("SaddlePointCount")
+                        .HasColumnType("integer");
 
                     b.Property<int>("StudyId")
                         .HasColumnType("integer");

@@ -264,7 +264,10 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     Retired = table.Column<bool>(type: "boolean", nullable: false),
                     RetiredAt = table.Column<DateTimeOffset>(type: "timestamp with time zone", nullable: true),
                     RetiredByUserId = table.Column<string>(type: "text", nullable: true, collation: "C"),
-                    Version = table.Column<long>(type: "bigint", nullable: false)
+                    Version = table.Column<long>(type: "bigint", nullable: false),
+                    SaddlePointCount = table.Column<int>(type: "integer", nullable: true),
+                    CheckVerdict = table.Column<string>(type: "character varying(20)", maxLength: 20, nullable: true),
+                    ReviewStatus = table.Column<string>(type: "character varying(20)", maxLength: 20, nullable: true)
                 },
                 constraints: table =>
                 {
