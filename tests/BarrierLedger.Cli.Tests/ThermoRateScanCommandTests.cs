@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Text;
 using System.Text.Json;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Vibrations;
@@ -182,5 +183,52 @@ public class RateTunnellingTests
             BarrierLedger.Core.Units.Energy.FromKcalPerMol(25), 298.15);
         Assert.Equal(kappa, j.GetProperty("kappa").GetDouble(), 12);
         Assert.True(kappa > 1, "tunnelling must speed the reaction up");
+    }
+}
+
+public class ScanFromXyzTests
+{
+    [Fact]
+    public void Multi_frame_xyz_with_atoms_finds_the_analytic_maximum_and_prints_each_flag_once()
+    {
+        using var dir = new TempDir();
+        // E(r) = −1 + 0.016 (1 − 40 (r − 1.0)²) hartree over r = 0.8 … 1.2 Å: maximum at r = 1.0 Å (calculus).
+        var sb = new StringBuilder();
+        for (var i = 0; i <= 10; i++)
+        {
+            var r = 0.8 + 0.04 * i;
+            var e = -1 + 0.016 * (1 - 40 * (r - 1.0) * (r - 1.0));
+            sb.Append(string.Create(CultureInfo.InvariantCulture, $"2\nenergy={e:R}{(i == 9 ? " converged=no" : "")}\nH 0 0 0\nH 0 0 {r:R}\n"));
+        }
+        var f = dir.Write("stretch.xyz", sb.ToString());
+        var (code, output, err) = CliRunner.Run("scan", "--atoms", "1,2", "--json", f);
+        Assert.True(code == 0, err);
+        using var doc = JsonDocument.Parse(output);
+        var max = Assert.Single(doc.RootElement.GetProperty("maxima").EnumerateArray());
+        Assert.Equal(1.0, max.GetProperty("coordinate").GetDouble(), 1e-3);
+        Assert.Equal("distance", doc.RootElement.GetProperty("coordinate_kind").GetString());
+        Assert.False(doc.RootElement.GetProperty("points")[9].GetProperty("converged").GetBoolean());
+
+        var (_, table, _) = CliRunner.Run("scan", "--atoms", "1,2", f);
+        // The non-converged point's message appears once (as a reason of the scan check), not also under the table.
+        var message = "Point 10 (1.160 Å) did not converge";
+        Assert.Equal(1, CountOf(table, message));
+    }
+
+    [Fact]
+    public void Multi_frame_xyz_without_atoms_is_a_usage_error_that_says_what_to_add()
+    {
+        using var dir = new TempDir();
+        var f = dir.Write("stretch.xyz", "2\nenergy=-1.0\nH 0 0 0\nH 0 0 0.8\n2\nenergy=-0.9\nH 0 0 0\nH 0 0 0.9\n");
+        var (code, _, err) = CliRunner.Run("scan", f);
+        Assert.Equal(2, code);
+        Assert.Contains("--atoms", err);
+    }
+
+    private static int CountOf(string text, string part)
+    {
+        var n = 0;
+        for (var i = text.IndexOf(part, StringComparison.Ordinal); i >= 0; i = text.IndexOf(part, i + 1, StringComparison.Ordinal)) n++;
+        return n;
     }
 }

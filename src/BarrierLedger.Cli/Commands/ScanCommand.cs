@@ -15,12 +15,16 @@ internal static class ScanCommand
 {
     public static Command Create(CliContext ctx)
     {
-        var file = new Argument<string>("file") { Description = "CSV scan table, or a bundle (.json or .zip) holding scans" };
+        var file = new Argument<string>("file") { Description = "CSV scan table, a multi-frame XYZ file with an energy on each frame, or a bundle (.json or .zip) holding scans" };
         CommonOptions.RejectUnknownOptions(file);
         var scanLabel = new Option<string?>("--scan") { Description = "Label of the scan when FILE is a bundle with several" };
         var unit = new Option<string?>("--energy-unit") { Description = "Unit of a CSV table's energies when its header does not say (default hartree)" };
+        var atoms = new Option<string?>("--atoms")
+        {
+            Description = "For a multi-frame XYZ file: the scanned coordinate as 1-based atom numbers, 2 for a distance (Å), 3 for an angle, 4 for a dihedral (°), e.g. 1,6",
+        };
         var json = CommonOptions.Json();
-        var command = new Command("scan", "Relaxed-scan profile: points, interpolated maxima and flagged points.") { file, scanLabel, unit, json };
+        var command = new Command("scan", "Relaxed-scan profile: points, interpolated maxima and flagged points.") { file, scanLabel, unit, atoms, json };
         command.SetAction(pr =>
         {
             EnergyUnit? energyUnit = null;
@@ -55,8 +59,19 @@ internal static class ScanCommand
                     coordinate = scans[0].Coordinate;
                     label = scans[0].Label;
                     break;
+                case XyzDocument d:
+                    var atomList = pr.GetValue(atoms) ?? throw new UsageException(
+                        $"{label} is an XYZ file: say which coordinate was scanned with --atoms, e.g. --atoms 1,6 for the distance between atoms 1 and 6");
+                    coordinate = ParseAtoms(atomList);
+                    if (!XyzScan.TryBuild(d, coordinate, label, out var fromFrames, out var problem))
+                    {
+                        ctx.Err.WriteLine($"barrierledger: {problem}");
+                        return ExitCodes.Unreadable;
+                    }
+                    points = fromFrames;
+                    break;
                 default:
-                    ctx.Err.WriteLine($"barrierledger: {label} is not a scan; expected a CSV scan table or a bundle with scans");
+                    ctx.Err.WriteLine($"barrierledger: {label} is not a scan; expected a CSV scan table, a multi-frame XYZ file or a bundle with scans");
                     return ExitCodes.Unreadable;
             }
             ScanProfile profile;
@@ -145,6 +160,28 @@ internal static class ScanCommand
         foreach (var m in p.Maxima)
             o.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"Maximum at {m.Coordinate:F4} {p.Unit}: {m.Energy.Hartree:F8} Eh, {Energy.FromHartree(m.Energy.Hartree - e0).KcalPerMol:F3} kcal/mol above the lowest point (nearest point {m.NearestPointIndex + 1})"));
-        foreach (var f in p.Flags) o.WriteLine($"Point {f.PointIndex + 1}: [{f.Code}] {f.Message}");
+        // Each flag's message is printed once, as a reason of the scan check that follows the table.
+    }
+
+    /// <summary>Parses "1,6" (distance), "1,2,3" (angle) or "1,2,3,4" (dihedral), 1-based, into a 0-based coordinate.</summary>
+    internal static ScanCoordinate ParseAtoms(string text)
+    {
+        var parts = text.Split([',', '-', ' '], StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+        var kind = parts.Length switch
+        {
+            2 => ScanCoordinateKind.Distance,
+            3 => ScanCoordinateKind.Angle,
+            4 => ScanCoordinateKind.Dihedral,
+            _ => throw new UsageException($"--atoms '{text}' names {parts.Length} atom(s); expected 2 (distance), 3 (angle) or 4 (dihedral), e.g. 1,6"),
+        };
+        var list = new List<int>();
+        foreach (var part in parts)
+        {
+            if (!int.TryParse(part, NumberStyles.None, CultureInfo.InvariantCulture, out var n) || n < 1)
+                throw new UsageException($"--atoms '{text}': '{part}' is not an atom number; expected 1-based whole numbers such as 1,6");
+            if (list.Contains(n - 1)) throw new UsageException($"--atoms '{text}' names atom {n} twice");
+            list.Add(n - 1);
+        }
+        return new ScanCoordinate(kind, list);
     }
 }

@@ -89,7 +89,8 @@ public static class PathwayEnergies
         var t = thermo.TemperatureKelvin;
         var extra = new List<CheckReason>();
 
-        var resolved = new Dictionary<SpeciesRecord, SpeciesRecord>(ReferenceEqualityComparer.Instance);
+        // Keyed by record equality, the same equality Distinct uses: equal records built separately resolve to one entry.
+        var resolved = new Dictionary<SpeciesRecord, SpeciesRecord>();
         foreach (var sp in pathway.States.SelectMany(s => s.Terms).Select(x => x.Species).Distinct())
             resolved[sp] = sp with { Thermal = Resolve(sp, m, thermo, extra) };
         var used = pathway with

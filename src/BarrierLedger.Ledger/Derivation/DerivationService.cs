@@ -37,6 +37,8 @@ public sealed class DerivationService(TimeProvider time)
         var inputs = await DerivationInputs.LoadAsync(db, null, affected, ct);
         var deriver = new ReactionDeriver(model, inputs);
         await WriteAsync(db, [.. inputs.Reactions.Select(deriver.Derive)], ct);
+        // New reactions and re-linked saddle points (with their reopened reviews) change the ledger status.
+        await ReactionStatusSummary.RefreshAsync(db, affected, ct);
     }
 
     /// <summary>Marks reactions' derived values out of date (their inputs changed).</summary>
@@ -71,7 +73,7 @@ public sealed class DerivationService(TimeProvider time)
             .GroupBy(s => s.SpeciesId).ToDictionary(g => g.Key, g => g.OrderByDescending(s => s.Id).First());
         var stored = await db.FrequencyChecks.Where(c => calcIds.Contains(c.CalculationId)).ToDictionaryAsync(c => c.CalculationId, ct);
 
-        var run = 0;
+        var rerun = new List<int>();
         foreach (var s in byCalc)
         {
             var pairs = s.Pairs.Select(p => (p.AtomA, p.AtomB)).ToArray();
@@ -102,10 +104,11 @@ public sealed class DerivationService(TimeProvider time)
             existing.EvidenceJson = evidence;
             existing.InputFingerprint = fingerprint;
             existing.ComputedAt = time.GetUtcNow();
-            run++;
+            rerun.Add(s.CalcId);
         }
         await db.SaveChangesAsync(ct);
-        return run;
+        await ReactionStatusSummary.RefreshForCalculationsAsync(db, rerun, ct);
+        return rerun.Count;
     }
 
     /// <summary>Derives the given reactions (or every live reaction of the studies) and stores the results.</summary>

@@ -141,8 +141,8 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
         return f.Length > 0 && f.Min() < 0 ? f.Min() : null;
     }
 
-    // One record instance per species and preferred calculation: Core's pathway code matches species by reference after
-    // de-duplicating them by value, so equal records must be the same instance.
+    // One record instance per species and preferred calculation, built once: a species shared by several states (a
+    // catalyst, a spectator) is resolved once and reports its reasons once per state.
     private readonly Dictionary<(int, int?), (SpeciesRecord?, CalcInput?, CalcInput?, List<ConsistencyReason>)> _records = [];
 
     private (SpeciesRecord? Record, CalcInput? Energy, CalcInput? Thermal) Species(SpeciesInput sp, int? preferredCalcId, List<ConsistencyReason> reasons, string state)

@@ -373,6 +373,10 @@ namespace BarrierLedger.Ledger.Migrations
                         .ValueGeneratedOnAdd()
                         .HasColumnType("INTEGER");
 
+                    b.Property<string>("CheckVerdict")
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("Description")
                         .IsRequired()
                         .HasColumnType("TEXT");
@@ -397,6 +401,13 @@ namespace BarrierLedger.Ledger.Migrations
 
                     b.Property<string>("RetiredByUserId")
                         .HasColumnType("TEXT");
+
+                    b.Property<string>("ReviewStatus")
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int?>("SaddlePointCount")
+                        .HasColumnType("INTEGER");
 
                     b.Property<int>("StudyId")
                         .HasColumnType("INTEGER");

@@ -68,9 +68,16 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
         var q = db.Reactions.AsNoTracking().Where(r => r.StudyId == studyId);
         if (!filter.IncludeRetired) q = q.Where(r => !r.Retired);
         if (filter.OwnerUserId is { } owner) q = q.Where(r => r.OwnerUserId == owner);
+        // The status filters go to the store; a reaction whose summary was never computed (SaddlePointCount null: stored
+        // before the summary existed) is read too and filtered below once its status is known.
+        if (filter.ReviewStatus is { } wanted) q = q.Where(r => r.SaddlePointCount == null || r.ReviewStatus == wanted);
+        if (filter.Verdict is { } verdict) q = q.Where(r => r.SaddlePointCount == null || r.CheckVerdict == verdict);
+        // One projected query over the reaction, its derivation row and its owner: the check and review status were summarised
+        // onto the reaction when they last changed (ReactionStatusSummary), so no state, check or review row is read here.
         var raw = await q.OrderBy(r => r.Label).Select(r => new
         {
             r.Id, r.Label, r.Description, r.OwnerUserId, r.Retired, r.Version, r.InputsRevision,
+            r.SaddlePointCount, r.CheckVerdict, r.ReviewStatus,
             OwnerName = db.Users.Where(u => u.Id == r.OwnerUserId).Select(u => u.DisplayName != "" ? u.DisplayName : u.UserName).FirstOrDefault(),
             D = r.Derivation == null ? null : new
             {
@@ -78,29 +85,29 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
                 r.Derivation.HalfLifeSeconds, r.Derivation.TemperatureKelvin, r.Derivation.LevelOfTheory, r.Derivation.Consistent, r.Derivation.ConsistencyJson,
                 r.Derivation.ModelFingerprint, r.Derivation.InputsRevision,
             },
-            Saddles = r.States.Where(s => s.Kind == StateKind.SaddlePoint).Select(s => new
-            {
-                Verdict = db.FrequencyChecks.Where(c => c.CalculationId == s.SaddleCalculationId).Select(c => (Verdict?)c.Verdict).FirstOrDefault(),
-                Latest = db.Reviews.Where(v => v.CalculationId == s.SaddleCalculationId).OrderByDescending(v => v.Id).Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefault(),
-            }).ToList(),
-        }).AsSingleQuery().ToListAsync(ct);
+        }).ToListAsync(ct);
+
+        var missing = raw.Where(r => r.SaddlePointCount is null).Select(r => r.Id).ToList();
+        var computed = missing.Count == 0 ? null : await ReactionStatusSummary.ComputeAsync(db, missing, ct);
+        // Most reactions share a handful of reason lists ("[]" above all): read each distinct text once.
+        var reasonLists = new Dictionary<string, IReadOnlyList<ConsistencyReason>>(StringComparer.Ordinal);
+        IReadOnlyList<ConsistencyReason> Reasons(string json)
+        {
+            if (!reasonLists.TryGetValue(json, out var list)) reasonLists[json] = list = DerivedJson.Read<List<ConsistencyReason>>(json);
+            return list;
+        }
 
         var rows = new List<LedgerRow>(raw.Count);
         foreach (var r in raw)
         {
-            Verdict? verdict = r.Saddles.Count == 0 ? null
-                : r.Saddles.Any(s => s.Verdict is null or Verdict.Failed) ? Verdict.Failed
-                : r.Saddles.Any(s => s.Verdict == Verdict.NeedsAttention) ? Verdict.NeedsAttention : Verdict.Passed;
-            var statuses = r.Saddles.Select(s => ReviewStatusText.FromLatest(s.Latest)).ToList();
-            ReviewStatus? review = statuses.Count == 0 ? null
-                : statuses.Any(s => s == ReviewStatus.Returned) ? ReviewStatus.Returned
-                : statuses.All(s => s == ReviewStatus.Verified) ? ReviewStatus.Verified : ReviewStatus.AwaitingReview;
+            var status = computed is not null && computed.TryGetValue(r.Id, out var c) ? c
+                : new ReactionStatus(r.SaddlePointCount ?? 0, r.CheckVerdict, r.ReviewStatus);
             var d = r.D;
             var stale = d is null || d.ModelFingerprint != fingerprint || d.InputsRevision != r.InputsRevision;
             var row = new LedgerRow(r.Id, r.Label, r.Description, r.OwnerUserId, r.OwnerName ?? r.OwnerUserId,
                 E(d?.BarrierGibbsHartree), E(d?.ReactionGibbsHartree), E(d?.BarrierElectronicHartree), d?.RateConstantPerSecond, d?.HalfLifeSeconds, d?.TemperatureKelvin,
-                verdict, review, r.Saddles.Count, d?.LevelOfTheory ?? "", d?.Consistent ?? false,
-                d is null ? [] : DerivedJson.Read<List<ConsistencyReason>>(d.ConsistencyJson), d is not null, stale, r.Retired, r.Version);
+                status.Verdict, status.ReviewStatus, status.SaddlePointCount, d?.LevelOfTheory ?? "", d?.Consistent ?? false,
+                d is null ? [] : Reasons(d.ConsistencyJson), d is not null, stale, r.Retired, r.Version);
             if (filter.ReviewStatus is { } rs && row.ReviewStatus != rs) continue;
             if (filter.Verdict is { } v && row.Verdict != v) continue;
             if (!string.IsNullOrWhiteSpace(filter.Text) && !(row.Label.Contains(filter.Text, StringComparison.OrdinalIgnoreCase)

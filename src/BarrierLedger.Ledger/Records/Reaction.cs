@@ -1,3 +1,6 @@
+using BarrierLedger.Core.Checks;
+using BarrierLedger.Ledger.Reviews;
+
 namespace BarrierLedger.Ledger.Records;
 
 /// <summary>A pathway of ordered states in a study.</summary>
@@ -15,6 +18,16 @@ public class Reaction : IVersioned, IRetirable
     public DateTimeOffset? RetiredAt { get; set; }
     public string? RetiredByUserId { get; set; }
     public long Version { get; set; }
+
+    // The ledger row's status, kept by the ledger whenever a check, a review or a saddle-point link changes
+    // (see Derivation/ReactionStatusSummary.cs), so listing a study reads one row per reaction. Not a user edit: writing it
+    // does not bump Version. SaddlePointCount is null until the summary was first computed (rows stored before it existed).
+    /// <summary>Saddle-point states of the pathway; null when the summary has not been computed yet.</summary>
+    public int? SaddlePointCount { get; set; }
+    /// <summary>The worst frequency-check verdict of its saddle points (a saddle point without a check counts as failed); null without saddle points.</summary>
+    public Verdict? CheckVerdict { get; set; }
+    /// <summary>Verified only when every saddle point is, Returned when any is, else awaiting review; null without saddle points.</summary>
+    public ReviewStatus? ReviewStatus { get; set; }
 
     public List<ReactionState> States { get; set; } = [];
     public ReactionDerivation? Derivation { get; set; }

@@ -131,6 +131,7 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
                 $"Saddle point '{calc.Label}' {(outcome == ReviewOutcome.Verified ? "verified" : "returned")}" + (comment.Length > 0 ? $": {comment.Trim()}" : "."),
                 before: ReviewStatusText.Of(ReviewStatusText.FromLatest(previous)), after: ReviewStatusText.Of(ReviewStatusText.FromLatest(outcome)));
             await db.SaveChangesAsync(token);
+            await ReactionStatusSummary.RefreshForCalculationsAsync(db, [calculationId], token);
             await tx.CommitAsync(token);
             var name = await db.Users.Where(u => u.Id == reviewerUserId).Select(u => u.DisplayName).FirstOrDefaultAsync(token);
             return new ReviewEntry(review.Id, calculationId, calc.Label, outcome, review.Comment, reviewerUserId, string.IsNullOrEmpty(name) ? reviewerUserId : name, review.At);

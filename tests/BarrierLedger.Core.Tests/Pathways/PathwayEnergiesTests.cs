@@ -122,4 +122,22 @@ public class PathwayEnergiesTests
         Assert.Contains(res.Reasons, x => x.Code == PathwayEnergyCodes.MissingFrequencies && x.Message.StartsWith("water2"));
         Assert.Contains(res.Reasons, x => x.Code == ConsistencyCodes.MissingThermal && x.Severity == CheckSeverity.Failure);
     }
+
+    [Fact]
+    public void Equal_but_separately_built_species_records_are_resolved_alike()
+    {
+        // A spectator catalyst written as two separate but equal records (as a caller building states one by one does).
+        // Its energy cancels: ΔG‡ is the plain TS1 − reactants difference, 0.040 hartree by hand (see TwoSteps).
+        var cat = Species("cat", "CH4", -40.0, thermal: T(0.045, 0.020));
+        var cat2 = cat with { };
+        Assert.Equal(cat, cat2);
+        Assert.False(ReferenceEquals(cat, cat2));
+        var p = TwoSteps();
+        var withCat = p with
+        {
+            States = [.. p.States.Select((s, i) => s with { Terms = [.. s.Terms, new(i % 2 == 0 ? cat : cat2)] })],
+        };
+        var r = PathwayEnergies.Derive(withCat);
+        Close.Absolute(0.040, r.Steps[0].GibbsBarrier!.Value.Hartree, 1e-12, "ΔG‡(TS1) with a spectator", "hand arithmetic: the spectator cancels");
+    }
 }
