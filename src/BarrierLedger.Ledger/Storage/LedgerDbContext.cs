@@ -1,5 +1,7 @@
 using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Coordination;
 using BarrierLedger.Ledger.Records;
+using Microsoft.AspNetCore.DataProtection.EntityFrameworkCore;
 using Microsoft.AspNetCore.Identity.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore;
 
@@ -11,8 +13,10 @@ namespace BarrierLedger.Ledger.Storage;
 /// PostgreSQL. Create either through <see cref="LedgerDatabase"/> or the registered <see cref="LedgerDbContextFactory"/>.
 /// Every save increments the version of each changed <see cref="IVersioned"/> record; the version is the concurrency
 /// token, so saving over someone else's change throws <see cref="DbUpdateConcurrencyException"/>.
+/// It also holds what several app instances on one database share: the data-protection keys (so a sign-in cookie issued
+/// by one instance is accepted by another) and the leases on background work.
 /// </summary>
-public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : IdentityDbContext<LedgerUser>(options)
+public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : IdentityDbContext<LedgerUser>(options), IDataProtectionKeyContext
 {
     public DbSet<Study> Studies => Set<Study>();
     public DbSet<Species> Species => Set<Species>();
@@ -30,6 +34,8 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
     public DbSet<StoredFile> StoredFiles => Set<StoredFile>();
     public DbSet<AuditEvent> AuditEvents => Set<AuditEvent>();
     public DbSet<ReactionDerivation> ReactionDerivations => Set<ReactionDerivation>();
+    public DbSet<WorkLease> WorkLeases => Set<WorkLease>();
+    public DbSet<DataProtectionKey> DataProtectionKeys => Set<DataProtectionKey>();
 
     protected override void OnModelCreating(ModelBuilder builder)
     {
