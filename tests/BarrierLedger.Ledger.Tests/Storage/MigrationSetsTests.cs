@@ -13,7 +13,7 @@ namespace BarrierLedger.Ledger.Tests.Storage;
 public sealed class MigrationSetsTests
 {
     // SQLite ledgers created before the PostgreSQL set existed carry these IDs in __EFMigrationsHistory; they must never change.
-    private static readonly string[] SqliteIdsBeforeTheSplit = ["20261202040642_InitialIdentity", "20261202042815_Ledger", "20261202070101_ReactionLedgerStatus"];
+    private static readonly string[] SqliteIdsBeforeTheSplit = ["20261202040642_InitialIdentity", "20261202042815_Ledger", "20261202070101_ReactionLedgerStatus", "20261202071212_MultiInstance"];
     private const string PostgreSqlInitial = "InitialPostgreSQL";
 
     private static LedgerDbContext Sqlite() => LedgerDatabase.CreateContext(LedgerDatabase.CreateOptions(new LedgerOptions { DataDirectory = Path.GetTempPath() }));

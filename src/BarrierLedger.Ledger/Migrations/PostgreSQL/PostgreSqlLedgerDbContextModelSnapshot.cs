@@ -106,6 +106,55 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.ToTable("AspNetUsers", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Coordination.WorkLease", b =>
+                {
+                    b.Property<string>("Name")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .UseCollation("C");
+
+                    b.Property<long>("CompletedSerial")
+                        .HasColumnType("bigint");
+
+                    b.Property<int>("Done")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("Error")
+                        .HasMaxLength(2000)
+                        .HasColumnType("character varying(2000)")
+                        .UseCollation("C");
+
+                    b.Property<long>("ExpiresAtUnixMs")
+                        .HasColumnType("bigint");
+
+                    b.Property<long?>("FinishedAtUnixMs")
+                        .HasColumnType("bigint");
+
+                    b.Property<string>("Holder")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .UseCollation("C");
+
+                    b.Property<string>("Phase")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .UseCollation("C");
+
+                    b.Property<long>("RequestSerial")
+                        .HasColumnType("bigint");
+
+                    b.Property<int>("Secondary")
+                        .HasColumnType("integer");
+
+                    b.Property<int>("Total")
+                        .HasColumnType("integer");
+
+                    b.HasKey("Name");
+
+                    b.ToTable("WorkLeases", (string)null);
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.AuditEvent", b =>
                 {
                     b.Property<long>("Id")
@@ -972,6 +1021,27 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.HasIndex("StudyId");
 
                     b.ToTable("Uploads", (string)null);
+                });
+
+            modelBuilder.Entity("Microsoft.AspNetCore.DataProtection.EntityFrameworkCore.DataProtectionKey", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<string>("FriendlyName")
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.Property<string>("Xml")
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.HasKey("Id");
+
+                    b.ToTable("DataProtectionKeys");
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>

@@ -75,6 +75,20 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                 });
 
             migrationBuilder.CreateTable(
+                name: "DataProtectionKeys",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "integer", nullable: false)
+                        .Annotation("Npgsql:ValueGenerationStrategy", NpgsqlValueGenerationStrategy.IdentityByDefaultColumn),
+                    FriendlyName = table.Column<string>(type: "text", nullable: true, collation: "C"),
+                    Xml = table.Column<string>(type: "text", nullable: true, collation: "C")
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_DataProtectionKeys", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
                 name: "StoredFiles",
                 columns: table => new
                 {
@@ -110,6 +124,27 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                 constraints: table =>
                 {
                     table.PrimaryKey("PK_Studies", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "WorkLeases",
+                columns: table => new
+                {
+                    Name = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false, collation: "C"),
+                    Holder = table.Column<string>(type: "character varying(200)", maxLength: 200, nullable: true, collation: "C"),
+                    ExpiresAtUnixMs = table.Column<long>(type: "bigint", nullable: false),
+                    RequestSerial = table.Column<long>(type: "bigint", nullable: false),
+                    CompletedSerial = table.Column<long>(type: "bigint", nullable: false),
+                    Phase = table.Column<string>(type: "character varying(200)", maxLength: 200, nullable: false, collation: "C"),
+                    Done = table.Column<int>(type: "integer", nullable: false),
+                    Total = table.Column<int>(type: "integer", nullable: false),
+                    Secondary = table.Column<int>(type: "integer", nullable: false),
+                    FinishedAtUnixMs = table.Column<long>(type: "bigint", nullable: true),
+                    Error = table.Column<string>(type: "character varying(2000)", maxLength: 2000, nullable: true, collation: "C")
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_WorkLeases", x => x.Name);
                 });
 
             migrationBuilder.CreateTable(
@@ -806,6 +841,9 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                 name: "AuditEvents");
 
             migrationBuilder.DropTable(
+                name: "DataProtectionKeys");
+
+            migrationBuilder.DropTable(
                 name: "EnergyModels");
 
             migrationBuilder.DropTable(
@@ -825,6 +863,9 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
             migrationBuilder.DropTable(
                 name: "ScanPoints");
+
+            migrationBuilder.DropTable(
+                name: "WorkLeases");
 
             migrationBuilder.DropTable(
                 name: "AspNetRoles");

@@ -12,7 +12,7 @@ using Npgsql.EntityFrameworkCore.PostgreSQL.Metadata;
 namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 {
     [DbContext(typeof(PostgreSqlLedgerDbContext))]
-    [Migration("20261202071339_InitialPostgreSQL")]
+    [Migration("20261202072054_InitialPostgreSQL")]
     partial class InitialPostgreSQL
     {
         /// <inheritdoc />
@@ -107,6 +107,55 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasDatabaseName("UserNameIndex");
 
                     b.ToTable("AspNetUsers", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Coordination.WorkLease", b =>
+                {
+                    b.Property<string>("Name")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .UseCollation("C");
+
+                    b.Property<long>("CompletedSerial")
+                        .HasColumnType("bigint");
+
+                    b.Property<int>("Done")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("Error")
+                        .HasMaxLength(2000)
+                        .HasColumnType("character varying(2000)")
+                        .UseCollation("C");
+
+                    b.Property<long>("ExpiresAtUnixMs")
+                        .HasColumnType("bigint");
+
+                    b.Property<long?>("FinishedAtUnixMs")
+                        .HasColumnType("bigint");
+
+                    b.Property<string>("Holder")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .UseCollation("C");
+
+                    b.Property<string>("Phase")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .UseCollation("C");
+
+                    b.Property<long>("RequestSerial")
+                        .HasColumnType("bigint");
+
+                    b.Property<int>("Secondary")
+                        .HasColumnType("integer");
+
+                    b.Property<int>("Total")
+                        .HasColumnType("integer");
+
+                    b.HasKey("Name");
+
+                    b.ToTable("WorkLeases", (string)null);
                 });
 
             modelBuilder.Entity("BarrierLedger.Ledger.Records.AuditEvent", b =>
@@ -975,6 +1024,27 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.HasIndex("StudyId");
 
                     b.ToTable("Uploads", (string)null);
+                });
+
+            modelBuilder.Entity("Microsoft.AspNetCore.DataProtection.EntityFrameworkCore.DataProtectionKey", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<string>("FriendlyName")
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.Property<string>("Xml")
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.HasKey("Id");
+
+                    b.ToTable("DataProtectionKeys");
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>
