@@ -37,6 +37,9 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
     public DbSet<WorkLease> WorkLeases => Set<WorkLease>();
     public DbSet<DataProtectionKey> DataProtectionKeys => Set<DataProtectionKey>();
 
+    /// <summary>Saves rows with the versions they carry (a store transfer copies them as they are); off for every ordinary save.</summary>
+    public bool KeepVersionsAsGiven { get; set; }
+
     protected override void OnModelCreating(ModelBuilder builder)
     {
         if (GetType() == typeof(LedgerDbContext) && Database.ProviderName?.StartsWith("Npgsql", StringComparison.Ordinal) == true)
@@ -60,6 +63,7 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
 
     private void BumpVersions()
     {
+        if (KeepVersionsAsGiven) return;
         foreach (var entry in ChangeTracker.Entries<IVersioned>())
         {
             if (entry.State == EntityState.Modified) entry.Entity.Version++;
