@@ -97,8 +97,8 @@ public sealed class RecomputeService(IDbContextFactory<LedgerDbContext> factory,
                 checks += await derivation.RefreshChecksAsync(db, model, [studyId], null, force: false, token);
                 Publish(Current with { Phase = $"deriving energies (study {studyId})", ChecksRun = checks });
                 var n = await derivation.DeriveAsync(db, model, [studyId], null, (d, _) => Publish(Current with { Done = before + d }), token);
-                // Re-checked saddle points updated their reactions' status already; a whole pass also repairs any status left behind.
-                await ReactionStatusSummary.RefreshStudiesAsync(db, [studyId], token);
+                // Re-checked saddle points updated their reactions' status already; the pass also fills in a status never computed.
+                await ReactionStatusSummary.FillMissingAsync(db, studyId, token);
                 await tx.CommitAsync(token);
                 done = before + n;
                 return n;
