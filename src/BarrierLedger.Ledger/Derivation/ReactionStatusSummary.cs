@@ -78,9 +78,17 @@ internal static class ReactionStatusSummary
         }
     }
 
-    /// <summary>Computes and stores the status of the study's reactions that have none yet (stored before the summary existed).</summary>
-    public static async Task FillMissingAsync(LedgerDbContext db, int studyId, CancellationToken ct) =>
-        await RefreshAsync(db, await db.Reactions.Where(r => r.StudyId == studyId && r.SaddlePointCount == null).Select(r => r.Id).ToListAsync(ct), ct);
+    /// <summary>
+    /// Computes and stores the status of the reactions (of one study, or all) that have none yet: rows stored before the summary
+    /// existed, e.g. in a restored backup. Run at start-up after the migrations and by every recompute pass.
+    /// </summary>
+    public static async Task FillMissingAsync(LedgerDbContext db, int? studyId, CancellationToken ct)
+    {
+        var q = db.Reactions.Where(r => r.SaddlePointCount == null);
+        if (studyId is { } id) q = q.Where(r => r.StudyId == id);
+        var missing = await q.Select(r => r.Id).ToListAsync(ct);
+        if (missing.Count > 0) await RefreshAsync(db, missing, ct);
+    }
 
     /// <summary>Recomputes and stores the status of every reaction whose saddle-point states use one of these calculations.</summary>
     public static async Task RefreshForCalculationsAsync(LedgerDbContext db, IReadOnlyCollection<int> calculationIds, CancellationToken ct)
