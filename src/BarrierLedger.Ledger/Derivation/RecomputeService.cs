@@ -198,9 +198,10 @@ public sealed class RecomputeService(IDbContextFactory<LedgerDbContext> factory,
             {
                 return;
             }
-            catch (Exception ex) when (LedgerRetry.IsBusy(ex))
+            catch (Exception)
             {
-                // SQLite: our own pass holds the write lock for a whole study; the renewal waits for the next beat.
+                // SQLite busy (our own pass holds the write lock for a whole study) or the store briefly unreachable: try at
+                // the next beat. If the lease expires meanwhile and another instance takes it, that renewal reports it lost.
             }
         }
     }
