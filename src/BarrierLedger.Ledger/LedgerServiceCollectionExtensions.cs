@@ -1,5 +1,6 @@
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Backups;
+using BarrierLedger.Ledger.Coordination;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Reviews;
@@ -29,6 +30,8 @@ public static class LedgerServiceCollectionExtensions
     public static IServiceCollection AddLedgerServices(this IServiceCollection services)
     {
         services.TryAddSingleton(TimeProvider.System);
+        services.TryAddSingleton(new WorkLeaseOptions());
+        services.AddSingleton<WorkLeaseStore>();
         services.AddSingleton<AuditService>();
         services.AddSingleton<DerivationService>();
         services.AddSingleton<UploadService>();

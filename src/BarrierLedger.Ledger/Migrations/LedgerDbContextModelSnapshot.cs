@@ -91,6 +91,51 @@ namespace BarrierLedger.Ledger.Migrations
                     b.ToTable("AspNetUsers", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Coordination.WorkLease", b =>
+                {
+                    b.Property<string>("Name")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("CompletedSerial")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Done")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Error")
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("ExpiresAtUnixMs")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<long?>("FinishedAtUnixMs")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Holder")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Phase")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("RequestSerial")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Secondary")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Total")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Name");
+
+                    b.ToTable("WorkLeases", (string)null);
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.AuditEvent", b =>
                 {
                     b.Property<long>("Id")
@@ -869,6 +914,23 @@ namespace BarrierLedger.Ledger.Migrations
                     b.HasIndex("StudyId");
 
                     b.ToTable("Uploads", (string)null);
+                });
+
+            modelBuilder.Entity("Microsoft.AspNetCore.DataProtection.EntityFrameworkCore.DataProtectionKey", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("FriendlyName")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Xml")
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.ToTable("DataProtectionKeys");
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>

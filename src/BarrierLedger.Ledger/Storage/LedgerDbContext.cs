@@ -1,5 +1,7 @@
 using BarrierLedger.Ledger.Accounts;
+using BarrierLedger.Ledger.Coordination;
 using BarrierLedger.Ledger.Records;
+using Microsoft.AspNetCore.DataProtection.EntityFrameworkCore;
 using Microsoft.AspNetCore.Identity.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore;
 
@@ -9,8 +11,10 @@ namespace BarrierLedger.Ledger.Storage;
 /// The ledger's database: accounts (ASP.NET Core Identity) and the group's records, in one SQLite file by default.
 /// Every save increments the version of each changed <see cref="IVersioned"/> record; the version is the concurrency
 /// token, so saving over someone else's change throws <see cref="DbUpdateConcurrencyException"/>.
+/// It also holds what several app instances on one database share: the data-protection keys (so a sign-in cookie issued
+/// by one instance is accepted by another) and the leases on background work.
 /// </summary>
-public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : IdentityDbContext<LedgerUser>(options)
+public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : IdentityDbContext<LedgerUser>(options), IDataProtectionKeyContext
 {
     public DbSet<Study> Studies => Set<Study>();
     public DbSet<Species> Species => Set<Species>();
@@ -28,6 +32,11 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
     public DbSet<StoredFile> StoredFiles => Set<StoredFile>();
     public DbSet<AuditEvent> AuditEvents => Set<AuditEvent>();
     public DbSet<ReactionDerivation> ReactionDerivations => Set<ReactionDerivation>();
+    public DbSet<WorkLease> WorkLeases => Set<WorkLease>();
+    public DbSet<DataProtectionKey> DataProtectionKeys => Set<DataProtectionKey>();
+
+    /// <summary>Saves rows with the versions they carry (a store transfer copies them as they are); off for every ordinary save.</summary>
+    public bool KeepVersionsAsGiven { get; set; }
 
     protected override void OnModelCreating(ModelBuilder builder)
     {
@@ -49,6 +58,7 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
 
     private void BumpVersions()
     {
+        if (KeepVersionsAsGiven) return;
         foreach (var entry in ChangeTracker.Entries<IVersioned>())
         {
             if (entry.State == EntityState.Modified) entry.Entity.Version++;
