@@ -8,7 +8,9 @@ using Microsoft.EntityFrameworkCore;
 namespace BarrierLedger.Ledger.Storage;
 
 /// <summary>
-/// The ledger's database: accounts (ASP.NET Core Identity) and the group's records, in one SQLite file by default.
+/// The ledger's database: accounts (ASP.NET Core Identity) and the group's records, in one SQLite file by default. This type is
+/// the SQLite context (its migrations are in Migrations/Sqlite); <see cref="PostgreSqlLedgerDbContext"/> is the same model on
+/// PostgreSQL. Create either through <see cref="LedgerDatabase"/> or the registered <see cref="LedgerDbContextFactory"/>.
 /// Every save increments the version of each changed <see cref="IVersioned"/> record; the version is the concurrency
 /// token, so saving over someone else's change throws <see cref="DbUpdateConcurrencyException"/>.
 /// It also holds what several app instances on one database share: the data-protection keys (so a sign-in cookie issued
@@ -40,6 +42,9 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
 
     protected override void OnModelCreating(ModelBuilder builder)
     {
+        if (GetType() == typeof(LedgerDbContext) && Database.ProviderName?.StartsWith("Npgsql", StringComparison.Ordinal) == true)
+            throw new InvalidOperationException("LedgerDbContext is the SQLite context; on PostgreSQL create a PostgreSqlLedgerDbContext "
+                + "(LedgerDatabase.CreateContext or the registered factory), or the SQLite migrations would be applied to PostgreSQL.");
         base.OnModelCreating(builder);
         builder.ApplyConfigurationsFromAssembly(typeof(LedgerDbContext).Assembly);
     }

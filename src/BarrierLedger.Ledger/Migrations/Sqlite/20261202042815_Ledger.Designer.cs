@@ -8,11 +8,11 @@ using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 
 #nullable disable
 
-namespace BarrierLedger.Ledger.Migrations
+namespace BarrierLedger.Ledger.Migrations.Sqlite
 {
     [DbContext(typeof(LedgerDbContext))]
-    [Migration("20261202070101_ReactionLedgerStatus")]
-    partial class ReactionLedgerStatus
+    [Migration("20261202042815_Ledger")]
+    partial class Ledger
     {
         /// <inheritdoc />
         protected override void BuildTargetModel(ModelBuilder modelBuilder)
@@ -376,10 +376,6 @@ namespace BarrierLedger.Ledger.Migrations
                         .ValueGeneratedOnAdd()
                         .HasColumnType("INTEGER");
 
-                    b.Property<string>("CheckVerdict")
-                        .HasMaxLength(20)
-                        .HasColumnType("TEXT");
-
                     b.Property<string>("Description")
                         .IsRequired()
                         .HasColumnType("TEXT");
@@ -404,13 +400,6 @@ namespace BarrierLedger.Ledger.Migrations
 
                     b.Property<string>("RetiredByUserId")
                         .HasColumnType("TEXT");
-
-                    b.Property<string>("ReviewStatus")
-                        .HasMaxLength(20)
-                        .HasColumnType("TEXT");
-
-                    b.Property<int?>("SaddlePointCount")
-                        .HasColumnType("INTEGER");
 
                     b.Property<int>("StudyId")
                         .HasColumnType("INTEGER");
