@@ -1,5 +1,6 @@
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Backups;
+using BarrierLedger.Ledger.Coordination;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Reviews;
@@ -15,13 +16,14 @@ namespace BarrierLedger.Ledger;
 
 public static class LedgerServiceCollectionExtensions
 {
-    /// <summary>Registers the ledger store (a DbContext factory on SQLite) and its workflow services.</summary>
+    /// <summary>Registers the ledger store (a DbContext factory on SQLite or PostgreSQL, as "BarrierLedger:Database:Provider" says)
+    /// and its workflow services.</summary>
     public static IServiceCollection AddLedger(this IServiceCollection services, IConfiguration configuration)
     {
         var options = new LedgerOptions();
         configuration.GetSection(LedgerOptions.SectionName).Bind(options);
         services.AddSingleton(options);
-        services.AddDbContextFactory<LedgerDbContext>(o => o.UseSqlite(options.SqliteConnectionString));
+        services.AddDbContextFactory<LedgerDbContext, LedgerDbContextFactory>(o => LedgerDatabase.Configure(o, options));
         return services.AddLedgerServices();
     }
 
@@ -29,6 +31,8 @@ public static class LedgerServiceCollectionExtensions
     public static IServiceCollection AddLedgerServices(this IServiceCollection services)
     {
         services.TryAddSingleton(TimeProvider.System);
+        services.TryAddSingleton(new WorkLeaseOptions());
+        services.AddSingleton<WorkLeaseStore>();
         services.AddSingleton<AuditService>();
         services.AddSingleton<DerivationService>();
         services.AddSingleton<UploadService>();

@@ -282,7 +282,7 @@ internal sealed class SourceOptions
         {
             await using var services = LedgerHost.Build(dir).AddLedgerExports().BuildServiceProvider();
             var ledgerOptions = services.GetRequiredService<LedgerOptions>();
-            await SqliteSetup.PrepareAsync(ledgerOptions, services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
+            await LedgerDatabase.PrepareAsync(ledgerOptions, services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
             if (bundle is not null && !await LoadBundleAsync(ctx, services, bundle)) return ExitCodes.Unreadable;
             try
             {

@@ -30,8 +30,8 @@ public static class HostingExtensions
     {
         var options = app.Services.GetRequiredService<LedgerOptions>();
         var factory = app.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>();
-        await SqliteSetup.PrepareAsync(options, factory);
-        app.Logger.LogInformation("Ledger store: {Path}; web root: {WebRoot}", options.DatabasePath, app.Environment.WebRootPath);
+        await LedgerDatabase.PrepareAsync(options, factory);
+        app.Logger.LogInformation("Ledger store: {Store}; web root: {WebRoot}", LedgerDatabase.Describe(options), app.Environment.WebRootPath);
 
         await using var scope = app.Services.CreateAsyncScope();
         var bootstrap = scope.ServiceProvider.GetRequiredService<AccountBootstrap>();

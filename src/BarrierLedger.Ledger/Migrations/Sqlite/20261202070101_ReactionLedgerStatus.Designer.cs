@@ -8,7 +8,7 @@ using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 
 #nullable disable
 
-namespace BarrierLedger.Ledger.Migrations
+namespace BarrierLedger.Ledger.Migrations.Sqlite
 {
     [DbContext(typeof(LedgerDbContext))]
     [Migration("20261202070101_ReactionLedgerStatus")]

@@ -3,7 +3,7 @@ using Microsoft.EntityFrameworkCore.Migrations;
 
 #nullable disable
 
-namespace BarrierLedger.Ledger.Migrations
+namespace BarrierLedger.Ledger.Migrations.Sqlite
 {
     /// <inheritdoc />
     public partial class InitialIdentity : Migration

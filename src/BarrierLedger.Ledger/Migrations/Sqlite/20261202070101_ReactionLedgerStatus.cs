@@ -2,7 +2,7 @@
 
 #nullable disable
 
-namespace BarrierLedger.Ledger.Migrations
+namespace BarrierLedger.Ledger.Migrations.Sqlite
 {
     /// <inheritdoc />
     public partial class ReactionLedgerStatus : Migration
