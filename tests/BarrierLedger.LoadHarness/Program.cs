@@ -44,6 +44,7 @@ try
     List<int> pids = app is null ? options.Pids : [app.ProcessId];
 
     var site = await RenderTimes.RunAsync(urls[0], options);
+    if (dataDirectory is not null) await QueryTimes.RunAsync(dataDirectory, site, options.Loads);
     var failures = app?.LoggedFailures ?? 0;
     var run = await LoadRun.RunAsync(urls, pids, site, options);
 

@@ -1,0 +1,46 @@
+using System.Diagnostics;
+using BarrierLedger.Ledger;
+using BarrierLedger.Ledger.Queries;
+using BarrierLedger.Ledger.Reviews;
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace BarrierLedger.LoadHarness;
+
+/// <summary>
+/// The Ledger queries behind the pages, timed in this process on the same data directory (the app keeps running): tells how
+/// much of a page's render time is its query. Same rotation, warm-up and count as the page loads.
+/// </summary>
+internal static class QueryTimes
+{
+    public static async Task RunAsync(string dataDirectory, SitePages site, int loads)
+    {
+        var config = new ConfigurationBuilder()
+            .AddInMemoryCollection(new Dictionary<string, string?> { ["BarrierLedger:DataDirectory"] = dataDirectory })
+            .Build();
+        await using var services = new ServiceCollection().AddLedger(config).BuildServiceProvider();
+        var ledger = services.GetRequiredService<LedgerQueryService>();
+        var reactions = services.GetRequiredService<ReactionQueryService>();
+        var reviews = services.GetRequiredService<ReviewService>();
+
+        Console.WriteLine();
+        Console.WriteLine($"Ledger queries behind the pages, in the harness's process on the same store ({loads} calls each after 20 warm-up calls, so that the code is no longer cold); load average {Machine.LoadAverage()}");
+        Console.WriteLine(Latencies.Row("studies list (every page's picker)", await TimeAsync(loads, _ => ledger.GetStudiesAsync())));
+        Console.WriteLine(Latencies.Row("ledger rows of one study", await TimeAsync(loads, i => ledger.GetLedgerRowsAsync(site.StudyIds[i % site.StudyIds.Count]))));
+        Console.WriteLine(Latencies.Row("one reaction's detail", await TimeAsync(loads, i => reactions.GetReactionAsync(site.ReactionIds[i % site.ReactionIds.Count]))));
+        var queue = await reviews.QueueAsync();
+        Console.WriteLine(Latencies.Row($"review queue (all {queue.Count} items)", await TimeAsync(Math.Min(loads, 10), _ => reviews.QueueAsync())));
+    }
+
+    private static async Task<IReadOnlyList<double>> TimeAsync<T>(int count, Func<int, Task<T>> query)
+    {
+        var ms = new List<double>();
+        for (var i = -20; i < count; i++)
+        {
+            var clock = Stopwatch.StartNew();
+            await query(i + 20);
+            if (i >= 0) ms.Add(clock.Elapsed.TotalMilliseconds);
+        }
+        return ms;
+    }
+}
