@@ -93,6 +93,7 @@ public sealed class PostgresServer
         if (Environment.GetEnvironmentVariable(ServerVariable) is { Length: > 0 } named)
             return new PostgresServer(new NpgsqlConnectionStringBuilder(named) { Pooling = false }.ConnectionString, null, FindBinaries());
         var bin = FindBinaries() ?? throw new InvalidOperationException(Unavailable());
+        SweepStaleClusters();
         var root = Directory.CreateTempSubdirectory("bl-pg-").FullName;
         var data = Path.Combine(root, "data");
         var asRoot = Environment.UserName == "root";
@@ -101,14 +102,26 @@ public sealed class PostgresServer
         await RunAsync(Path.Combine(bin, "initdb"), ["-D", data, "-U", "postgres", "-A", "trust", "-E", "UTF8", "--locale=C.UTF-8", "--no-sync"], asRoot ? "postgres" : null);
         string[] settings = ["-c listen_addresses=127.0.0.1", $"-p {port}", $"-k {root}", "-c fsync=off", "-c synchronous_commit=off", "-c full_page_writes=off", "-c max_connections=200"];
         await RunAsync(Path.Combine(bin, "pg_ctl"), ["-D", data, "-l", Path.Combine(root, "server.log"), "-w", "-t", "60", "-o", string.Join(' ', settings), "start"], asRoot ? "postgres" : null);
-        AppDomain.CurrentDomain.ProcessExit += (_, _) =>
-        {
-            try { RunAsync(Path.Combine(bin, "pg_ctl"), ["-D", data, "-m", "immediate", "stop"], asRoot ? "postgres" : null).GetAwaiter().GetResult(); }
-            catch (InvalidOperationException) { }
-            try { Directory.Delete(root, recursive: true); } catch (IOException) { } catch (UnauthorizedAccessException) { }
-        };
+        // The test host is ended (with its process tree, or killed) right after its last test, with no time for a clean stop. A
+        // watchdog shell started now, detached (its parent sh returns at once, so it is nobody's descendant by then), waits for
+        // this process to go and then stops the cluster and deletes its folder. SweepStaleClusters removes what is left anyway.
+        var stop = $"{(asRoot ? "runuser -u postgres -- " : "")}'{Path.Combine(bin, "pg_ctl")}' -D '{data}' -m immediate stop";
+        var watchdog = $"while kill -0 {Environment.ProcessId} 2>/dev/null; do sleep 1; done; {stop}; rm -rf '{root}'";
+        using (var detach = Process.Start("sh", ["-c", "setsid sh -c \"$0\" </dev/null >/dev/null 2>&1 &", watchdog]))
+            detach?.WaitForExit(5000);
         var admin = $"Host=127.0.0.1;Port={port};Username=postgres;Database=postgres;Pooling=false";
         return new PostgresServer(admin, root, bin);
+    }
+
+    /// <summary>Removes clusters of earlier runs that were stopped but not deleted: bl-pg-* folders older than ten minutes whose
+    /// server is not running (no postmaster.pid). A live cluster of a concurrent run always has its postmaster.pid.</summary>
+    private static void SweepStaleClusters()
+    {
+        foreach (var dir in new DirectoryInfo(Path.GetTempPath()).EnumerateDirectories("bl-pg-*"))
+        {
+            if (dir.CreationTimeUtc > DateTime.UtcNow.AddMinutes(-10) || File.Exists(Path.Combine(dir.FullName, "data", "postmaster.pid"))) continue;
+            try { dir.Delete(recursive: true); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+        }
     }
 
     private static int FreePort()
