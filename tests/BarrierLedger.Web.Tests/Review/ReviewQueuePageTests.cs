@@ -24,7 +24,7 @@ public sealed class ReviewQueuePageTests : IDisposable
             .AddInMemoryCollection(new Dictionary<string, string?> { ["BarrierLedger:DataDirectory"] = _dataDirectory }).Build();
         _ctx.Services.AddLedger(config);
         _ctx.AddAuthorization().SetAuthorized("mira").SetPolicies(policies);
-        await SqliteSetup.PrepareAsync(_ctx.Services.GetRequiredService<LedgerOptions>(), _ctx.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
+        await LedgerDatabase.PrepareAsync(_ctx.Services.GetRequiredService<LedgerOptions>(), _ctx.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
         var uploads = _ctx.Services.GetRequiredService<UploadService>();
         for (var i = 1; i <= saddlePoints; i++)
         {
