@@ -43,6 +43,8 @@ internal static class LoadRun
         await WarmUpAsync(urls, site, options);
         var lat = new Latencies();
         var before = pids.ToDictionary(p => p, p => ProcessMemory.Read(p));
+        var heapBefore = new Dictionary<int, double?>();
+        foreach (var pid in pids) heapBefore[pid] = await LiveHeap.ReadMiBAsync(options.GcDump, pid);
         var open = 0;
         var started = 0;
         var browsing = 0;
@@ -86,9 +88,9 @@ internal static class LoadRun
 
             var random = new Random(i);
             Task Think() => Task.Delay((int)(options.ThinkMs * (0.5 + random.NextDouble())));
+            // The time is checked before each round, so every user ends a round back on the ledger (a round lasts a few seconds).
             async Task<bool> Step(string kind, Func<Task<TimeSpan>> step)
             {
-                if (clock.Elapsed >= deadline) return false;
                 try { lat.Add(kind, await step()); }
                 catch (Exception ex) when (ex is not OutOfMemoryException)
                 {
@@ -119,12 +121,16 @@ internal static class LoadRun
         await Task.WhenAny(allStarted.Task, Task.Delay(TimeSpan.FromMinutes(3)));
         await Task.Delay(TimeSpan.FromSeconds(5)); // idle, so that the figure holds the circuits, not requests in flight
         var idle = pids.ToDictionary(p => p, p => ProcessMemory.Read(p));
+        var heapIdle = new Dictionary<int, double?>();
+        foreach (var pid in pids) heapIdle[pid] = await LiveHeap.ReadMiBAsync(options.GcDump, pid);
         var openAtSample = Volatile.Read(ref open);
         browsing = openAtSample;
         clock.Start();
         go.TrySetResult();
         if (openAtSample > 0) await Task.WhenAny(allBrowsed.Task, Task.Delay(deadline + TimeSpan.FromMinutes(2)));
         var afterBrowsing = pids.ToDictionary(p => p, p => ProcessMemory.Read(p));
+        var heapAfter = new Dictionary<int, double?>();
+        foreach (var pid in pids) heapAfter[pid] = await LiveHeap.ReadMiBAsync(options.GcDump, pid);
         closeCircuits.TrySetResult();
         await Task.WhenAll(users);
 
@@ -145,7 +151,13 @@ internal static class LoadRun
             if (circuitsHere == 0) continue;
             Console.WriteLine($"    per circuit: {(w.RssMiB - b.RssMiB) / circuitsHere:0.00} MiB idle, {(a.RssMiB - b.RssMiB) / circuitsHere:0.00} MiB after browsing " +
                               "(RSS growth over the circuits; it also holds the garbage collector's headroom, so it is an upper bound)");
-            perCircuit = (perCircuit ?? 0) + (w.RssMiB - b.RssMiB) / circuitsHere / pids.Count;
+            if (heapBefore[pid] is { } hb && heapIdle[pid] is { } hi && heapAfter[pid] is { } ha)
+            {
+                Console.WriteLine($"    live managed heap (dotnet-gcdump, after a full collection): {hb:0.0} MiB before, {hi:0.0} MiB with the idle circuits, " +
+                                  $"{ha:0.0} MiB after browsing: {(hi - hb) / circuitsHere * 1024:0} KiB per idle circuit, {(ha - hb) / circuitsHere * 1024:0} KiB after browsing");
+                perCircuit = (perCircuit ?? 0) + (ha - hb) / circuitsHere / pids.Count;
+            }
+            else perCircuit = (perCircuit ?? 0) + (w.RssMiB - b.RssMiB) / circuitsHere / pids.Count;
         }
         Console.WriteLine($"  load average at the end: {Machine.LoadAverage()}");
         return pageSteps.Count == 0
