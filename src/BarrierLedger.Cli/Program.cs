@@ -61,6 +61,7 @@ public static class Program
         root.Subcommands.Add(ExportCommand.Create(context));
         root.Subcommands.Add(BackupCommand.Create(context));
         root.Subcommands.Add(RestoreCommand.Create(context));
+        root.Subcommands.Add(MigrateStoreCommand.Create(context));
         return root;
     }
 

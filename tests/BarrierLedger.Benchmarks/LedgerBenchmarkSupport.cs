@@ -28,6 +28,10 @@ internal sealed class LedgerBenchHost : IDisposable
     public LedgerOptions Options => Services.GetRequiredService<LedgerOptions>();
     public T Get<T>() where T : notnull => Services.GetRequiredService<T>();
 
+    /// <summary>The machine is shared: every figure is printed beside the load average it was measured under.</summary>
+    public static void PrintLoadAverage(string when) =>
+        Console.WriteLine($"// load average {when}: " + (File.Exists("/proc/loadavg") ? File.ReadAllText("/proc/loadavg").Trim() : "unknown"));
+
     public void Dispose()
     {
         Services.Dispose();
@@ -68,5 +72,6 @@ internal sealed class LedgerBenchConfig : BenchmarkDotNet.Configs.ManualConfig
             .WithStrategy(BenchmarkDotNet.Engines.RunStrategy.Monitoring)
             .WithLaunchCount(1).WithWarmupCount(2).WithIterationCount(8));
         AddDiagnoser(BenchmarkDotNet.Diagnosers.MemoryDiagnoser.Default);
+        AddColumn(BenchmarkDotNet.Columns.StatisticColumn.Median, BenchmarkDotNet.Columns.StatisticColumn.Min);
     }
 }

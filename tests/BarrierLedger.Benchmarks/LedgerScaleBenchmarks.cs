@@ -34,11 +34,16 @@ public class LedgerScaleBenchmarks
         var species = db.Species.Count();
         var reactions = db.ReactionDerivations.Count();
         Console.WriteLine($"// seeded {species} species, {reactions} derived reactions");
+        LedgerBenchHost.PrintLoadAverage("before the runs");
         if (species != 5 * Reactions || reactions != Reactions) throw new InvalidOperationException("seeding did not give 10,000 species in 2,000 derived reactions");
     }
 
     [GlobalCleanup]
-    public void Cleanup() => _host.Dispose();
+    public void Cleanup()
+    {
+        LedgerBenchHost.PrintLoadAverage("after the runs");
+        _host.Dispose();
+    }
 
     /// <summary>Flip the study's temperature (298.15 K ↔ 310 K) so every derived value is stale, then recompute all of them.</summary>
     [Benchmark(Description = "recompute 2,000 reactions / 10,000 species after an energy-model change")]

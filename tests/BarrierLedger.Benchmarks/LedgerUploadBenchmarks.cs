@@ -36,7 +36,11 @@ public class LedgerUploadBenchmarks
         _file = Encoding.UTF8.GetBytes(LedgerBenchHost.ScanXyz(Frames, Atoms));
         _draft = UploadReader.Read([new UploadFile("scan.xyz", _file)], Choices("x"));
         if (_draft.Issues.Any(i => i.IsError)) throw new InvalidOperationException(string.Join("\n", _draft.Issues));
+        LedgerBenchHost.PrintLoadAverage("before the runs");
     }
+
+    [GlobalCleanup]
+    public void LoadAfter() => LedgerBenchHost.PrintLoadAverage("after the runs");
 
     [IterationSetup]
     public void FreshDatabase() => _host = new LedgerBenchHost();

@@ -25,7 +25,7 @@ public class ExportCommandTests
     }
 
     /// <summary>A ledger data folder holding the demo study, stored through the real upload service.</summary>
-    private static async Task<string> DemoDataDirAsync(TempDir temp)
+    internal static async Task<string> DemoDataDirAsync(TempDir temp)
     {
         var dir = Path.Combine(temp.Path, "data");
         await using var services = LedgerHost.Build(dir).BuildServiceProvider();

@@ -28,26 +28,25 @@ public sealed class DerivationService(TimeProvider time)
     public async Task AfterInputsChangedAsync(LedgerDbContext db, int studyId, IReadOnlyCollection<int> touchedSpeciesIds, IReadOnlyCollection<int> reactionIds, CancellationToken ct)
     {
         var affected = await db.Reactions.Where(r => r.StudyId == studyId && !r.Retired &&
-                (reactionIds.Contains(r.Id) || r.States.Any(s => s.Terms.Any(t => touchedSpeciesIds.Contains(t.SpeciesId)))))
+                (EF.Parameter(reactionIds).Contains(r.Id) || r.States.Any(s => s.Terms.Any(t => EF.Parameter(touchedSpeciesIds).Contains(t.SpeciesId)))))
             .Select(r => r.Id).ToListAsync(ct);
         if (affected.Count == 0) return;
         await BumpRevisionsAsync(db, affected, ct);
         var (model, _) = await EffectiveModelAsync(db, studyId, ct);
         await RefreshChecksAsync(db, model, [studyId], affected, force: false, ct);
         var inputs = await DerivationInputs.LoadAsync(db, null, affected, ct);
-        var deriver = new ReactionDeriver(model, inputs);
-        await WriteAsync(db, [.. inputs.Reactions.Select(deriver.Derive)], ct);
+        await WriteAsync(db, DeriveAll(model, inputs, null, ct), ct);
         // New reactions and re-linked saddle points (with their reopened reviews) change the ledger status.
         await ReactionStatusSummary.RefreshAsync(db, affected, ct);
     }
 
     /// <summary>Marks reactions' derived values out of date (their inputs changed).</summary>
     public static Task BumpRevisionsAsync(LedgerDbContext db, IReadOnlyCollection<int> reactionIds, CancellationToken ct) =>
-        db.Reactions.Where(r => reactionIds.Contains(r.Id)).ExecuteUpdateAsync(u => u.SetProperty(r => r.InputsRevision, r => r.InputsRevision + 1), ct);
+        db.Reactions.Where(r => EF.Parameter(reactionIds).Contains(r.Id)).ExecuteUpdateAsync(u => u.SetProperty(r => r.InputsRevision, r => r.InputsRevision + 1), ct);
 
     /// <summary>Every reaction whose states use one of these species (for retire/restore of inputs).</summary>
     public static Task<List<int>> ReactionsUsingSpeciesAsync(LedgerDbContext db, IReadOnlyCollection<int> speciesIds, CancellationToken ct) =>
-        db.Reactions.Where(r => r.States.Any(s => s.Terms.Any(t => speciesIds.Contains(t.SpeciesId)))).Select(r => r.Id).ToListAsync(ct);
+        db.Reactions.Where(r => r.States.Any(s => s.Terms.Any(t => EF.Parameter(speciesIds).Contains(t.SpeciesId)))).Select(r => r.Id).ToListAsync(ct);
 
     /// <summary>
     /// Runs the saddle-point check for each saddle-point state's calculation whose stored fingerprint differs from its
@@ -57,7 +56,7 @@ public sealed class DerivationService(TimeProvider time)
     {
         var q = db.ReactionStates.AsNoTracking().Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired
                                                              && studyIds.Contains(s.Reaction.StudyId));
-        if (reactionIds is not null) q = q.Where(s => reactionIds.Contains(s.ReactionId));
+        if (reactionIds is not null) q = q.Where(s => EF.Parameter(reactionIds).Contains(s.ReactionId));
         var states = await q.Select(s => new
         {
             CalcId = s.SaddleCalculationId!.Value,
@@ -68,10 +67,12 @@ public sealed class DerivationService(TimeProvider time)
         var byCalc = states.GroupBy(s => s.CalcId).Select(g => g.First()).ToList();
         var calcIds = byCalc.Select(s => s.CalcId).ToList();
         var speciesIds = byCalc.Select(s => s.SpeciesId).Distinct().ToList();
-        var scans = (await db.Scans.AsNoTracking().Where(s => speciesIds.Contains(s.SpeciesId) && !s.Retired)
+        var scans = (await db.Scans.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.SpeciesId) && !s.Retired)
                 .Select(s => new { s.Id, s.SpeciesId, Count = db.ScanPoints.Count(p => p.ScanId == s.Id) }).ToListAsync(ct))
             .GroupBy(s => s.SpeciesId).ToDictionary(g => g.Key, g => g.OrderByDescending(s => s.Id).First());
-        var stored = await db.FrequencyChecks.Where(c => calcIds.Contains(c.CalculationId)).ToDictionaryAsync(c => c.CalculationId, ct);
+        // Only what decides whether a check is current; its reasons and evidence are rewritten, never read, here.
+        var stored = await db.FrequencyChecks.AsNoTracking().Where(c => EF.Parameter(calcIds).Contains(c.CalculationId))
+            .Select(c => new { c.Id, c.CalculationId, c.InputFingerprint }).ToDictionaryAsync(c => c.CalculationId, ct);
 
         var rerun = new List<int>();
         foreach (var s in byCalc)
@@ -79,8 +80,8 @@ public sealed class DerivationService(TimeProvider time)
             var pairs = s.Pairs.Select(p => (p.AtomA, p.AtomB)).ToArray();
             scans.TryGetValue(s.SpeciesId, out var scanInfo);
             var fingerprint = CheckRunner.Fingerprint(s.CalcId, pairs, scanInfo?.Id, scanInfo?.Count, model);
-            stored.TryGetValue(s.CalcId, out var existing);
-            if (!force && existing is not null && existing.InputFingerprint == fingerprint) continue;
+            stored.TryGetValue(s.CalcId, out var current);
+            if (!force && current is not null && current.InputFingerprint == fingerprint) continue;
 
             var calc = await db.Calculations.AsNoTracking().Include(c => c.Species).FirstAsync(c => c.Id == s.CalcId, ct);
             Scan? scan = null;
@@ -94,16 +95,20 @@ public sealed class DerivationService(TimeProvider time)
             }
             var input = CheckRunner.FromStored(calc, calc.Species!, pairs, scan, points);
             var (verdict, reasons, evidence) = CheckRunner.Run(input, model);
-            if (existing is null)
+            var check = new FrequencyCheck
             {
-                existing = new FrequencyCheck { CalculationId = s.CalcId };
-                db.FrequencyChecks.Add(existing);
+                CalculationId = s.CalcId, Verdict = verdict, ReasonsJson = reasons, EvidenceJson = evidence, InputFingerprint = fingerprint,
+                ComputedAt = time.GetUtcNow(),
+            };
+            if (current is null) db.FrequencyChecks.Add(check);
+            else
+            {
+                // Written over the stored row by its key, every field marked (attaching takes the values set as the stored ones).
+                check.Id = current.Id;
+                var entry = db.FrequencyChecks.Attach(check);
+                foreach (var property in entry.Properties)
+                    if (!property.Metadata.IsPrimaryKey()) property.IsModified = true;
             }
-            existing.Verdict = verdict;
-            existing.ReasonsJson = reasons;
-            existing.EvidenceJson = evidence;
-            existing.InputFingerprint = fingerprint;
-            existing.ComputedAt = time.GetUtcNow();
             rerun.Add(s.CalcId);
         }
         await db.SaveChangesAsync(ct);
@@ -116,17 +121,40 @@ public sealed class DerivationService(TimeProvider time)
         Action<int, int>? progress, CancellationToken ct)
     {
         var inputs = await DerivationInputs.LoadAsync(db, studyIds, reactionIds, ct);
-        var deriver = new ReactionDeriver(model, inputs);
-        var results = new List<DerivedReaction>(inputs.Reactions.Count);
-        for (var i = 0; i < inputs.Reactions.Count; i++)
-        {
-            ct.ThrowIfCancellationRequested();
-            results.Add(deriver.Derive(inputs.Reactions[i]));
-            if ((i + 1) % 250 == 0) progress?.Invoke(i + 1, inputs.Reactions.Count);
-        }
-        progress?.Invoke(inputs.Reactions.Count, inputs.Reactions.Count);
+        var results = DeriveAll(model, inputs, progress, ct);
         await WriteAsync(db, results, ct);
-        return results.Count;
+        return results.Length;
+    }
+
+    /// <summary>
+    /// Derives every reaction of <paramref name="inputs"/>, the reactions split into one contiguous slice per core, each slice with
+    /// its own <see cref="ReactionDeriver"/> (its caches are not shared between threads; a species used in two slices is computed
+    /// twice, which costs less than locking). The result keeps the input order.
+    /// </summary>
+    internal static DerivedReaction[] DeriveAll(ModelSettings model, DerivationInputs inputs, Action<int, int>? progress, CancellationToken ct, int? slices = null)
+    {
+        var n = inputs.Reactions.Count;
+        var results = new DerivedReaction[n];
+        // A slice of fewer than ~64 reactions is not worth a thread.
+        var parts = Math.Clamp(slices ?? Math.Min(Environment.ProcessorCount, n / 64), 1, Math.Max(1, n));
+        var done = 0;
+        var reported = 0;
+        var gate = new Lock();
+        Parallel.For(0, parts, new ParallelOptions { MaxDegreeOfParallelism = parts, CancellationToken = ct }, slice =>
+        {
+            var deriver = new ReactionDeriver(model, inputs);
+            var (from, to) = ((int)((long)n * slice / parts), (int)((long)n * (slice + 1) / parts));
+            for (var i = from; i < to; i++)
+            {
+                ct.ThrowIfCancellationRequested();
+                results[i] = deriver.Derive(inputs.Reactions[i]);
+                if (progress is not null && Interlocked.Increment(ref done) is var d && d % 250 == 0)
+                    lock (gate)
+                        if (d > reported) progress(reported = d, n); // never backwards, whichever thread gets here first
+            }
+        });
+        progress?.Invoke(n, n);
+        return results;
     }
 
     /// <summary>
@@ -163,7 +191,7 @@ public sealed class DerivationService(TimeProvider time)
             p[0].Value = d.ReactionId; p[1].Value = N(d.BarrierGibbsHartree); p[2].Value = N(d.ReactionGibbsHartree);
             p[3].Value = N(d.BarrierElectronicHartree); p[4].Value = N(d.RateConstantPerSecond); p[5].Value = N(d.HalfLifeSeconds);
             p[6].Value = d.TemperatureKelvin; p[7].Value = d.LevelOfTheory; p[8].Value = d.Consistent ? 1 : 0;
-            p[9].Value = DerivedJson.Write(d.Consistency); p[10].Value = DerivedJson.Write(d.States); p[11].Value = DerivedJson.Write(d.Steps);
+            p[9].Value = d.ConsistencyJson; p[10].Value = d.StatesJson; p[11].Value = d.StepsJson;
             p[12].Value = d.ModelFingerprint; p[13].Value = d.InputFingerprint; p[14].Value = d.InputsRevision; p[15].Value = at;
             await cmd.ExecuteNonQueryAsync(ct);
         }

@@ -16,7 +16,13 @@ internal sealed record DerivedReaction(
     int ReactionId, long InputsRevision, double? BarrierGibbsHartree, double? ReactionGibbsHartree, double? BarrierElectronicHartree,
     double? RateConstantPerSecond, double? HalfLifeSeconds, double TemperatureKelvin, string LevelOfTheory, bool Consistent,
     IReadOnlyList<ConsistencyReason> Consistency, IReadOnlyList<DerivedState> States, IReadOnlyList<DerivedStep> Steps,
-    string ModelFingerprint, string InputFingerprint);
+    string ModelFingerprint, string InputFingerprint)
+{
+    // Serialised as the values are made (on the deriving thread), so storing them is only the write.
+    public string ConsistencyJson { get; } = DerivedJson.Write(Consistency);
+    public string StatesJson { get; } = DerivedJson.Write(States);
+    public string StepsJson { get; } = DerivedJson.Write(Steps);
+}
 
 /// <summary>
 /// Pathway energies for one reaction under one energy model. The ledger's part is choosing the inputs: for each species the

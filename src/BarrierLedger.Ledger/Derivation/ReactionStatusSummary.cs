@@ -43,7 +43,7 @@ internal static class ReactionStatusSummary
         if (result.Count == 0) return result;
         var ids = result.Keys.ToList();
         var saddles = await db.ReactionStates.AsNoTracking()
-            .Where(s => ids.Contains(s.ReactionId) && s.Kind == StateKind.SaddlePoint)
+            .Where(s => EF.Parameter(ids).Contains(s.ReactionId) && s.Kind == StateKind.SaddlePoint)
             .Select(s => new
             {
                 s.ReactionId,
@@ -59,28 +59,43 @@ internal static class ReactionStatusSummary
     public static async Task RefreshAsync(LedgerDbContext db, IReadOnlyCollection<int> reactionIds, CancellationToken ct)
     {
         var statuses = await ComputeAsync(db, reactionIds, ct);
-        // One UPDATE per distinct status (a handful), not one per reaction.
-        foreach (var group in statuses.GroupBy(s => s.Value, s => s.Key))
+        if (statuses.Count == 0) return;
+        var all = statuses.Keys.ToList();
+        var stored = await db.Reactions.AsNoTracking().Where(r => EF.Parameter(all).Contains(r.Id))
+            .Select(r => new { r.Id, r.SaddlePointCount, r.CheckVerdict, r.ReviewStatus }).ToListAsync(ct);
+        var same = stored.Where(r => r.SaddlePointCount is { } n && statuses[r.Id] == new ReactionStatus(n, r.CheckVerdict, r.ReviewStatus))
+            .Select(r => r.Id).ToHashSet();
+        // Only what changed is written: one UPDATE per distinct status (a handful), not one per reaction; each id list goes as one array parameter (EF.Parameter),
+        // not as one SQL parameter per id (EF 10's default), which is slow to prepare and capped in count.
+        foreach (var group in statuses.Where(s => !same.Contains(s.Key)).GroupBy(s => s.Value, s => s.Key))
         {
             var (count, verdict, review) = (group.Key.SaddlePointCount, group.Key.Verdict, group.Key.ReviewStatus);
-            foreach (var chunk in group.Chunk(5000))
-                await db.Reactions.Where(r => chunk.Contains(r.Id)).ExecuteUpdateAsync(u => u
-                    .SetProperty(r => r.SaddlePointCount, count)
-                    .SetProperty(r => r.CheckVerdict, verdict)
-                    .SetProperty(r => r.ReviewStatus, review), ct);
+            var ids = group.ToList();
+            await db.Reactions.Where(r => EF.Parameter(ids).Contains(r.Id)).ExecuteUpdateAsync(u => u
+                .SetProperty(r => r.SaddlePointCount, count)
+                .SetProperty(r => r.CheckVerdict, verdict)
+                .SetProperty(r => r.ReviewStatus, review), ct);
         }
     }
 
-    /// <summary>Recomputes and stores the status of every reaction of the given studies.</summary>
-    public static async Task RefreshStudiesAsync(LedgerDbContext db, IReadOnlyCollection<int> studyIds, CancellationToken ct) =>
-        await RefreshAsync(db, await db.Reactions.Where(r => studyIds.Contains(r.StudyId)).Select(r => r.Id).ToListAsync(ct), ct);
+    /// <summary>
+    /// Computes and stores the status of the reactions (of one study, or all) that have none yet: rows stored before the summary
+    /// existed, e.g. in a restored backup. Run at start-up after the migrations and by every recompute pass.
+    /// </summary>
+    public static async Task FillMissingAsync(LedgerDbContext db, int? studyId, CancellationToken ct)
+    {
+        var q = db.Reactions.Where(r => r.SaddlePointCount == null);
+        if (studyId is { } id) q = q.Where(r => r.StudyId == id);
+        var missing = await q.Select(r => r.Id).ToListAsync(ct);
+        if (missing.Count > 0) await RefreshAsync(db, missing, ct);
+    }
 
     /// <summary>Recomputes and stores the status of every reaction whose saddle-point states use one of these calculations.</summary>
     public static async Task RefreshForCalculationsAsync(LedgerDbContext db, IReadOnlyCollection<int> calculationIds, CancellationToken ct)
     {
         if (calculationIds.Count == 0) return;
         var ids = calculationIds.Distinct().ToList();
-        var reactions = await db.ReactionStates.Where(s => s.SaddleCalculationId != null && ids.Contains(s.SaddleCalculationId.Value))
+        var reactions = await db.ReactionStates.Where(s => s.SaddleCalculationId != null && EF.Parameter(ids).Contains(s.SaddleCalculationId.Value))
             .Select(s => s.ReactionId).Distinct().ToListAsync(ct);
         await RefreshAsync(db, reactions, ct);
     }

@@ -198,9 +198,10 @@ public sealed class RecomputeService(IDbContextFactory<LedgerDbContext> factory,
             {
                 return;
             }
-            catch (Exception ex) when (LedgerRetry.IsBusy(ex))
+            catch (Exception)
             {
-                // SQLite: our own pass holds the write lock for a whole study; the renewal waits for the next beat.
+                // SQLite busy (our own pass holds the write lock for a whole study) or the store briefly unreachable: try at
+                // the next beat. If the lease expires meanwhile and another instance takes it, that renewal reports it lost.
             }
         }
     }
@@ -242,8 +243,8 @@ public sealed class RecomputeService(IDbContextFactory<LedgerDbContext> factory,
                 checks += await derivation.RefreshChecksAsync(db, model, [studyId], null, force: false, token);
                 Publish(Current with { Phase = $"deriving energies (study {studyId})", ChecksRun = checks });
                 var n = await derivation.DeriveAsync(db, model, [studyId], null, (d, _) => Publish(Current with { Done = before + d }), token);
-                // Re-checked saddle points updated their reactions' status already; a whole pass also repairs any status left behind.
-                await ReactionStatusSummary.RefreshStudiesAsync(db, [studyId], token);
+                // Re-checked saddle points updated their reactions' status already; the pass also fills in a status never computed.
+                await ReactionStatusSummary.FillMissingAsync(db, studyId, token);
                 await tx.CommitAsync(token);
                 done = before + n;
                 return n;

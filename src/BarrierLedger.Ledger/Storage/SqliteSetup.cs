@@ -8,7 +8,7 @@ public static class SqliteSetup
 {
     /// <summary>
     /// Creates the data folder, switches the file to WAL (persistent in the file: readers never block the writer),
-    /// and applies pending migrations.
+    /// applies pending migrations and fills in the reaction status summaries a migrated ledger lacks.
     /// </summary>
     public static async Task PrepareAsync(LedgerOptions options, IDbContextFactory<LedgerDbContext> factory, CancellationToken ct = default)
     {
@@ -22,5 +22,7 @@ public static class SqliteSetup
         }
         await using var db = await factory.CreateDbContextAsync(ct);
         await db.Database.MigrateAsync(ct);
+        // A ledger from before the reaction status summary (or a backup of one) gets it now, so its ledger lists read it.
+        await Derivation.ReactionStatusSummary.FillMissingAsync(db, null, ct);
     }
 }

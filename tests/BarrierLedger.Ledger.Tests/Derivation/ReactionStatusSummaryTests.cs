@@ -6,6 +6,7 @@ using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Reviews;
+using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Tests.Export;
 using BarrierLedger.Ledger.Tests.Support;
 using BarrierLedger.Ledger.Uploads;
@@ -106,8 +107,12 @@ public sealed class ReactionStatusSummaryTests
         Assert.Single((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewStatus.Verified, Verdict = Verdict.Passed })).Rows);
         Assert.Empty((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewStatus.Returned })).Rows);
 
-        // A recompute pass writes the summary back.
+        // A recompute pass writes the summary back; so does the start-up (a restored old backup is migrated there).
         await ledger.Get<RecomputeService>().RecomputeAsync([studyId]);
+        Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
+        await using (var db = await ledger.DbAsync())
+            await db.Reactions.ExecuteUpdateAsync(u => u.SetProperty(r => r.SaddlePointCount, (int?)null));
+        await SqliteSetup.PrepareAsync(ledger.Options, ledger.Factory);
         Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
     }
 
