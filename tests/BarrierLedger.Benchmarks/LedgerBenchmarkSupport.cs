@@ -3,6 +3,7 @@ using BenchmarkDotNet.Jobs;
 using System.Text;
 using BarrierLedger.Ledger;
 using BarrierLedger.Ledger.Storage;
+using BarrierLedger.Ledger.Tests.Support;
 using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Configuration;
@@ -10,17 +11,28 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace BarrierLedger.Benchmarks;
 
-/// <summary>A migrated ledger in a fresh temporary folder with the services wired as the app wires them.</summary>
+/// <summary>
+/// A migrated ledger with the services wired as the app wires them: a SQLite file in a fresh temporary folder, or a fresh
+/// database on a throwaway PostgreSQL cluster (started once per run; or the server in BARRIERLEDGER_TEST_POSTGRES).
+/// </summary>
 internal sealed class LedgerBenchHost : IDisposable
 {
-    public LedgerBenchHost()
+    private readonly PostgresServer? _server;
+    private readonly string? _postgres;
+
+    public LedgerBenchHost(StoreProvider store = StoreProvider.Sqlite)
     {
         Directory = Path.Combine(Path.GetTempPath(), "bl-bench-" + Guid.NewGuid().ToString("N")[..10]);
-        var config = new ConfigurationBuilder()
-            .AddInMemoryCollection(new Dictionary<string, string?> { ["BarrierLedger:DataDirectory"] = Directory })
-            .Build();
+        var settings = new Dictionary<string, string?> { ["BarrierLedger:DataDirectory"] = Directory, ["BarrierLedger:Database:Provider"] = store.ToString() };
+        if (store == StoreProvider.PostgreSQL)
+        {
+            if (PostgresServer.Unavailable() is { } why) throw new InvalidOperationException(why);
+            _server = PostgresServer.GetAsync().GetAwaiter().GetResult();
+            settings["BarrierLedger:Database:ConnectionString"] = _postgres = _server.CreateDatabaseAsync().GetAwaiter().GetResult();
+        }
+        var config = new ConfigurationBuilder().AddInMemoryCollection(settings).Build();
         Services = new ServiceCollection().AddLedger(config).BuildServiceProvider();
-        SqliteSetup.PrepareAsync(Options, Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>()).GetAwaiter().GetResult();
+        LedgerDatabase.PrepareAsync(Options, Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>()).GetAwaiter().GetResult();
     }
 
     public string Directory { get; }
@@ -36,6 +48,7 @@ internal sealed class LedgerBenchHost : IDisposable
     {
         Services.Dispose();
         SqliteConnection.ClearAllPools();
+        if (_server is not null && _postgres is not null) _server.DropDatabaseAsync(_postgres).GetAwaiter().GetResult();
         try { System.IO.Directory.Delete(Directory, recursive: true); } catch (IOException) { }
     }
 

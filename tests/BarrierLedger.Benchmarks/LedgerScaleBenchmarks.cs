@@ -23,10 +23,14 @@ public class LedgerScaleBenchmarks
     private int _studyId;
     private bool _warm;
 
+    /// <summary>The same study on each engine, in one run (PostgreSQL: a throwaway local cluster, fsync off).</summary>
+    [Params(StoreProvider.Sqlite, StoreProvider.PostgreSQL)]
+    public StoreProvider Store { get; set; }
+
     [GlobalSetup]
     public void Setup()
     {
-        _host = new LedgerBenchHost();
+        _host = new LedgerBenchHost(Store);
         var outcome = _host.Get<UploadService>().StoreDraftAsync(BuildDraft(), new UploadChoices { UploadKey = "scale" }, "bench").GetAwaiter().GetResult();
         if (!outcome.Stored) throw new InvalidOperationException(string.Join("\n", outcome.Errors.Take(20)));
         _studyId = outcome.StudyId!.Value;

@@ -16,6 +16,8 @@ public sealed record BackupInfo(string Path, long SizeBytes, DateTimeOffset Crea
 /// Restore (documented in docs/ledger.md): stop the app, then <see cref="RestoreAsync"/> (or copy the file over
 /// <c>{DataDirectory}/barrierledger.db</c> and delete any <c>-wal</c>/<c>-shm</c> beside it); it refuses a data folder that already
 /// holds a ledger unless forced, and checks the backup's integrity first.
+/// On PostgreSQL the backup is PostgreSQL's own <c>pg_dump --format=custom</c> to
+/// <c>{DataDirectory}/backups/barrierledger-yyyyMMdd-HHmmss.dump</c> (see <see cref="PgDump"/>; restore with <c>pg_restore</c>).
 /// </summary>
 public sealed class BackupService(LedgerOptions options, IDbContextFactory<LedgerDbContext> factory, AuditService audit, TimeProvider time)
 {
@@ -25,6 +27,13 @@ public sealed class BackupService(LedgerOptions options, IDbContextFactory<Ledge
     {
         Directory.CreateDirectory(BackupDirectory);
         var now = time.GetUtcNow();
+        if (options.IsPostgreSql)
+        {
+            var dump = PgDump.TimestampedPath(BackupDirectory, now);
+            await PgDump.RunAsync(options.Database.ConnectionString!, dump, ct);
+            await RecordAsync(userId, dump, ct);
+            return new BackupInfo(dump, new FileInfo(dump).Length, now);
+        }
         var path = Path.Combine(BackupDirectory, $"barrierledger-{now.ToString("yyyyMMdd-HHmmss", CultureInfo.InvariantCulture)}.db");
         for (var n = 2; File.Exists(path); n++)
             path = Path.Combine(BackupDirectory, $"barrierledger-{now.ToString("yyyyMMdd-HHmmss", CultureInfo.InvariantCulture)}-{n}.db");
@@ -38,17 +47,20 @@ public sealed class BackupService(LedgerOptions options, IDbContextFactory<Ledge
             await cmd.ExecuteNonQueryAsync(token);
             return 0;
         }, ct);
-        await using (var db = await factory.CreateDbContextAsync(ct))
-        {
-            audit.Record(db, userId, "backup.created", "Backup", Path.GetFileName(path), $"Backup written to {path}.");
-            await db.SaveChangesAsync(ct);
-        }
+        await RecordAsync(userId, path, ct);
         return new BackupInfo(path, new FileInfo(path).Length, now);
     }
 
-    /// <summary>Backups in the backup folder, newest first.</summary>
+    private async Task RecordAsync(string userId, string path, CancellationToken ct)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        audit.Record(db, userId, "backup.created", "Backup", Path.GetFileName(path), $"Backup written to {path}.");
+        await db.SaveChangesAsync(ct);
+    }
+
+    /// <summary>Backups in the backup folder (SQLite copies, or pg_dump files on PostgreSQL), newest first.</summary>
     public IReadOnlyList<BackupInfo> ListBackups() => !Directory.Exists(BackupDirectory) ? [] :
-        [.. new DirectoryInfo(BackupDirectory).GetFiles("barrierledger-*.db").OrderByDescending(f => f.Name)
+        [.. new DirectoryInfo(BackupDirectory).GetFiles(options.IsPostgreSql ? "barrierledger-*.dump" : "barrierledger-*.db").OrderByDescending(f => f.Name)
             .Select(f => new BackupInfo(f.FullName, f.Length, new DateTimeOffset(f.LastWriteTimeUtc, TimeSpan.Zero)))];
 
     /// <summary>

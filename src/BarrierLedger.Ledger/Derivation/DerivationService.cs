@@ -1,6 +1,6 @@
+using System.Data;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
-using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.Storage;
 
@@ -164,35 +164,42 @@ public sealed class DerivationService(TimeProvider time)
     internal async Task WriteAsync(LedgerDbContext db, IReadOnlyList<DerivedReaction> results, CancellationToken ct)
     {
         if (results.Count == 0) return;
-        var connection = (SqliteConnection)db.Database.GetDbConnection();
-        if (connection.State != System.Data.ConnectionState.Open) await connection.OpenAsync(ct);
+        // Plain SQL that SQLite and PostgreSQL both read: quoted names, @-parameters with their types, ON CONFLICT ... excluded.
+        var connection = db.Database.GetDbConnection();
+        if (connection.State != ConnectionState.Open) await connection.OpenAsync(ct);
         await using var cmd = connection.CreateCommand();
-        cmd.Transaction = (SqliteTransaction?)db.Database.CurrentTransaction?.GetDbTransaction();
+        cmd.Transaction = db.Database.CurrentTransaction?.GetDbTransaction();
         cmd.CommandText = """
-            INSERT INTO ReactionDerivations (ReactionId, BarrierGibbsHartree, ReactionGibbsHartree, BarrierElectronicHartree, RateConstantPerSecond,
-                HalfLifeSeconds, TemperatureKelvin, LevelOfTheory, Consistent, ConsistencyJson, StatesJson, StepsJson, ModelFingerprint,
-                InputFingerprint, InputsRevision, ComputedAt)
-            SELECT $r, $bg, $rg, $be, $k, $t, $T, $lot, $ok, $cj, $sj, $tj, $mf, $if, $rev, $at
-            WHERE (SELECT InputsRevision FROM Reactions WHERE Id = $r) = $rev
-            ON CONFLICT (ReactionId) DO UPDATE SET BarrierGibbsHartree = excluded.BarrierGibbsHartree, ReactionGibbsHartree = excluded.ReactionGibbsHartree,
-                BarrierElectronicHartree = excluded.BarrierElectronicHartree, RateConstantPerSecond = excluded.RateConstantPerSecond,
-                HalfLifeSeconds = excluded.HalfLifeSeconds, TemperatureKelvin = excluded.TemperatureKelvin, LevelOfTheory = excluded.LevelOfTheory,
-                Consistent = excluded.Consistent, ConsistencyJson = excluded.ConsistencyJson, StatesJson = excluded.StatesJson, StepsJson = excluded.StepsJson,
-                ModelFingerprint = excluded.ModelFingerprint, InputFingerprint = excluded.InputFingerprint, InputsRevision = excluded.InputsRevision,
-                ComputedAt = excluded.ComputedAt
+            INSERT INTO "ReactionDerivations" ("ReactionId", "BarrierGibbsHartree", "ReactionGibbsHartree", "BarrierElectronicHartree", "RateConstantPerSecond",
+                "HalfLifeSeconds", "TemperatureKelvin", "LevelOfTheory", "Consistent", "ConsistencyJson", "StatesJson", "StepsJson", "ModelFingerprint",
+                "InputFingerprint", "InputsRevision", "ComputedAt")
+            SELECT @r, @bg, @rg, @be, @k, @t, @temp, @lot, @ok, @cj, @sj, @tj, @mf, @if, @rev, @at
+            WHERE (SELECT "InputsRevision" FROM "Reactions" WHERE "Id" = @r) = @rev
+            ON CONFLICT ("ReactionId") DO UPDATE SET "BarrierGibbsHartree" = excluded."BarrierGibbsHartree", "ReactionGibbsHartree" = excluded."ReactionGibbsHartree",
+                "BarrierElectronicHartree" = excluded."BarrierElectronicHartree", "RateConstantPerSecond" = excluded."RateConstantPerSecond",
+                "HalfLifeSeconds" = excluded."HalfLifeSeconds", "TemperatureKelvin" = excluded."TemperatureKelvin", "LevelOfTheory" = excluded."LevelOfTheory",
+                "Consistent" = excluded."Consistent", "ConsistencyJson" = excluded."ConsistencyJson", "StatesJson" = excluded."StatesJson", "StepsJson" = excluded."StepsJson",
+                "ModelFingerprint" = excluded."ModelFingerprint", "InputFingerprint" = excluded."InputFingerprint", "InputsRevision" = excluded."InputsRevision",
+                "ComputedAt" = excluded."ComputedAt"
             """;
-        string[] names = ["$r", "$bg", "$rg", "$be", "$k", "$t", "$T", "$lot", "$ok", "$cj", "$sj", "$tj", "$mf", "$if", "$rev", "$at"];
-        var p = names.Select(n => cmd.Parameters.Add(new SqliteParameter { ParameterName = n })).ToArray();
-        cmd.Prepare();
-        var at = time.GetUtcNow().ToString("O", System.Globalization.CultureInfo.InvariantCulture);
+        (string Name, DbType Type)[] columns =
+        [
+            ("@r", DbType.Int32), ("@bg", DbType.Double), ("@rg", DbType.Double), ("@be", DbType.Double), ("@k", DbType.Double), ("@t", DbType.Double),
+            ("@temp", DbType.Double), ("@lot", DbType.String), ("@ok", DbType.Boolean), ("@cj", DbType.String), ("@sj", DbType.String), ("@tj", DbType.String),
+            ("@mf", DbType.String), ("@if", DbType.String), ("@rev", DbType.Int64), ("@at", DbType.DateTimeOffset),
+        ];
+        var p = columns.Select(c => StoreSql.Parameter(cmd, c.Name, c.Type)).ToArray();
+        var at = time.GetUtcNow();
         static object N(double? x) => x is { } v && double.IsFinite(v) ? v : DBNull.Value;
+        var first = true;
         foreach (var d in results)
         {
             p[0].Value = d.ReactionId; p[1].Value = N(d.BarrierGibbsHartree); p[2].Value = N(d.ReactionGibbsHartree);
             p[3].Value = N(d.BarrierElectronicHartree); p[4].Value = N(d.RateConstantPerSecond); p[5].Value = N(d.HalfLifeSeconds);
-            p[6].Value = d.TemperatureKelvin; p[7].Value = d.LevelOfTheory; p[8].Value = d.Consistent ? 1 : 0;
+            p[6].Value = d.TemperatureKelvin; p[7].Value = d.LevelOfTheory; p[8].Value = d.Consistent;
             p[9].Value = d.ConsistencyJson; p[10].Value = d.StatesJson; p[11].Value = d.StepsJson;
             p[12].Value = d.ModelFingerprint; p[13].Value = d.InputFingerprint; p[14].Value = d.InputsRevision; p[15].Value = at;
+            if (first) { await cmd.PrepareAsync(ct); first = false; }
             await cmd.ExecuteNonQueryAsync(ct);
         }
     }

@@ -47,6 +47,9 @@ public sealed class LedgerBackupService(LedgerOptions options)
     public async Task<BackupManifest> CreateAsync(Stream destination, CancellationToken ct = default)
     {
         ArgumentNullException.ThrowIfNull(destination);
+        if (options.IsPostgreSql)
+            throw new NotSupportedException("The backup archive holds a SQLite copy of the ledger; a PostgreSQL ledger is backed up with pg_dump "
+                + "(barrierledger backup --postgresql CONNSTRING, or pg_dump --format=custom; see docs/ledger.md).");
         if (!File.Exists(options.DatabasePath)) throw new FileNotFoundException($"There is no ledger database at {options.DatabasePath}.", options.DatabasePath);
         var temp = Directory.CreateTempSubdirectory("bl-backup-").FullName;
         try

@@ -30,6 +30,7 @@ public static class LedgerDatabase
     /// <summary>
     /// Start-up: on SQLite creates the data folder, turns on WAL and migrates (<see cref="SqliteSetup"/>); on PostgreSQL applies
     /// the PostgreSQL migrations to the database named by the connection string (creating the database when the account may).
+    /// Both then fill in the reaction status summaries a migrated (or restored) ledger lacks.
     /// </summary>
     public static async Task PrepareAsync(LedgerOptions options, IDbContextFactory<LedgerDbContext> factory, CancellationToken ct = default)
     {
@@ -42,6 +43,7 @@ public static class LedgerDatabase
         try
         {
             await db.Database.MigrateAsync(ct);
+            await Derivation.ReactionStatusSummary.FillMissingAsync(db, null, ct);
         }
         catch (NpgsqlException ex)
         {

@@ -1,3 +1,4 @@
+using System.Data;
 using System.Globalization;
 using System.Security.Cryptography;
 using BarrierLedger.Core.Chemistry;
@@ -8,7 +9,6 @@ using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
-using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.Storage;
 
@@ -232,17 +232,17 @@ public sealed class UploadService(
 
     internal static async Task InsertScanPointsAsync(LedgerDbContext db, int scanId, IReadOnlyList<Core.Scans.ScanPoint> points, CancellationToken ct)
     {
-        var connection = (SqliteConnection)db.Database.GetDbConnection();
+        // One prepared statement, plain SQL that SQLite and PostgreSQL both read (quoted names, @-parameters with their types).
+        var connection = db.Database.GetDbConnection();
         await using var cmd = connection.CreateCommand();
-        cmd.Transaction = (SqliteTransaction?)db.Database.CurrentTransaction?.GetDbTransaction();
-        cmd.CommandText = "INSERT INTO ScanPoints (ScanId, \"Index\", Coordinate, EnergyHartree, Converged, PositionsAngstrom) VALUES ($s, $i, $c, $e, $v, $p)";
-        var ps = cmd.Parameters.Add("$s", SqliteType.Integer);
-        var pi = cmd.Parameters.Add("$i", SqliteType.Integer);
-        var pc = cmd.Parameters.Add("$c", SqliteType.Real);
-        var pe = cmd.Parameters.Add("$e", SqliteType.Real);
-        var pv = cmd.Parameters.Add("$v", SqliteType.Integer);
-        var pp = cmd.Parameters.Add("$p", SqliteType.Blob);
-        cmd.Prepare();
+        cmd.Transaction = db.Database.CurrentTransaction?.GetDbTransaction();
+        cmd.CommandText = "INSERT INTO \"ScanPoints\" (\"ScanId\", \"Index\", \"Coordinate\", \"EnergyHartree\", \"Converged\", \"PositionsAngstrom\") VALUES (@s, @i, @c, @e, @v, @p)";
+        var ps = StoreSql.Parameter(cmd, "@s", DbType.Int32);
+        var pi = StoreSql.Parameter(cmd, "@i", DbType.Int32);
+        var pc = StoreSql.Parameter(cmd, "@c", DbType.Double);
+        var pe = StoreSql.Parameter(cmd, "@e", DbType.Double);
+        var pv = StoreSql.Parameter(cmd, "@v", DbType.Boolean);
+        var pp = StoreSql.Parameter(cmd, "@p", DbType.Binary);
         ps.Value = scanId;
         for (var i = 0; i < points.Count; i++)
         {
@@ -250,8 +250,9 @@ public sealed class UploadService(
             pi.Value = i;
             pc.Value = p.Coordinate;
             pe.Value = p.EnergyHartree;
-            pv.Value = p.Converged ? 1 : 0;
+            pv.Value = p.Converged;
             pp.Value = p.Geometry is { } g ? Blobs.FromPositions(g.PositionsAngstrom) : DBNull.Value;
+            if (i == 0) await cmd.PrepareAsync(ct);
             await cmd.ExecuteNonQueryAsync(ct);
         }
     }

@@ -75,7 +75,14 @@ public static class ExportEndpoints
     private static async Task<IResult> BackupAsync(LedgerBackupService backup, HttpContext http, CancellationToken ct)
     {
         var ms = new MemoryStream();
-        await backup.CreateAsync(ms, ct);
+        try
+        {
+            await backup.CreateAsync(ms, ct);
+        }
+        catch (NotSupportedException ex) // a PostgreSQL ledger: backed up with pg_dump, not as this archive
+        {
+            return ApiProblems.Problem(StatusCodes.Status409Conflict, "not-exportable", "Cannot export", ex.Message);
+        }
         ms.Position = 0;
         return Results.File(ms, "application/zip", $"barrierledger-backup-{DateTime.UtcNow:yyyyMMdd-HHmmss}.zip");
     }

@@ -1,3 +1,4 @@
+using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Core.Demo;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Derivation;
@@ -14,10 +15,10 @@ namespace BarrierLedger.Ledger.Tests.Derivation;
 /// </summary>
 public sealed class DemoImportTests
 {
-    [Fact]
-    public async Task DemoStudy_UnderItsProtocol_GivesSaneBarriers_AndFlagsOnlyTheMixedLevelReaction()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task DemoStudy_UnderItsProtocol_GivesSaneBarriers_AndFlagsOnlyTheMixedLevelReaction(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var dir = FindSeedData();
         var files = Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories).Where(f => !f.EndsWith(".md", StringComparison.Ordinal)).Order(StringComparer.Ordinal)
             .Select(f => new UploadFile(Path.GetRelativePath(dir, f).Replace('\\', '/'), File.ReadAllBytes(f))).ToList();

@@ -1,3 +1,4 @@
+using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
@@ -30,10 +31,10 @@ public sealed class DerivationServiceTests
         return d;
     }
 
-    [Fact]
-    public async Task DeriveAll_InSeveralSlices_GivesWhatOneDeriverGivesReactionByReaction_InTheInputOrder()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task DeriveAll_InSeveralSlices_GivesWhatOneDeriverGivesReactionByReaction_InTheInputOrder(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(ManyPathways(200), new UploadChoices(), "member");
         Assert.True(stored.Stored, string.Join("\n", stored.Errors));
         await using var db = await ledger.DbAsync();

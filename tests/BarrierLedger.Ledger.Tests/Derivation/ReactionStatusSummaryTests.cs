@@ -27,10 +27,10 @@ public sealed class ReactionStatusSummaryTests
         return (r.SaddlePointCount, r.CheckVerdict, r.ReviewStatus);
     }
 
-    [Fact]
-    public async Task VerifyReturnAndReopen_ChangeTheStoredStatusAndTheRow()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task VerifyReturnAndReopen_ChangeTheStoredStatusAndTheRow(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var member = await ledger.AddUserAsync("member", Roles.Member);
         var reviewer = await ledger.AddUserAsync("pi", Roles.Reviewer);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), member);
@@ -69,10 +69,10 @@ public sealed class ReactionStatusSummaryTests
         Assert.Empty((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { Verdict = Verdict.Passed })).Rows);
     }
 
-    [Fact]
-    public async Task ThresholdChange_StoredVerdictFollowsTheRerunCheck()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task ThresholdChange_StoredVerdictFollowsTheRerunCheck(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
         var reactionId = stored.ReactionIds.Single();
         Assert.Equal(Verdict.Passed, (await StoredAsync(ledger, reactionId)).Verdict);
@@ -87,10 +87,10 @@ public sealed class ReactionStatusSummaryTests
         Assert.Equal(Verdict.Failed, Assert.Single((await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(stored.StudyId!.Value)).Rows).Verdict);
     }
 
-    [Fact]
-    public async Task ReactionsStoredBeforeTheSummary_AreListedWithTheirStatusComputedOnTheWay()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task ReactionsStoredBeforeTheSummary_AreListedWithTheirStatusComputedOnTheWay(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var reviewer = await ledger.AddUserAsync("pi", Roles.Reviewer);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
         var studyId = stored.StudyId!.Value;
@@ -112,14 +112,14 @@ public sealed class ReactionStatusSummaryTests
         Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
         await using (var db = await ledger.DbAsync())
             await db.Reactions.ExecuteUpdateAsync(u => u.SetProperty(r => r.SaddlePointCount, (int?)null));
-        await SqliteSetup.PrepareAsync(ledger.Options, ledger.Factory);
+        await LedgerDatabase.PrepareAsync(ledger.Options, ledger.Factory);
         Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
     }
 
-    [Fact]
-    public async Task DemoStudy_StoredStatusOfEveryReaction_IsTheRuleAppliedToItsChecksAndReviews()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task DemoStudy_StoredStatusOfEveryReaction_IsTheRuleAppliedToItsChecksAndReviews(StoreProvider store)
     {
-        var (ledger, studyId) = await DemoLedger.CreateAsync();
+        var (ledger, studyId) = await DemoLedger.CreateAsync(store);
         await using var _ = ledger;
         var reviewer = await ledger.AddUserAsync("pi", Roles.Reviewer);
         var reviews = ledger.Get<ReviewService>();

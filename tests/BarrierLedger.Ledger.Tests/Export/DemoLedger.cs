@@ -1,3 +1,4 @@
+using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Tests.Support;
 using BarrierLedger.Ledger.Uploads;
 
@@ -23,9 +24,11 @@ internal static class DemoLedger
         [.. Directory.EnumerateFiles(folder, "*", SearchOption.AllDirectories).Where(IsDataFile).Order(StringComparer.Ordinal)
             .Select(p => new UploadFile(Path.GetRelativePath(folder, p).Replace('\\', '/'), File.ReadAllBytes(p)))];
 
-    public static async Task<(TempLedger Ledger, int StudyId)> CreateAsync(string? dir = null)
+    public static Task<(TempLedger Ledger, int StudyId)> CreateAsync(string? dir = null) => CreateAsync(StoreProvider.Sqlite, dir);
+
+    public static async Task<(TempLedger Ledger, int StudyId)> CreateAsync(StoreProvider store, string? dir = null)
     {
-        var ledger = await TempLedger.CreateAsync(dir);
+        var ledger = await TempLedger.CreateAsync(store, dir);
         var outcome = await ledger.Get<UploadService>().StoreAsync(Files(SeedFolder), new UploadChoices(), "demo-user");
         if (!outcome.Stored || outcome.StudyId is null)
             throw new InvalidOperationException("The demo study was not stored: " + string.Join("; ", outcome.Issues.Select(i => i.ToString())));

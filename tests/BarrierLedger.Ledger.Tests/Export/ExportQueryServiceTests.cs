@@ -1,3 +1,5 @@
+using BarrierLedger.Ledger.Tests.Support;
+using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Export;
 
@@ -5,10 +7,10 @@ namespace BarrierLedger.Ledger.Tests.Export;
 
 public class ExportQueryServiceTests
 {
-    [Fact]
-    public async Task DemoStudy_TableHasAStepPerSaddlePoint_MarkingUnverifiedAndInconsistentRows()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task DemoStudy_TableHasAStepPerSaddlePoint_MarkingUnverifiedAndInconsistentRows(StoreProvider store)
     {
-        var (ledger, studyId) = await DemoLedger.CreateAsync();
+        var (ledger, studyId) = await DemoLedger.CreateAsync(store);
         await using var _ = ledger;
         var query = new ExportQueryService(ledger.Factory);
         var source = await query.GetTableSourceAsync(studyId);
@@ -27,10 +29,10 @@ public class ExportQueryServiceTests
         Assert.Contains(table.ModelLines, l => l.Contains("K; standard state"));
     }
 
-    [Fact]
-    public async Task DemoStudy_DiagramAndSupportingInformation_ComeOutOfTheLedger()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task DemoStudy_DiagramAndSupportingInformation_ComeOutOfTheLedger(StoreProvider store)
     {
-        var (ledger, studyId) = await DemoLedger.CreateAsync();
+        var (ledger, studyId) = await DemoLedger.CreateAsync(store);
         await using var _ = ledger;
         var query = new ExportQueryService(ledger.Factory);
         var studies = await query.ListStudiesAsync();
@@ -52,10 +54,10 @@ public class ExportQueryServiceTests
         Assert.Contains("Imaginary frequencies: 1 (", text);
     }
 
-    [Fact]
-    public async Task UnknownStudyOrReaction_IsAClearError()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task UnknownStudyOrReaction_IsAClearError(StoreProvider store)
     {
-        await using var ledger = await Support.TempLedger.CreateAsync();
+        await using var ledger = await Support.TempLedger.CreateAsync(store);
         var query = new ExportQueryService(ledger.Factory);
         var e = await Assert.ThrowsAsync<ArgumentException>(() => query.GetTableSourceAsync(999));
         Assert.Contains("no study with id 999", e.Message);

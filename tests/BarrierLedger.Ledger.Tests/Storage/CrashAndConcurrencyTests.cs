@@ -1,3 +1,4 @@
+using BarrierLedger.Ledger.Storage;
 using System.Diagnostics;
 using System.Text;
 using BarrierLedger.Ledger.Backups;
@@ -69,10 +70,10 @@ public sealed class CrashAndConcurrencyTests(ITestOutputHelper output)
         Assert.True(midUpload >= 1, "no kill came during an upload: the test did not test anything");
     }
 
-    [Fact]
-    public async Task EightParallelUploads_IntoOneFile_AreEachStoredExactlyOnce_WithoutLockErrors()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task EightParallelUploads_IntoOneFile_AreEachStoredExactlyOnce_WithoutLockErrors(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var bytes = Encoding.UTF8.GetBytes(H3System.ScanXyz(200, 40));
         var uploads = ledger.Get<UploadService>();
         var tasks = Enumerable.Range(0, 8).Select(i => Task.Run(() => uploads.StoreAsync(

@@ -6,14 +6,25 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace BarrierLedger.Ledger.Tests.Support;
 
-/// <summary>A real ledger: a SQLite file in a fresh temporary folder, migrated, with the services wired as the app wires them.</summary>
+/// <summary>
+/// A real ledger, migrated, with the services wired as the app wires them: a SQLite file in a fresh temporary folder, or a fresh
+/// database on the test PostgreSQL server (<see cref="PostgresServer"/>). PostgreSQL variants are skipped, with the reason, only
+/// when PostgreSQL is not installed and CI is not set; under CI=true a missing PostgreSQL fails the test.
+/// </summary>
 public sealed class TempLedger : IAsyncDisposable
 {
-    private TempLedger(string dir, ServiceProvider services)
+    private readonly PostgresServer? _server;
+    private readonly string? _postgresConnectionString;
+
+    private TempLedger(string dir, ServiceProvider services, PostgresServer? server, string? postgresConnectionString)
     {
         Directory = dir;
         Services = services;
+        _server = server;
+        _postgresConnectionString = postgresConnectionString;
     }
+
+    public StoreProvider Store => Options.Database.Provider;
 
     public string Directory { get; }
     public ServiceProvider Services { get; }
@@ -21,16 +32,32 @@ public sealed class TempLedger : IAsyncDisposable
     public IDbContextFactory<LedgerDbContext> Factory => Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>();
     public T Get<T>() where T : notnull => Services.GetRequiredService<T>();
 
-    public static async Task<TempLedger> CreateAsync(string? dir = null)
+    public static Task<TempLedger> CreateAsync(string? dir = null) => CreateAsync(StoreProvider.Sqlite, dir);
+
+    public static async Task<TempLedger> CreateAsync(StoreProvider store, string? dir = null)
     {
         dir ??= Path.Combine(Path.GetTempPath(), "bl-ledger-" + Guid.NewGuid().ToString("N")[..10]);
-        var config = new ConfigurationBuilder()
-            .AddInMemoryCollection(new Dictionary<string, string?> { ["BarrierLedger:DataDirectory"] = dir })
-            .Build();
+        var settings = new Dictionary<string, string?> { ["BarrierLedger:DataDirectory"] = dir, ["BarrierLedger:Database:Provider"] = store.ToString() };
+        PostgresServer? server = null;
+        if (store == StoreProvider.PostgreSQL)
+        {
+            RequirePostgres();
+            server = await PostgresServer.GetAsync();
+            settings["BarrierLedger:Database:ConnectionString"] = await server.CreateDatabaseAsync();
+        }
+        var config = new ConfigurationBuilder().AddInMemoryCollection(settings).Build();
         var services = new ServiceCollection().AddLedger(config).BuildServiceProvider();
-        var ledger = new TempLedger(dir, services);
-        await SqliteSetup.PrepareAsync(ledger.Options, ledger.Factory);
+        var ledger = new TempLedger(dir, services, server, settings.GetValueOrDefault("BarrierLedger:Database:ConnectionString"));
+        await LedgerDatabase.PrepareAsync(ledger.Options, ledger.Factory);
         return ledger;
+    }
+
+    /// <summary>Skips the calling [SkippableFact]/[SkippableTheory] when PostgreSQL is missing, or fails it under CI=true.</summary>
+    public static void RequirePostgres()
+    {
+        if (PostgresServer.Unavailable() is not { } why) return;
+        if (PostgresServer.InCi) throw new InvalidOperationException($"CI=true and the PostgreSQL variant cannot run: {why}");
+        Skip.If(true, why);
     }
 
     public async Task<LedgerDbContext> DbAsync() => await Factory.CreateDbContextAsync();
@@ -56,6 +83,7 @@ public sealed class TempLedger : IAsyncDisposable
     {
         await Services.DisposeAsync();
         SqliteConnection.ClearAllPools();
+        if (_server is not null && _postgresConnectionString is not null) await _server.DropDatabaseAsync(_postgresConnectionString);
         try { System.IO.Directory.Delete(Directory, recursive: true); } catch (IOException) { }
     }
 }

@@ -1,3 +1,4 @@
+using BarrierLedger.Ledger.Storage;
 using System.Security.Cryptography;
 using System.Text;
 using BarrierLedger.Core.Checks;
@@ -14,10 +15,10 @@ public sealed class UploadServiceTests
 {
     private const string Member = "member-1";
 
-    [Fact]
-    public async Task StoreDraft_WholePathway_WritesRecordsFileCheckAndDerivation()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task StoreDraft_WholePathway_WritesRecordsFileCheckAndDerivation(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var draft = H3System.Draft();
         var outcome = await ledger.Get<UploadService>().StoreDraftAsync(draft, new UploadChoices(), Member);
 
@@ -48,10 +49,10 @@ public sealed class UploadServiceTests
         Assert.Contains(await db.AuditEvents.Select(a => a.Action).ToListAsync(), a => a == "upload.stored");
     }
 
-    [Fact]
-    public async Task StoreDraft_SameFilesTwice_ReportsDuplicatesAndStoresNothingTwice()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task StoreDraft_SameFilesTwice_ReportsDuplicatesAndStoresNothingTwice(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var uploads = ledger.Get<UploadService>();
         Assert.True((await uploads.StoreDraftAsync(H3System.Draft(), new UploadChoices(), Member)).Stored);
         var second = await uploads.StoreDraftAsync(H3System.Draft(), new UploadChoices(), Member);
@@ -65,10 +66,10 @@ public sealed class UploadServiceTests
         Assert.Equal(1, await db.StoredFiles.CountAsync());
     }
 
-    [Fact]
-    public async Task StoreDraft_WithSeveralErrors_WritesNothingAndReportsEveryError()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task StoreDraft_WithSeveralErrors_WritesNothingAndReportsEveryError(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var draft = H3System.Draft();
         draft.Species[1] = new DraftSpecies("H", 0, 1); // an H atom has one electron: multiplicity 1 is impossible
         var r = draft.Reactions[0];
@@ -86,10 +87,10 @@ public sealed class UploadServiceTests
         Assert.Equal(0, await db.AuditEvents.CountAsync());
     }
 
-    [Fact]
-    public async Task Preview_XyzWithoutChoices_ListsWhatIsMissing_AndWritesNothing()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Preview_XyzWithoutChoices_ListsWhatIsMissing_AndWritesNothing(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var file = new UploadFile("ts.xyz", Encoding.UTF8.GetBytes(H3System.TsXyz()));
 
         var preview = await ledger.Get<UploadService>().PreviewAsync([file], new UploadChoices { NewStudyName = "S" });
@@ -102,10 +103,10 @@ public sealed class UploadServiceTests
         Assert.Equal(0, await db.Studies.CountAsync());
     }
 
-    [Fact]
-    public async Task Preview_BrokenXyz_ReportsTheLine()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Preview_BrokenXyz_ReportsTheLine(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var file = new UploadFile("bad.xyz", Encoding.UTF8.GetBytes("3\nenergy=-1.6\nH 0 0 0\nH 0.9 zero 0\nH 1.8 0 0\n"));
         var preview = await ledger.Get<UploadService>().PreviewAsync([file],
             new UploadChoices { NewStudyName = "S", SpeciesLabel = "TS", Kind = CalculationKind.SaddlePoint, LevelOfTheory = H3System.Level });
@@ -114,10 +115,10 @@ public sealed class UploadServiceTests
         Assert.Equal(4, error.Line);
     }
 
-    [Fact]
-    public async Task Store_XyzWithChoices_StoresTheCalculationWithItsFile()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Store_XyzWithChoices_StoresTheCalculationWithItsFile(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var bytes = Encoding.UTF8.GetBytes(H3System.TsXyz());
         var choices = new UploadChoices { NewStudyName = "S", SpeciesLabel = "TS", Kind = CalculationKind.SaddlePoint, LevelOfTheory = "M1/B1//M2/B2" };
 
@@ -137,10 +138,10 @@ public sealed class UploadServiceTests
         Assert.Equal(2, calc.Species.Multiplicity);
     }
 
-    [Fact]
-    public async Task Store_MultiFrameXyzAsScan_StoresEveryPointWithItsGeometry()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Store_MultiFrameXyzAsScan_StoresEveryPointWithItsGeometry(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var bytes = Encoding.UTF8.GetBytes(H3System.ScanXyz(25, 6));
         var outcome = await ledger.Get<UploadService>().StoreAsync([new UploadFile("scan.xyz", bytes)], H3System.ScanChoices("S"), Member);
         Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
@@ -152,10 +153,10 @@ public sealed class UploadServiceTests
         Assert.All(points, p => Assert.Equal(6 * 3 * 8, p.PositionsAngstrom!.Length));
     }
 
-    [Fact]
-    public async Task ImportBundle_UnknownFormat_IsRefusedWithAReason()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task ImportBundle_UnknownFormat_IsRefusedWithAReason(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var outcome = await ledger.Get<UploadService>().ImportBundleAsync(new MemoryStream([1, 2, 3]), "data.bin", Member);
         Assert.False(outcome.Stored);
         Assert.Contains(outcome.Errors, e => e.Message.Contains("unknown file type"));
@@ -171,10 +172,10 @@ public sealed class UploadServiceTests
 
 public sealed class BundleUploadTests
 {
-    [Fact]
-    public async Task ImportBundle_Manifest_StoresThePathwayAndDerivesIt()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task ImportBundle_Manifest_StoresThePathwayAndDerivesIt(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var bytes = System.Text.Encoding.UTF8.GetBytes(H3Bundle.Manifest());
         var outcome = await ledger.Get<UploadService>().ImportBundleAsync(new MemoryStream(bytes), "h3.json", "loader");
         Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
@@ -193,10 +194,10 @@ public sealed class BundleUploadTests
         Assert.Equal(1, await db.Reactions.CountAsync());
     }
 
-    [Fact]
-    public async Task Store_Zip_KeepsTheZipAndItsMembersAsOriginals()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Store_Zip_KeepsTheZipAndItsMembersAsOriginals(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var zip = H3Bundle.Zip();
         var outcome = await ledger.Get<UploadService>().StoreAsync([new UploadFile("h3.zip", zip)], new UploadChoices(), "member");
         Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
@@ -208,10 +209,10 @@ public sealed class BundleUploadTests
         Assert.Equal("h3.zip!ts.xyz", ts.StoredFile!.FileName);
     }
 
-    [Fact]
-    public async Task Preview_BundleWithBrokenReference_ReportsTheJsonPathAndStoresNothing()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Preview_BundleWithBrokenReference_ReportsTheJsonPathAndStoresNothing(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var text = H3Bundle.Manifest().Replace("\"calculation\": \"ts\"", "\"calculation\": \"nope\"");
         var preview = await ledger.Get<UploadService>().PreviewAsync([new UploadFile("h3.json", System.Text.Encoding.UTF8.GetBytes(text))], new UploadChoices());
         Assert.False(preview.CanStore);

@@ -1,3 +1,4 @@
+using BarrierLedger.Ledger.Storage;
 using System.Text;
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
@@ -16,10 +17,10 @@ namespace BarrierLedger.Ledger.Tests.Workflows;
 /// <summary>The ledger's workflows end to end on a real SQLite file.</summary>
 public sealed class WorkflowTests
 {
-    [Fact]
-    public async Task UploadCheckDeriveReviewReopen_FollowsTheSaddlePointThroughItsLife()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task UploadCheckDeriveReviewReopen_FollowsTheSaddlePointThroughItsLife(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var member = await ledger.AddUserAsync("member", Roles.Member);
         var reviewer = await ledger.AddUserAsync("pi", Roles.Reviewer);
         var uploads = ledger.Get<UploadService>();
@@ -69,10 +70,10 @@ public sealed class WorkflowTests
         Assert.Contains(await db.AuditEvents.Select(a => a.Action).ToListAsync(), a => a == "review.reopened");
     }
 
-    [Fact]
-    public async Task EnergyModelChange_MarksValuesStale_ThenRecomputeGivesNewValues()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task EnergyModelChange_MarksValuesStale_ThenRecomputeGivesNewValues(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
         var studyId = stored.StudyId!.Value;
         var query = ledger.Get<LedgerQueryService>();
@@ -103,10 +104,10 @@ public sealed class WorkflowTests
         Assert.True((await ledger.Get<ReactionQueryService>().GetReactionAsync(after.ReactionId))!.Stale);
     }
 
-    [Fact]
-    public async Task ThresholdChange_RerunsTheFrequencyCheck()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task ThresholdChange_RerunsTheFrequencyCheck(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
         var studyId = stored.StudyId!.Value;
         Assert.Equal(Verdict.Passed, Assert.Single((await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId)).Rows).Verdict);
@@ -124,10 +125,10 @@ public sealed class WorkflowTests
         Assert.Contains(check.Reasons, r => r.Code == SaddleCheckCodes.NoSignificantImaginaryMode);
     }
 
-    [Fact]
-    public async Task ConflictingEdits_SecondEditorIsToldAndNothingIsOverwritten()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task ConflictingEdits_SecondEditorIsToldAndNothingIsOverwritten(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
         var records = ledger.Get<RecordService>();
         var reactionId = stored.ReactionIds.Single();
@@ -155,10 +156,10 @@ public sealed class WorkflowTests
         await ledger.Get<RecomputeService>().WhenIdleAsync();
     }
 
-    [Fact]
-    public async Task RetireThenRestore_HidesAndBringsBackRecordsAndTheirEffect()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task RetireThenRestore_HidesAndBringsBackRecordsAndTheirEffect(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
         var studyId = stored.StudyId!.Value;
         var records = ledger.Get<RecordService>();
@@ -189,10 +190,10 @@ public sealed class WorkflowTests
         Assert.Equal(4, await db.AuditEvents.CountAsync(a => a.Action == "record.retired" || a.Action == "record.restored"));
     }
 
-    [Fact]
-    public async Task MixedLevelsAndBrokenFormula_AreShownWithTheirReasons()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task MixedLevelsAndBrokenFormula_AreShownWithTheirReasons(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var draft = H3System.Draft();
         // The saddle point at another level of theory: the barrier mixes levels and must say so.
         var ts = draft.Calculations[2];
@@ -204,10 +205,10 @@ public sealed class WorkflowTests
         Assert.NotNull(row.BarrierElectronic);
     }
 
-    [Fact]
-    public async Task ReactionDetail_HasStatesStepsCheckModesAndScans()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task ReactionDetail_HasStatesStepsCheckModesAndScans(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
+        await using var ledger = await TempLedger.CreateAsync(store);
         var draft = H3System.Draft();
         // A scan of the saddle-point species along H1–H2 with its maximum at 0.93 Å.
         var points = Enumerable.Range(0, 9).Select(i =>
