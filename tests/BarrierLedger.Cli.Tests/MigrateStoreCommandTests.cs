@@ -1,4 +1,5 @@
 using BarrierLedger.Ledger.Storage;
+using BarrierLedger.Ledger.Tests.Support;
 using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
 
@@ -6,35 +7,65 @@ namespace BarrierLedger.Cli.Tests;
 
 /// <summary>
 /// <c>barrierledger migrate-store</c> end to end on the demo ledger: the summary, the refusal of a target that holds a ledger,
-/// and --force. (The copy's fidelity, every query and file hash, is checked in Ledger.Tests' StoreTransferTests on both stores.)
+/// and --force, into SQLite and PostgreSQL. (The copy's fidelity, every query and file hash, is checked in Ledger.Tests'
+/// StoreTransferTests.)
 /// </summary>
 public class MigrateStoreCommandTests
 {
-    [Fact]
-    public async Task MigrateStore_IntoANewSqliteFile_CopiesAndSummarises_ThenRefusesASecondCopy_UnlessForced()
+    [SkippableTheory]
+    [InlineData(StoreProvider.Sqlite)]
+    [InlineData(StoreProvider.PostgreSQL)]
+    public async Task MigrateStore_FromTheDemoSqliteLedger_CopiesAndSummarises_ThenRefusesASecondCopy_UnlessForced(StoreProvider targetStore)
     {
         using var temp = new TempDir();
+        PostgresServer? server = null;
+        string targetSpec, describedTarget;
+        if (targetStore == StoreProvider.PostgreSQL)
+        {
+            if (PostgresServer.Unavailable() is { } why)
+            {
+                if (PostgresServer.InCi) throw new InvalidOperationException("CI=true and the PostgreSQL variant cannot run: " + why);
+                Skip.If(true, why);
+            }
+            server = await PostgresServer.GetAsync();
+            var cs = await server.CreateDatabaseAsync();
+            targetSpec = "postgresql:" + cs;
+            describedTarget = LedgerDatabase.Describe(new LedgerOptions { Database = new DatabaseOptions { Provider = StoreProvider.PostgreSQL, ConnectionString = cs } });
+        }
+        else
+        {
+            var file = Path.Combine(temp.Path, "copy", "ledger-copy.db");
+            targetSpec = "sqlite:" + file;
+            describedTarget = "SQLite file " + file;
+        }
         var source = await ExportCommandTests.DemoDataDirAsync(temp);
-        var target = Path.Combine(temp.Path, "copy", "ledger-copy.db");
+        try
+        {
+            var (code, output, err) = CliRunner.Run("migrate-store", "--from", "sqlite:" + source, "--to", targetSpec);
+            Assert.True(code == 0, err);
+            Assert.Contains($"SQLite file {Path.Combine(source, "barrierledger.db")} -> {describedTarget}", output);
+            var files = await CountStoredFilesAsync(new LedgerOptions { DataDirectory = source });
+            Assert.True(files > 0);
+            Assert.Matches($@"StoredFiles\s+{files}\s+{files}\r?\n", output);
+            Assert.Contains($"row counts equal; {files} stored file(s) verified by SHA-256", output);
 
-        var (code, output, err) = CliRunner.Run("migrate-store", "--from", "sqlite:" + source, "--to", "sqlite:" + target);
-        Assert.True(code == 0, err);
-        Assert.Contains($"SQLite file {Path.Combine(source, "barrierledger.db")} -> SQLite file {target}", output);
-        Assert.Matches(@"StoredFiles\s+(\d+)\s+\1\r?\n", output);
-        Assert.Matches(@"copied \d+ row\(s\) in \d+ tables, row counts equal; [1-9]\d* stored file\(s\) verified by SHA-256", output);
-        Assert.Equal(await CountStoredFilesAsync(source), await CountStoredFilesAsync(Path.GetDirectoryName(target)!, Path.GetFileName(target)));
+            (code, output, err) = CliRunner.Run("migrate-store", "--from", "sqlite:" + source, "--to", targetSpec);
+            Assert.Equal(ExitCodes.ChecksFailed, code);
+            Assert.Contains($"migrate-store refused: the target already holds a ledger (", err);
+            Assert.Contains($"StoredFiles {files}", err);
+            Assert.Contains("give --force to replace it", err);
+            Assert.DoesNotContain("copied", output);
 
-        (code, output, err) = CliRunner.Run("migrate-store", "--from", "sqlite:" + source, "--to", "sqlite:" + target);
-        Assert.Equal(ExitCodes.ChecksFailed, code);
-        Assert.Contains("migrate-store refused: the target already holds a ledger (", err);
-        Assert.Contains("give --force to replace it", err);
-        Assert.DoesNotContain("copied", output);
-
-        (code, output, err) = CliRunner.Run("migrate-store", "--from", "sqlite:" + source, "--to", "sqlite:" + target, "--force");
-        Assert.True(code == 0, err);
-        Assert.Contains("replacing the target's ledger: ", output);
-        Assert.Matches(@"; replaced the ledger that was in the target \([1-9]\d* row\(s\)\)", output);
-        SqliteConnection.ClearAllPools();
+            (code, output, err) = CliRunner.Run("migrate-store", "--from", "sqlite:" + source, "--to", targetSpec, "--force");
+            Assert.True(code == 0, err);
+            Assert.Contains("replacing the target's ledger: ", output);
+            Assert.Matches(@"; replaced the ledger that was in the target \([1-9]\d* row\(s\)\)", output);
+        }
+        finally
+        {
+            SqliteConnection.ClearAllPools();
+            if (server is not null) await server.DropDatabaseAsync(targetSpec["postgresql:".Length..]);
+        }
     }
 
     [Theory]
@@ -58,9 +89,8 @@ public class MigrateStoreCommandTests
         Assert.False(File.Exists(Path.Combine(temp.Path, "t.db")));
     }
 
-    private static async Task<int> CountStoredFilesAsync(string dataDirectory, string fileName = "barrierledger.db")
+    private static async Task<int> CountStoredFilesAsync(LedgerOptions options)
     {
-        var options = new LedgerOptions { DataDirectory = dataDirectory, DatabaseFileName = fileName };
         await using var db = LedgerDatabase.CreateContext(LedgerDatabase.CreateOptions(options));
         return await db.StoredFiles.CountAsync();
     }

@@ -31,6 +31,7 @@ public sealed class StoreTransferException(string message) : Exception(message);
 /// transaction too, so a running app cannot make the copy inconsistent.
 /// A target that already holds rows is refused unless <c>force</c>, which deletes them (reported per table) in the same
 /// transaction. Both stores must already be at the current schema (the caller migrates the target).
+/// Times are kept to the target's resolution: PostgreSQL stores microseconds, where SQLite kept .NET's 100 ns ticks.
 /// </summary>
 public static class StoreTransfer
 {

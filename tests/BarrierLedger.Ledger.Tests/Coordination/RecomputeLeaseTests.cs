@@ -1,5 +1,6 @@
 using BarrierLedger.Ledger.Coordination;
 using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Tests.Support;
 using BarrierLedger.Ledger.Uploads;
 using Microsoft.EntityFrameworkCore;
@@ -8,23 +9,23 @@ namespace BarrierLedger.Ledger.Tests.Coordination;
 
 /// <summary>
 /// Two app instances on one database, modelled as two service providers (each with its own RecomputeService singleton)
-/// over the same SQLite file: the recompute lease lets one of them run a pass at a time, the other reads its progress.
+/// over the same store (one SQLite file, or one PostgreSQL database): the recompute lease lets one of them run a pass at a
+/// time, the other reads its progress.
 /// </summary>
 public sealed class RecomputeLeaseTests
 {
     private static readonly TimeSpan Patience = TimeSpan.FromSeconds(60);
 
-    [Fact]
-    public async Task Request_WhileAnotherInstanceHoldsTheLease_RunsNothing_ShowsItsProgress_AndEndsWhenItsPassCoversTheRequest()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Request_WhileAnotherInstanceHoldsTheLease_RunsNothing_ShowsItsProgress_AndEndsWhenItsPassCoversTheRequest(StoreProvider store)
     {
-        var dir = NewDir();
-        await using var a = await TempLedger.CreateAsync(dir);
-        await using var b = await TempLedger.CreateAsync(dir);
+        await using var a = await TempLedger.CreateAsync(store);
+        await using var b = a.SecondInstance();
         await a.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
-        var store = a.Get<WorkLeaseStore>();
+        var leases = a.Get<WorkLeaseStore>();
         const string other = "host-a/4242/holder01";
-        Assert.True(await store.TryAcquireAsync(RecomputeService.LeaseName, other));
-        Assert.True(await store.RenewAsync(RecomputeService.LeaseName, other, new LeaseProgress("deriving energies (study 1)", 3, 7, 1)));
+        Assert.True(await leases.TryAcquireAsync(RecomputeService.LeaseName, other));
+        Assert.True(await leases.RenewAsync(RecomputeService.LeaseName, other, new LeaseProgress("deriving energies (study 1)", 3, 7, 1)));
 
         var recompute = b.Get<RecomputeService>();
         var pass = recompute.Request();
@@ -36,65 +37,63 @@ public sealed class RecomputeLeaseTests
         Assert.False(pass.IsCompleted);
 
         // The holder finishes a pass that began after b's request was recorded: that covers it, and b never runs one.
-        var row = (await store.ReadAsync(RecomputeService.LeaseName))!;
-        Assert.True(await store.TryReleaseAsync(RecomputeService.LeaseName, other, row.RequestSerial, new LeaseProgress("done", 7, 7, 1), null));
+        var row = (await leases.ReadAsync(RecomputeService.LeaseName))!;
+        Assert.True(await leases.TryReleaseAsync(RecomputeService.LeaseName, other, row.RequestSerial, new LeaseProgress("done", 7, 7, 1), null));
         await pass.WaitAsync(Patience);
         Assert.Equal(0, recompute.PassesRun);
         Assert.False(recompute.Current.Elsewhere);
         Assert.Equal(("done", 7, 7), (recompute.Current.Phase, recompute.Current.Done, recompute.Current.Total));
     }
 
-    [Fact]
-    public async Task Release_WhenRequestsArrivedDuringThePass_IsRefused_SoTheHolderRunsAgain()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Release_WhenRequestsArrivedDuringThePass_IsRefused_SoTheHolderRunsAgain(StoreProvider store)
     {
-        await using var ledger = await TempLedger.CreateAsync();
-        var store = ledger.Get<WorkLeaseStore>();
-        var first = await store.RequestAsync("job");
-        Assert.True(await store.TryAcquireAsync("job", "one"));
-        Assert.False(await store.TryAcquireAsync("job", "two"));
-        await store.RequestAsync("job");
-        Assert.False(await store.TryReleaseAsync("job", "one", first, new LeaseProgress("done", 1, 1, 0), null));
-        var row = (await store.ReadAsync("job"))!;
+        await using var ledger = await TempLedger.CreateAsync(store);
+        var leases = ledger.Get<WorkLeaseStore>();
+        var first = await leases.RequestAsync("job");
+        Assert.True(await leases.TryAcquireAsync("job", "one"));
+        Assert.False(await leases.TryAcquireAsync("job", "two"));
+        await leases.RequestAsync("job");
+        Assert.False(await leases.TryReleaseAsync("job", "one", first, new LeaseProgress("done", 1, 1, 0), null));
+        var row = (await leases.ReadAsync("job"))!;
         Assert.Equal("one", row.Holder);
-        Assert.True(await store.TryReleaseAsync("job", "one", row.RequestSerial, new LeaseProgress("done", 1, 1, 0), null));
-        Assert.True(await store.TryAcquireAsync("job", "two"));
+        Assert.True(await leases.TryReleaseAsync("job", "one", row.RequestSerial, new LeaseProgress("done", 1, 1, 0), null));
+        Assert.True(await leases.TryAcquireAsync("job", "two"));
     }
 
-    [Fact]
-    public async Task Request_WhenTheHolderDiedAndItsLeaseExpired_TakesItOver_AndRunsEveryStudy()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Request_WhenTheHolderDiedAndItsLeaseExpired_TakesItOver_AndRunsEveryStudy(StoreProvider store)
     {
-        var dir = NewDir();
-        await using var a = await TempLedger.CreateAsync(dir);
-        await using var b = await TempLedger.CreateAsync(dir);
+        await using var a = await TempLedger.CreateAsync(store);
+        await using var b = a.SecondInstance();
         var first = await a.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
-        var store = a.Get<WorkLeaseStore>();
+        var leases = a.Get<WorkLeaseStore>();
         // A holder that asked for a pass, took the lease and stopped renewing it a while ago (killed).
-        await store.RequestAsync(RecomputeService.LeaseName);
-        Assert.True(await store.TryAcquireAsync(RecomputeService.LeaseName, "gone/1/deadbeef"));
+        await leases.RequestAsync(RecomputeService.LeaseName);
+        Assert.True(await leases.TryAcquireAsync(RecomputeService.LeaseName, "gone/1/deadbeef"));
         await using (var db = await a.DbAsync())
         {
             var past = DateTimeOffset.UtcNow.AddMinutes(-5).ToUnixTimeMilliseconds();
             await db.WorkLeases.Where(l => l.Name == RecomputeService.LeaseName).ExecuteUpdateAsync(s => s.SetProperty(l => l.ExpiresAtUnixMs, past));
         }
-        Assert.False(store.HeldByOther((await store.ReadAsync(RecomputeService.LeaseName))!, "anyone"));
+        Assert.False(leases.HeldByOther((await leases.ReadAsync(RecomputeService.LeaseName))!, "anyone"));
 
         var recompute = b.Get<RecomputeService>();
         // b asks for a study that does not exist; the dead holder's request has no recorded scope, so b recomputes everything.
         await recompute.Request(first.StudyId!.Value + 1000).WaitAsync(Patience);
         Assert.Equal(1, recompute.PassesRun);
         Assert.Equal(("done", 1, 1), (recompute.Current.Phase, recompute.Current.Done, recompute.Current.Total));
-        var row = (await store.ReadAsync(RecomputeService.LeaseName))!;
+        var row = (await leases.ReadAsync(RecomputeService.LeaseName))!;
         Assert.Null(row.Holder);
         Assert.Equal(row.RequestSerial, row.CompletedSerial);
         Assert.Equal(2, row.CompletedSerial);
     }
 
-    [Fact]
-    public async Task TwoInstances_RequestingAtOnce_NeverRunPassesAtTheSameTime_AndBothSeeTheResult()
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task TwoInstances_RequestingAtOnce_NeverRunPassesAtTheSameTime_AndBothSeeTheResult(StoreProvider store)
     {
-        var dir = NewDir();
-        await using var a = await TempLedger.CreateAsync(dir);
-        await using var b = await TempLedger.CreateAsync(dir);
+        await using var a = await TempLedger.CreateAsync(store);
+        await using var b = a.SecondInstance();
         for (var i = 0; i < 3; i++)
             await a.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
         var ra = a.Get<RecomputeService>();
@@ -132,8 +131,6 @@ public sealed class RecomputeLeaseTests
             Assert.Equal(("done", reactions, false), (p.Phase, p.Done, p.Running));
         }
     }
-
-    private static string NewDir() => Path.Combine(Path.GetTempPath(), "bl-lease-" + Guid.NewGuid().ToString("N")[..10]);
 
     private static async Task<RecomputeProgress> WaitForAsync(RecomputeService service, Func<RecomputeProgress, bool> condition)
     {

@@ -18,13 +18,14 @@ namespace BarrierLedger.Ledger.Tests.Storage;
 /// </summary>
 public sealed class StoreTransferTests
 {
-    [Fact]
-    public async Task CopyAsync_DemoLedgerIntoAnEmptySqliteStore_AnswersEveryQueryAlike_AndRefusesToOverwriteUnlessForced()
+    /// <summary>From the demo SQLite ledger into an empty store of either kind (PostgreSQL is what migrate-store is for).</summary>
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task CopyAsync_DemoSqliteLedgerIntoAnEmptyStore_AnswersEveryQueryAlike_AndRefusesToOverwriteUnlessForced(StoreProvider targetStore)
     {
-        var (source, studyId) = await DemoLedger.CreateAsync();
+        await using var target = await TempLedger.CreateAsync(targetStore);
+        var (source, studyId) = await DemoLedger.CreateAsync(StoreProvider.Sqlite);
         await using var _ = source;
         await PrepareDemoAsync(source, studyId);
-        await using var target = await TempLedger.CreateAsync();
 
         await AssertCopyMatchesAsync(source, target);
     }
@@ -105,7 +106,19 @@ public sealed class StoreTransferTests
             parts.Add(page);
             foreach (var row in page.Rows) parts.Add((await ledger.Get<ReactionQueryService>().GetReactionAsync(row.ReactionId))!);
         }
-        return JsonSerializer.Serialize(parts);
+        return JsonSerializer.Serialize(parts, s_snapshotJson);
+    }
+
+    // PostgreSQL keeps times to the microsecond, SQLite (as text) to .NET's 100 ns tick: a copy into PostgreSQL keeps every
+    // time to the microsecond, so the snapshot compares instants at that resolution. Everything else compares exactly.
+    private static readonly JsonSerializerOptions s_snapshotJson = new() { Converters = { new MicrosecondInstants() } };
+
+    private sealed class MicrosecondInstants : System.Text.Json.Serialization.JsonConverter<DateTimeOffset>
+    {
+        public override DateTimeOffset Read(ref Utf8JsonReader reader, Type typeToConvert, JsonSerializerOptions options) => throw new NotSupportedException();
+
+        public override void Write(Utf8JsonWriter writer, DateTimeOffset value, JsonSerializerOptions options) =>
+            writer.WriteNumberValue(value.UtcTicks / 10);
     }
 
     internal static async Task<SortedDictionary<int, string>> FileHashesAsync(TempLedger ledger)

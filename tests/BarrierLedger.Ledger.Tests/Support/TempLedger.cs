@@ -62,6 +62,24 @@ public sealed class TempLedger : IAsyncDisposable
 
     public async Task<LedgerDbContext> DbAsync() => await Factory.CreateDbContextAsync();
 
+    /// <summary>
+    /// Another app instance on the same store (same SQLite file or PostgreSQL database), with its own singletons; disposing it
+    /// leaves the store to this ledger.
+    /// </summary>
+    public TempLedger SecondInstance()
+    {
+        var settings = new Dictionary<string, string?>
+        {
+            ["BarrierLedger:DataDirectory"] = Directory,
+            ["BarrierLedger:Database:Provider"] = Store.ToString(),
+            ["BarrierLedger:Database:ConnectionString"] = _postgresConnectionString,
+        };
+        var services = new ServiceCollection().AddLedger(new ConfigurationBuilder().AddInMemoryCollection(settings).Build()).BuildServiceProvider();
+        return new TempLedger(Directory, services, null, null) { _shared = true };
+    }
+
+    private bool _shared;
+
     /// <summary>Adds an account with one role directly in the store (what the web app's account pages do through Identity).</summary>
     public async Task<string> AddUserAsync(string name, string role)
     {
@@ -83,6 +101,7 @@ public sealed class TempLedger : IAsyncDisposable
     {
         await Services.DisposeAsync();
         SqliteConnection.ClearAllPools();
+        if (_shared) return;
         if (_server is not null && _postgresConnectionString is not null) await _server.DropDatabaseAsync(_postgresConnectionString);
         try { System.IO.Directory.Delete(Directory, recursive: true); } catch (IOException) { }
     }
