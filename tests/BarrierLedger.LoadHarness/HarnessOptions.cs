@@ -16,6 +16,7 @@ internal sealed class HarnessOptions
     public int ThinkMs { get; private set; } = 1000;
     public bool Keep { get; private set; }
     public string? FromCopy { get; private set; }
+    public string? GcDump { get; private set; }
     public string? WebDll { get; private set; }
     public (string Name, string Password) Reviewer { get; private set; } = ("demo-reviewer", "Demo-reviewer-2026");
     public (string Name, string Password) Member { get; private set; } = ("demo-member", "Demo-member-2026");
@@ -34,12 +35,14 @@ internal sealed class HarnessOptions
           --reactions N        reactions to store in the fresh ledger (default 2000; 25 per study)
           --bundle DIR         store the study folders written by `barrierledger demo generate --reactions N --out DIR` instead
           --users N            concurrent simulated users (default 30)
-          --seconds N          length of the concurrent run (default 60)
+          --seconds N          how long the users browse (default 60; a round begun before the end is finished)
           --loads N            timed loads of each page for the render times (default 50)
           --think-ms N         mean pause of a user between steps (default 1000; each pause is 0.5–1.5 times it)
           --reviewer NAME:PW   account of the even-numbered users, who also open the review queue (default the demo reviewer)
           --member NAME:PW     account of the odd-numbered users (default the demo member)
           --web-dll PATH       the app to start (default src/BarrierLedger.Web/bin/<this configuration>/net10.0/BarrierLedger.Web.dll)
+          --gcdump PATH        the dotnet-gcdump tool: also report the live managed heap (after a full collection) before the
+                               run and with the circuits open, which RSS overstates by the garbage not yet collected
           --keep               keep the fresh data directory (its path is printed)
           --from-copy DIR      start on a fresh copy of a data directory kept with --keep instead of filling one (saves the
                                minutes that storing the reactions takes)
@@ -69,6 +72,7 @@ internal sealed class HarnessOptions
                 case "--member": o.Member = Account(); break;
                 case "--web-dll": o.WebDll = Path.GetFullPath(Next()); break;
                 case "--keep": o.Keep = true; break;
+                case "--gcdump": o.GcDump = Path.GetFullPath(Next()); break;
                 case "--from-copy": o.FromCopy = Path.GetFullPath(Next()); break;
                 default: throw new ArgumentException($"Unknown option '{args[i]}'.");
             }
@@ -76,6 +80,7 @@ internal sealed class HarnessOptions
         if (o.FromCopy is not null && !File.Exists(Path.Combine(o.FromCopy, "barrierledger.db")))
             throw new ArgumentException($"--from-copy: no barrierledger.db in {o.FromCopy}.");
         if (o.Bundle is not null && !Directory.Exists(o.Bundle)) throw new ArgumentException($"--bundle: no folder {o.Bundle}.");
+        if (o.GcDump is not null && !File.Exists(o.GcDump)) throw new ArgumentException($"--gcdump: no file {o.GcDump}.");
         if (o.Pids.Count > 0 && o.Start) throw new ArgumentException("--pid goes with --url (the harness knows the app it starts).");
         return o;
     }

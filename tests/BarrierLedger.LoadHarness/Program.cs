@@ -54,7 +54,9 @@ try
     Console.WriteLine(Verdict("reaction page render p95", site.ReactionP95, 200));
     Console.WriteLine($"  {options.Users} users, {options.Seconds} s: p50 {run.P50:0.0} ms, p95 {run.P95:0.0} ms over {run.Steps} steps; errors {run.Errors} (goal 0)" +
                       (app is null ? "" : $"; the app logged {app.LoggedFailures - failures} fail/crit lines during the run"));
-    Console.WriteLine(run.MemoryPerCircuitMiB is { } m ? $"  server memory per circuit: {m:0.00} MiB (RSS delta / open circuits)" : "  server memory per circuit: not measured (give --pid)");
+    Console.WriteLine(run.MemoryPerCircuitMiB is not { } m ? "  server memory per circuit: not measured (give --pid)"
+        : options.GcDump is null ? $"  server memory per circuit: {m:0.00} MiB (RSS growth / open circuits, idle; an upper bound, see above)"
+        : $"  server memory per circuit: {m * 1024:0} KiB (live managed heap growth / open circuits, after browsing)");
     Console.WriteLine($"  load average at the end: {Machine.LoadAverage()}");
     return run.Errors == 0 ? 0 : 1;
 }

@@ -28,20 +28,18 @@ internal static class RenderTimes
         var ledger = new List<double>();
         var reaction = new List<double>();
         long ledgerBytes = 0, reactionBytes = 0;
+        // Alternating, so that both pages meet the same moments of a shared machine's load.
         for (var i = -5; i < options.Loads; i++)
         {
             var page = await user.GetAsync($"/studies/{studies[(i + 5) % studies.Count]}", LedgerDone);
             if (i >= 0) { ledger.Add(page.Elapsed.TotalMilliseconds); ledgerBytes += page.Html.Length; }
-        }
-        for (var i = -5; i < options.Loads; i++)
-        {
-            var page = await user.GetAsync($"/reactions/{reactions[(i + 5) % reactions.Count]}", ReactionDone);
+            page = await user.GetAsync($"/reactions/{reactions[(i + 5) % reactions.Count]}", ReactionDone);
             if (i >= 0) { reaction.Add(page.Elapsed.TotalMilliseconds); reactionBytes += page.Html.Length; }
         }
 
         Console.WriteLine();
         Console.WriteLine($"Server render time (signed-in GET over loopback, from request sent to last byte of the prerendered HTML; " +
-                          $"{options.Loads} loads each after 5 warm-up loads, one at a time; {studies.Count} studies, {reactions.Count} reactions rotated); " +
+                          $"{options.Loads} loads each after 5 warm-up loads, one at a time, the two pages alternating; {studies.Count} studies, {reactions.Count} reactions rotated); " +
                           $"load average {Machine.LoadAverage()}");
         Console.WriteLine(Latencies.Row("ledger page /studies/{id}", ledger) + $"  ~{ledgerBytes / ledger.Count / 1024} KiB");
         Console.WriteLine(Latencies.Row("reaction page /reactions/{id}", reaction) + $"  ~{reactionBytes / reaction.Count / 1024} KiB");

@@ -24,7 +24,7 @@ public sealed class ReviewQueuePageTests : IDisposable
             .AddInMemoryCollection(new Dictionary<string, string?> { ["BarrierLedger:DataDirectory"] = _dataDirectory }).Build();
         _ctx.Services.AddLedger(config);
         _ctx.AddAuthorization().SetAuthorized("mira").SetPolicies(policies);
-        await SqliteSetup.PrepareAsync(_ctx.Services.GetRequiredService<LedgerOptions>(), _ctx.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
+        await LedgerDatabase.PrepareAsync(_ctx.Services.GetRequiredService<LedgerOptions>(), _ctx.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
         var uploads = _ctx.Services.GetRequiredService<UploadService>();
         for (var i = 1; i <= saddlePoints; i++)
         {
@@ -64,7 +64,8 @@ public sealed class ReviewQueuePageTests : IDisposable
         Assert.True(cut.Find("nav.paginator button:first-child").HasAttribute("disabled"));
 
         cut.FindAll("nav.paginator button").Single(b => b.TextContent == "Next").Click();
-        Assert.Equal(3, cut.FindAll("article").Count);
+        cut.WaitForAssertion(() => Assert.Equal(3, cut.FindAll("article").Count), TimeSpan.FromSeconds(30)); // the next page is queried afresh
+        Assert.Equal($"Saddle points {ReviewQueuePage.PageSize + 1}–{total} of {total} awaiting sign-off.", cut.Find("p[role=status]").TextContent);
         Assert.Contains("Page 2 of 2", cut.Find("nav.paginator").TextContent);
         Assert.True(cut.FindAll("nav.paginator button").Single(b => b.TextContent == "Next").HasAttribute("disabled"));
     }
