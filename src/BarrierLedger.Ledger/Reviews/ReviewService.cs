@@ -46,6 +46,9 @@ public sealed record ReviewQueueItem(
     int StudyId, string StudyName, string UploadedByUserId, string UploadedByName, DateTimeOffset UploadedAt,
     Verdict? Verdict, IReadOnlyList<StoredReason> Reasons, CheckEvidence? Evidence, bool PreviouslyReviewed);
 
+/// <summary>One page of the review queue and the number of saddle points waiting in all.</summary>
+public sealed record ReviewQueueSlice(IReadOnlyList<ReviewQueueItem> Items, int Total);
+
 /// <summary>A refusal because the user is not a reviewer (the page hides the controls too; this is the server's own check).</summary>
 public sealed class ReviewerRequiredException(string message) : UnauthorizedAccessException(message);
 
@@ -57,14 +60,32 @@ public sealed class ReviewerRequiredException(string message) : UnauthorizedAcce
 public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, AuditService audit, TimeProvider time)
 {
     /// <summary>Saddle points in use by a live reaction whose current calculation has no verdict yet, oldest upload first.</summary>
-    public async Task<IReadOnlyList<ReviewQueueItem>> QueueAsync(int? studyId = null, CancellationToken ct = default)
+    public async Task<IReadOnlyList<ReviewQueueItem>> QueueAsync(int? studyId = null, CancellationToken ct = default) =>
+        (await QueuePageAsync(0, int.MaxValue, studyId, ct)).Items;
+
+    /// <summary>
+    /// One page of the queue, oldest first, with the queue's total length. Which saddle points wait, their order and the
+    /// count are decided in the database; only the page's items are read in full (reasons and evidence), so a queue of
+    /// thousands costs a reviewer's screen one page.
+    /// </summary>
+    public async Task<ReviewQueueSlice> QueuePageAsync(int skip, int take, int? studyId = null, CancellationToken ct = default)
     {
+        ArgumentOutOfRangeException.ThrowIfNegative(skip);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(take);
         await using var db = await factory.CreateDbContextAsync(ct);
         var q = db.ReactionStates.AsNoTracking()
             .Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired && !s.Reaction.Study!.Retired
                         && !s.SaddleCalculation!.Retired);
         if (studyId is { } sid) q = q.Where(s => s.Reaction!.StudyId == sid);
-        var rows = await q.Select(s => new
+        // Waiting: never reviewed, or its latest review reopened it.
+        q = q.Where(s => db.Reviews.Where(v => v.CalculationId == s.SaddleCalculationId).OrderByDescending(v => v.Id)
+                             .Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefault() == null
+                         || db.Reviews.Where(v => v.CalculationId == s.SaddleCalculationId).OrderByDescending(v => v.Id)
+                             .Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefault() == ReviewOutcome.Reopened);
+        var total = await q.CountAsync(ct);
+        var ordered = q.OrderBy(s => s.SaddleCalculationId).ThenBy(s => s.Id).Skip(skip);
+        if (take < int.MaxValue) ordered = ordered.Take(take);
+        var rows = await ordered.Select(s => new
         {
             CalcId = s.SaddleCalculationId!.Value,
             CalcLabel = s.SaddleCalculation!.Label,
@@ -78,15 +99,15 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
             s.SaddleCalculation.UploadedByUserId,
             UploaderName = db.Users.Where(u => u.Id == s.SaddleCalculation.UploadedByUserId).Select(u => u.DisplayName).FirstOrDefault(),
             s.SaddleCalculation.UploadedAt,
-            Latest = db.Reviews.Where(v => v.CalculationId == s.SaddleCalculationId).OrderByDescending(v => v.Id).Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefault(),
             Earlier = db.Reviews.Any(v => v.Calculation!.SpeciesId == s.SaddleCalculation.SpeciesId && v.Calculation.Kind == CalculationKind.SaddlePoint),
             Check = db.FrequencyChecks.Where(c => c.CalculationId == s.SaddleCalculationId).Select(c => new { c.Verdict, c.ReasonsJson, c.EvidenceJson }).FirstOrDefault(),
         }).ToListAsync(ct);
-        return [.. rows.Where(r => r.Latest is null or ReviewOutcome.Reopened).OrderBy(r => r.CalcId).Select(r => new ReviewQueueItem(
+        IReadOnlyList<ReviewQueueItem> items = [.. rows.Select(r => new ReviewQueueItem(
             r.CalcId, r.CalcLabel, r.LevelOfTheory, r.StateId, r.StateLabel, r.ReactionId, r.ReactionLabel, r.StudyId, r.StudyName,
             r.UploadedByUserId, string.IsNullOrEmpty(r.UploaderName) ? r.UploadedByUserId : r.UploaderName, r.UploadedAt,
             r.Check?.Verdict, r.Check is null ? [] : DerivedJson.Read<List<StoredReason>>(r.Check.ReasonsJson),
             r.Check is null ? null : DerivedJson.Read<CheckEvidence>(r.Check.EvidenceJson), r.Earlier))];
+        return new ReviewQueueSlice(items, total);
     }
 
     /// <summary>Signs off a saddle-point calculation. Throws <see cref="ReviewerRequiredException"/> for a non-reviewer.</summary>
