@@ -37,9 +37,9 @@ public class LedgerScaleBenchmarks
         using var db = _host.Services.GetService(typeof(IDbContextFactory<LedgerDbContext>)) is IDbContextFactory<LedgerDbContext> f ? f.CreateDbContext() : throw new InvalidOperationException();
         var species = db.Species.Count();
         var reactions = db.ReactionDerivations.Count();
-        Console.WriteLine($"// seeded {species} species, {reactions} derived reactions");
+        Console.WriteLine($"// stored {species} species, {reactions} derived reactions");
         LedgerBenchHost.PrintLoadAverage("before the runs");
-        if (species != 5 * Reactions || reactions != Reactions) throw new InvalidOperationException("seeding did not give 10,000 species in 2,000 derived reactions");
+        if (species != 5 * Reactions || reactions != Reactions) throw new InvalidOperationException("the set-up did not give 10,000 species in 2,000 derived reactions");
     }
 
     [GlobalCleanup]

@@ -14,7 +14,7 @@ public class ExportCommandTests
     /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
     private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
 
-    private static string SeedFolder
+    private static string DemoFolder
     {
         get
         {
@@ -30,7 +30,7 @@ public class ExportCommandTests
         var dir = Path.Combine(temp.Path, "data");
         await using var services = LedgerHost.Build(dir).BuildServiceProvider();
         await SqliteSetup.PrepareAsync(services.GetRequiredService<LedgerOptions>(), services.GetRequiredService<IDbContextFactory<LedgerDbContext>>());
-        var root = SeedFolder;
+        var root = DemoFolder;
         var files = Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Where(IsDataFile).Order(StringComparer.Ordinal)
             .Select(p => new UploadFile(Path.GetRelativePath(root, p).Replace('\\', '/'), File.ReadAllBytes(p))).ToList();
         var outcome = await services.GetRequiredService<UploadService>().StoreAsync(files, new UploadChoices(), "test");
@@ -44,7 +44,7 @@ public class ExportCommandTests
     {
         using var temp = new TempDir();
         var path = Path.Combine(temp.Path, "t.csv");
-        var (code, output, err) = CliRunner.Run("export", "table", "--bundle", SeedFolder, "--format", "csv", "--columns", "reaction,step,dG,review", "--out", path);
+        var (code, output, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--format", "csv", "--columns", "reaction,step,dG,review", "--out", path);
         Assert.True(code == 0, err);
         Assert.Contains("wrote", output);
         using var reader = CsvReader.FromFile(path, new CsvReaderOptions { CommentPrefix = '#' });
@@ -63,7 +63,7 @@ public class ExportCommandTests
     public void ExportExamples_WritesEveryFormat()
     {
         using var temp = new TempDir();
-        var (code, _, err) = CliRunner.Run("export", "examples", "--bundle", SeedFolder, "--out", temp.Path);
+        var (code, _, err) = CliRunner.Run("export", "examples", "--bundle", DemoFolder, "--out", temp.Path);
         Assert.True(code == 0, err);
         foreach (var f in new[] { "barriers.csv", "barriers.xlsx", "barriers.tex", "barriers.md", "diagram.svg", "diagram.png", "coordinates.txt" })
             Assert.True(new FileInfo(Path.Combine(temp.Path, f)).Length > 500, f);
@@ -74,7 +74,7 @@ public class ExportCommandTests
     public void ExportTable_UnknownColumn_IsAUsageError()
     {
         using var temp = new TempDir();
-        var (code, _, err) = CliRunner.Run("export", "table", "--bundle", SeedFolder, "--columns", "reaction,speed", "--out", Path.Combine(temp.Path, "x.csv"));
+        var (code, _, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--columns", "reaction,speed", "--out", Path.Combine(temp.Path, "x.csv"));
         Assert.Equal(ExitCodes.UsageError, code);
         Assert.Contains("unknown column 'speed'", err);
     }

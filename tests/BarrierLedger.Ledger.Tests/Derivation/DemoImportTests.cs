@@ -19,7 +19,7 @@ public sealed class DemoImportTests
     public async Task DemoStudy_UnderItsProtocol_GivesSaneBarriers_AndFlagsOnlyTheMixedLevelReaction(StoreProvider store)
     {
         await using var ledger = await TempLedger.CreateAsync(store);
-        var dir = FindSeedData();
+        var dir = FindDemoFolder();
         var files = Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories).Where(f => !f.EndsWith(".md", StringComparison.Ordinal)).Order(StringComparer.Ordinal)
             .Select(f => new UploadFile(Path.GetRelativePath(dir, f).Replace('\\', '/'), File.ReadAllBytes(f))).ToList();
         var outcome = await ledger.Get<UploadService>().StoreAsync(files, new UploadChoices(), "member-1");
@@ -54,7 +54,7 @@ public sealed class DemoImportTests
         Assert.NotEmpty(rows["KE"].ConsistencyReasons);
     }
 
-    private static string FindSeedData()
+    private static string FindDemoFolder()
     {
         for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
             if (File.Exists(Path.Combine(d.FullName, "seed-data", "bundle.json"))) return Path.Combine(d.FullName, "seed-data");

@@ -10,7 +10,7 @@ internal static class DemoLedger
     /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
     private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
 
-    public static string SeedFolder
+    public static string DemoFolder
     {
         get
         {
@@ -29,7 +29,7 @@ internal static class DemoLedger
     public static async Task<(TempLedger Ledger, int StudyId)> CreateAsync(StoreProvider store, string? dir = null)
     {
         var ledger = await TempLedger.CreateAsync(store, dir);
-        var outcome = await ledger.Get<UploadService>().StoreAsync(Files(SeedFolder), new UploadChoices(), "demo-user");
+        var outcome = await ledger.Get<UploadService>().StoreAsync(Files(DemoFolder), new UploadChoices(), "demo-user");
         if (!outcome.Stored || outcome.StudyId is null)
             throw new InvalidOperationException("The demo study was not stored: " + string.Join("; ", outcome.Issues.Select(i => i.ToString())));
         return (ledger, outcome.StudyId.Value);

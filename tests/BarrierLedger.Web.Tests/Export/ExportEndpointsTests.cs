@@ -13,7 +13,7 @@ public sealed class ExportEndpointsTests
     /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
     private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
 
-    private static string SeedFolder
+    private static string DemoFolder
     {
         get
         {
@@ -25,7 +25,7 @@ public sealed class ExportEndpointsTests
 
     private static async Task<(int StudyId, int ReactionId)> StoreDemoAsync(ApiTestHost host)
     {
-        var root = SeedFolder;
+        var root = DemoFolder;
         var files = Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Where(IsDataFile).Order(StringComparer.Ordinal)
             .Select(p => new UploadFile(Path.GetRelativePath(root, p).Replace('\\', '/'), File.ReadAllBytes(p))).ToList();
         var outcome = await host.Get<UploadService>().StoreAsync(files, new UploadChoices(), "test");
