@@ -3,6 +3,7 @@ using BarrierLedger.Core.Demo;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Queries;
+using BarrierLedger.Ledger.Tests.Export;
 using BarrierLedger.Ledger.Tests.Support;
 using BarrierLedger.Ledger.Uploads;
 
@@ -19,9 +20,7 @@ public sealed class DemoImportTests
     public async Task DemoStudy_UnderItsProtocol_GivesSaneBarriers_AndFlagsOnlyTheMixedLevelReaction(StoreProvider store)
     {
         await using var ledger = await TempLedger.CreateAsync(store);
-        var dir = FindDemoFolder();
-        var files = Directory.EnumerateFiles(dir, "*", SearchOption.AllDirectories).Where(f => !f.EndsWith(".md", StringComparison.Ordinal)).Order(StringComparer.Ordinal)
-            .Select(f => new UploadFile(Path.GetRelativePath(dir, f).Replace('\\', '/'), File.ReadAllBytes(f))).ToList();
+        var files = DemoLedger.Files(DemoLedger.DemoFolder);
         var outcome = await ledger.Get<UploadService>().StoreAsync(files, new UploadChoices(), "member-1");
         Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
         var studyId = outcome.StudyId!.Value;
@@ -52,12 +51,5 @@ public sealed class DemoImportTests
         // KE mixes a geometry protocol on purpose (vinyl alcohol at another level): it must be marked, never silently used.
         Assert.False(rows["KE"].Consistent);
         Assert.NotEmpty(rows["KE"].ConsistencyReasons);
-    }
-
-    private static string FindDemoFolder()
-    {
-        for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
-            if (File.Exists(Path.Combine(d.FullName, "seed-data", "bundle.json"))) return Path.Combine(d.FullName, "seed-data");
-        throw new DirectoryNotFoundException("seed-data/bundle.json not found above " + AppContext.BaseDirectory);
     }
 }
