@@ -12,7 +12,7 @@ using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 
-namespace BarrierLedger.Web.Tests.Api;
+namespace BarrierLedger.Web.Tests.Endpoints;
 
 /// <summary>
 /// The real app (same Program, same pipeline) on Kestrel at a free loopback port, with a fresh temporary data directory.

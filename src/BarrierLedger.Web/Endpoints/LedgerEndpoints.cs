@@ -5,7 +5,7 @@ using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Reviews;
 
-namespace BarrierLedger.Web.Api;
+namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>One ledger row over the API: energies per molecule in hartree and kcal/mol, rate constant and half-life at the model temperature.</summary>
 public sealed record ApiLedgerRow(int ReactionId, string Label, string Description, string Owner,

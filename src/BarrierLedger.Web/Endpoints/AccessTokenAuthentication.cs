@@ -4,7 +4,7 @@ using BarrierLedger.Ledger.Accounts;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.Extensions.Options;
 
-namespace BarrierLedger.Web.Api;
+namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>Claims a token-authenticated request carries beside the user's name, id and roles.</summary>
 public static class ApiClaims

@@ -7,7 +7,7 @@ using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Uploads;
 using Microsoft.EntityFrameworkCore;
 
-namespace BarrierLedger.Web.Tests.Api;
+namespace BarrierLedger.Web.Tests.Endpoints;
 
 public sealed class UploadApiTests
 {

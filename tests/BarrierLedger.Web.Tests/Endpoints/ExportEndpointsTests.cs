@@ -4,9 +4,8 @@ using BarrierLedger.Core.Diagrams;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Uploads;
 using BarrierLedger.Web.Components.Shared.Charts;
-using BarrierLedger.Web.Tests.Api;
 
-namespace BarrierLedger.Web.Tests.Export;
+namespace BarrierLedger.Web.Tests.Endpoints;
 
 public sealed class ExportEndpointsTests
 {

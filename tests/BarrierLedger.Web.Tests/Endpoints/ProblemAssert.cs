@@ -1,7 +1,7 @@
 using System.Net;
 using System.Text.Json;
 
-namespace BarrierLedger.Web.Tests.Api;
+namespace BarrierLedger.Web.Tests.Endpoints;
 
 internal static class ProblemAssert
 {

@@ -1,7 +1,7 @@
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Export;
 
-namespace BarrierLedger.Web.Api;
+namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>The export downloads over the API, through the same <see cref="ExportService"/> as the Export screen (same bytes).</summary>
 internal static class ExportApiEndpoints

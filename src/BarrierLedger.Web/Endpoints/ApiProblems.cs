@@ -1,6 +1,6 @@
 using BarrierLedger.Ledger.Uploads;
 
-namespace BarrierLedger.Web.Api;
+namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>Every API error is an RFC 9457 problem document (application/problem+json) with a stable "code" extension.</summary>
 internal static class ApiProblems

@@ -6,7 +6,7 @@ using BarrierLedger.Ledger.Uploads;
 using Microsoft.AspNetCore.Http.Features;
 using Microsoft.AspNetCore.Mvc;
 
-namespace BarrierLedger.Web.Api;
+namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>A file the API received: its name, size and SHA-256 (so a client can match it with what it sent).</summary>
 public sealed record ApiFileReceipt(string Name, long SizeBytes, string Sha256);

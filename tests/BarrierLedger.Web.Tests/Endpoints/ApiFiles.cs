@@ -1,7 +1,7 @@
 using System.Net.Http.Headers;
 using System.Text;
 
-namespace BarrierLedger.Web.Tests.Api;
+namespace BarrierLedger.Web.Tests.Endpoints;
 
 /// <summary>Small invented inputs and the multipart bodies the API takes.</summary>
 internal static class ApiFiles

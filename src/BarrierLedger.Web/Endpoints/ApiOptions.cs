@@ -1,4 +1,4 @@
-namespace BarrierLedger.Web.Api;
+namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>Settings under "BarrierLedger:Api" (documented in docs/api.md).</summary>
 public sealed class ApiOptions

@@ -8,7 +8,7 @@ using Microsoft.AspNetCore.Authentication.Cookies;
 using Microsoft.AspNetCore.Identity;
 using Microsoft.AspNetCore.RateLimiting;
 
-namespace BarrierLedger.Web.Api;
+namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>Who a token acts as (GET /api/v1/me).</summary>
 public sealed record MeResponse(string UserId, string UserName, string? DisplayName, IReadOnlyList<string> Roles, string Scope, string TokenId);

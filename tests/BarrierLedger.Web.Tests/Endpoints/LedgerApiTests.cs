@@ -5,7 +5,7 @@ using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Accounts;
 using Microsoft.EntityFrameworkCore;
 
-namespace BarrierLedger.Web.Tests.Api;
+namespace BarrierLedger.Web.Tests.Endpoints;
 
 public sealed class LedgerApiTests
 {
