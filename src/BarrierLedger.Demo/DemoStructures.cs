@@ -1,7 +1,7 @@
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
 
-namespace BarrierLedger.Core.Demo;
+namespace BarrierLedger.Demo;
 
 /// <summary>
 /// Hand-built demo geometries with standard bond lengths and angles (typical textbook values, from memory): C–H 1.08–1.10 Å,

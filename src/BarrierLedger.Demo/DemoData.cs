@@ -4,7 +4,7 @@ using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Units;
 
-namespace BarrierLedger.Core.Demo;
+namespace BarrierLedger.Demo;
 
 /// <summary>
 /// Entry point of the demo data: the showcase study (<see cref="Showcase"/>, what <c>seed-data/</c> holds) and a large varied

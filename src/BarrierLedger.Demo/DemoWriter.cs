@@ -9,7 +9,7 @@ using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Units;
 
-namespace BarrierLedger.Core.Demo;
+namespace BarrierLedger.Demo;
 
 /// <summary>
 /// Writes a <see cref="DemoStudy"/> in the tool's own input formats: the bundle manifest (<c>bundle.json</c>, docs/formats.md),
@@ -177,7 +177,7 @@ public static class DemoWriter
         sb.Append("  \"driver\": ").Append(Str(energyOnly ? "energy" : "hessian")).Append(",\n");
         sb.Append("  \"model\": { \"method\": ").Append(Str(lot.Method)).Append(", \"basis\": ").Append(Str(lot.Basis)).Append(" },\n");
         sb.Append("  \"keywords\": {},\n");
-        sb.Append("  \"provenance\": { \"creator\": \"BarrierLedger demo generator (invented data)\", \"version\": \"1\", \"routine\": \"BarrierLedger.Core.Demo\" },\n");
+        sb.Append("  \"provenance\": { \"creator\": \"BarrierLedger demo generator (invented data)\", \"version\": \"1\", \"routine\": \"BarrierLedger.Demo\" },\n");
         sb.Append("  \"properties\": { \"return_energy\": ").Append(Num(s.OptEnergyHartree)).Append(" },\n");
         if (energyOnly)
         {

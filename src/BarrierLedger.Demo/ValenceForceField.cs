@@ -2,7 +2,7 @@ using System.Collections.Immutable;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Units;
 
-namespace BarrierLedger.Core.Demo;
+namespace BarrierLedger.Demo;
 
 /// <summary>One internal coordinate with its weight in a force-field term.</summary>
 public sealed record WeightedCoordinate(InternalCoordinate Coordinate, double Weight);

@@ -1,10 +1,9 @@
 using System.Text;
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
-using BarrierLedger.Core.Demo;
 using BarrierLedger.Core.Formats;
 
-namespace BarrierLedger.Core.Tests.Demo;
+namespace BarrierLedger.Demo.Tests;
 
 public class DemoScaleTests
 {

@@ -1,7 +1,7 @@
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
 
-namespace BarrierLedger.Core.Demo;
+namespace BarrierLedger.Demo;
 
 /// <summary>
 /// Builds demo structures atom by atom: at fixed Cartesian positions, or from a bond length, a bond angle and a dihedral

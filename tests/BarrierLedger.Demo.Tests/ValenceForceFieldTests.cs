@@ -1,11 +1,10 @@
 using BarrierLedger.Core.Chemistry;
-using BarrierLedger.Core.Demo;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Tests.Support;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Core.Vibrations;
 
-namespace BarrierLedger.Core.Tests.Demo;
+namespace BarrierLedger.Demo.Tests;
 
 public class ValenceForceFieldTests
 {

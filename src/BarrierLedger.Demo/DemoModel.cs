@@ -2,7 +2,7 @@ using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
 
-namespace BarrierLedger.Core.Demo;
+namespace BarrierLedger.Demo;
 
 /// <summary>One generated file: its path relative to the output folder ('/' separators) and its text (UTF-8, '\n' line ends).</summary>
 public sealed record DemoFile(string RelativePath, string Content);

@@ -1,4 +1,4 @@
-namespace BarrierLedger.Core.Tests.ReferenceData;
+namespace BarrierLedger.Demo.Tests.ReferenceData;
 
 /// <summary>
 /// Typical geometry of closed-shell organic molecules, used to check the hand-built demo structures.

@@ -1,17 +1,16 @@
 using System.Text;
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
-using BarrierLedger.Core.Demo;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Tests.Formats;
-using BarrierLedger.Core.Tests.ReferenceData;
+using BarrierLedger.Demo.Tests.ReferenceData;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Core.Vibrations;
 
-namespace BarrierLedger.Core.Tests.Demo;
+namespace BarrierLedger.Demo.Tests;
 
 /// <summary>
 /// The committed demo folder (seed-data/) read back through the real readers and run through the real checks.
