@@ -2,7 +2,6 @@ using System.Globalization;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Storage;
-using BarrierLedger.Web.Api;
 using BarrierLedger.Web.Components.Account;
 using Microsoft.AspNetCore.Authorization;
 using Microsoft.AspNetCore.Identity;
