@@ -7,7 +7,7 @@ namespace BarrierLedger.Core.Thermochemistry;
 
 /// <summary>
 /// Ideal-gas, rigid-rotor, harmonic-oscillator thermochemistry (McQuarrie, Statistical Mechanics, 1976, ch. 5–8; the same
-/// expressions as in Ochterski, "Thermochemistry in Gaussian", 2000, for the standard formulas). Per mole, with isotope masses:
+/// standard formulas in Hill, An Introduction to Statistical Thermodynamics, 1960, ch. 8–9). Per mole, with isotope masses:
 /// <list type="bullet">
 /// <item>Translation (Sackur–Tetrode): S = R [ln((2π m k_B T/h²)^{3/2} k_B T/p) + 5/2], U = 3/2 RT, C_V = 3/2 R.</item>
 /// <item>Rotation, linear: S = R [ln(T/(σ θ_r)) + 1], U = RT; non-linear: S = R [ln(√π T^{3/2}/(σ √(θ_A θ_B θ_C))) + 3/2],
