@@ -53,6 +53,7 @@ public static class Program
         var root = new RootCommand("barrierledger: read quantum-chemistry results, analyse frequencies, thermochemistry, rates and scans.");
         root.Subcommands.Add(FreqCommand.Create(context));
         root.Subcommands.Add(ThermoCommand.Create(context));
+        root.Subcommands.Add(KieCommand.Create(context));
         root.Subcommands.Add(RateCommand.Create(context));
         root.Subcommands.Add(ScanCommand.Create(context));
         root.Subcommands.Add(ValidateCommand.Create(context));
