@@ -25,9 +25,13 @@ internal static class KieCommand
         var reactantSubstitute = new Option<string[]>("--reactant-substitute")
         { Description = "The same atoms in each reactant, in the order given (\"4=D\"; \"-\" for none); default: by atom order", AllowMultipleArgumentsPerToken = false };
         var temperature = new Option<double>("--temperature") { Description = "Temperature in K", DefaultValueFactory = _ => 298.15 };
-        var treatment = new Option<string>("--treatment") { Description = "rrho, quasi-rrho-entropy or quasi-rrho-entropy-enthalpy", DefaultValueFactory = _ => "rrho" };
-        treatment.AcceptOnlyFromAmong("rrho", "quasi-rrho-entropy", "quasi-rrho-entropy-enthalpy");
-        var cutoff = new Option<double>("--quasi-rrho-cutoff") { Description = "Quasi-RRHO cut-off ω₀ in cm-1", DefaultValueFactory = _ => 100.0 };
+        var treatment = new Option<string>("--low-modes")
+        {
+            Description = "Treatment of low vibrational modes, as in thermo and the energy model: harmonic, entropy or entropy-enthalpy",
+            DefaultValueFactory = _ => "harmonic",
+        };
+        treatment.AcceptOnlyFromAmong([.. LowModeNames.All]);
+        var cutoff = new Option<double>("--low-mode-cutoff") { Description = "Cut-off ω₀ of the low-mode treatment in cm-1", DefaultValueFactory = _ => 100.0 };
         var tunnelling = new Option<string>("--tunnelling") { Description = "Correction in the KIE: none, wigner, bell or skodje-truhlar", DefaultValueFactory = _ => "none" };
         tunnelling.AcceptOnlyFromAmong("none", "wigner", "bell", "skodje-truhlar");
         var barrier = new Option<double?>("--barrier") { Description = "Zero-point-corrected forward barrier of the parent, for bell and skodje-truhlar" };
@@ -97,12 +101,8 @@ internal static class KieCommand
             Energy? v0 = pr.GetValue(barrier) is { } b ? Energy.From(b, u) : null;
             Energy? v1 = pr.GetValue(reverse) is { } rb ? Energy.From(rb, u) : null;
             if (kind == KieTunnelling.SkodjeTruhlar && v0 is null) throw new UsageException("--tunnelling skodje-truhlar needs --barrier (zero-point-corrected)");
-            var options = new KieOptions(t, pr.GetValue(treatment) switch
-            {
-                "quasi-rrho-entropy" => ThermoTreatment.QuasiRrhoEntropy,
-                "quasi-rrho-entropy-enthalpy" => ThermoTreatment.QuasiRrhoEntropyAndEnthalpy,
-                _ => ThermoTreatment.Rrho,
-            }, pr.GetValue(cutoff), kind, v0, v1, pr.GetValue(bellTerms));
+            if (!(pr.GetValue(cutoff) > 0) || !double.IsFinite(pr.GetValue(cutoff))) throw new UsageException($"--low-mode-cutoff must be above 0 cm-1, got {pr.GetValue(cutoff)}");
+            var options = new KieOptions(t, LowModeNames.Parse(pr.GetValue(treatment)!), pr.GetValue(cutoff), kind, v0, v1, pr.GetValue(bellTerms));
 
             KieResult result;
             try
@@ -142,7 +142,7 @@ internal static class KieCommand
     private static void Write(TextWriter o, KieResult r, ImmutableArray<IsotopeSubstitution> subs)
     {
         o.WriteLine($"Kinetic isotope effect k(parent)/k(isotopologue), {string.Join(", ", subs.Select(s => s.Describe()))}");
-        o.WriteLine($"  temperature {r.Options.TemperatureKelvin.ToString("0.##", CultureInfo.InvariantCulture)} K, {r.Options.Treatment}, tunnelling {r.Options.Tunnelling}");
+        o.WriteLine($"  temperature {r.Options.TemperatureKelvin.ToString("0.##", CultureInfo.InvariantCulture)} K, low modes {LowModeNames.Name(r.Options.Treatment)}, tunnelling {r.Options.Tunnelling}");
         o.WriteLine();
         o.WriteLine("  factor   value");
         foreach (var (name, value) in new[] { ("SYM", r.SymmetryFactor), ("MMI", r.MassMomentFactor), ("ZPE", r.ZeroPointFactor), ("EXC", r.ExcitationFactor),
@@ -161,7 +161,7 @@ internal static class KieCommand
     {
         substitutions = subs.Select(s => s.ToString()),
         temperature_k = r.Options.TemperatureKelvin,
-        treatment = r.Options.Treatment.ToString(),
+        low_modes = LowModeNames.Name(r.Options.Treatment),
         tunnelling = r.Options.Tunnelling.ToString(),
         kie = r.Kie,
         kie_without_tunnelling = r.KieWithoutTunnelling,

@@ -242,6 +242,10 @@ public sealed class IsotopeEffectService(IDbContextFactory<LedgerDbContext> fact
             structures.Add(st);
         }
 
+        foreach (var st in structures.Prepend(ts).Where(x => x.SymmetryNumber > 1))
+            cautions.Add($"{st.Label} has σ = {st.SymmetryNumber}; the isotopologue is given the same σ. A substitution that lowers the symmetry " +
+                         "changes σ and with it the KIE by the ratio of the symmetry numbers (a statistical factor), which is not included.");
+
         // The parent's zero-point-corrected barrier: the stored electronic barrier of this step plus the zero-point energies of the
         // calculations the derivation used (harmonic, from their stored wavenumbers).
         Energy? zeroPointBarrier = null;
