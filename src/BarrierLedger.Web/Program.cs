@@ -1,7 +1,6 @@
 using BarrierLedger.Ledger;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Storage;
-using BarrierLedger.Web.Api;
 using BarrierLedger.Web.Components;
 using BarrierLedger.Web.Components.Account;
 using BarrierLedger.Web.Endpoints;

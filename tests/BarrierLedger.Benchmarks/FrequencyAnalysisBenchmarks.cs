@@ -58,7 +58,7 @@ public class FrequencyAnalysisBenchmarks
     }
 
     /// <summary>A random cluster of atoms ~1.5 Å apart with harmonic springs between all pairs (stiff near, soft far).</summary>
-    private static (Molecule, double[]) SpringCluster(int atoms, int stream)
+    internal static (Molecule, double[]) SpringCluster(int atoms, int stream)
     {
         var rng = new Random(stream);
         var symbols = new[] { "C", "H", "N", "O", "H" };

@@ -1,5 +1,5 @@
 using System.Text;
-using BarrierLedger.Core.Demo;
+using BarrierLedger.Demo;
 
 namespace BarrierLedger.Cli.Tests;
 

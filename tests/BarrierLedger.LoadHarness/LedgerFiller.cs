@@ -1,6 +1,6 @@
 using System.Diagnostics;
 using System.Text;
-using BarrierLedger.Core.Demo;
+using BarrierLedger.Demo;
 using BarrierLedger.Ledger;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Uploads;

@@ -2,7 +2,7 @@ using System.CommandLine;
 using System.Diagnostics;
 using System.Globalization;
 using System.Text;
-using BarrierLedger.Core.Demo;
+using BarrierLedger.Demo;
 
 namespace BarrierLedger.Cli.Commands;
 

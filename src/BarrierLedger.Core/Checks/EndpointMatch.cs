@@ -47,7 +47,8 @@ public sealed record EndpointMatchResult(Verdict Verdict, IReadOnlyList<CheckRea
 /// or an endpoint that was not optimised to the end). Default 0.5 Å: common practice, no source.
 /// </param>
 /// <param name="Connectivity">How bonds are found.</param>
-public sealed record EndpointMatchOptions(double RmsdAttentionAngstrom = 0.5, ConnectivityOptions? Connectivity = null)
+/// <param name="Mapping">How atoms are matched when a state's species list them in another order.</param>
+public sealed record EndpointMatchOptions(double RmsdAttentionAngstrom = 0.5, ConnectivityOptions? Connectivity = null, AtomMappingOptions? Mapping = null)
 {
     public static EndpointMatchOptions Default { get; } = new();
 }
@@ -59,7 +60,7 @@ public sealed record EndpointMatchOptions(double RmsdAttentionAngstrom = 0.5, Co
 /// other way round the result says "swapped" (the chemistry may be right, the direction labels are not).
 /// All structures must have the same atoms in the same order; otherwise <see cref="ArgumentException"/> says which atom differs.
 /// </summary>
-public static class EndpointMatch
+public static partial class EndpointMatch
 {
     public static EndpointMatchResult Compare(Molecule forwardEnd, Molecule backwardEnd, Molecule reactant, Molecule product, EndpointMatchOptions? options = null)
     {

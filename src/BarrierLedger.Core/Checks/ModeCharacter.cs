@@ -51,6 +51,13 @@ public sealed record ModeCharacterResult(
 {
     /// <summary>The <paramref name="count"/> largest components.</summary>
     public IEnumerable<ModeComponent> Leading(int count) => Components.Take(count);
+
+    /// <summary>
+    /// Bonded pairs and long contacts ranked by how fast their distance changes along the mode (<see cref="Checks.DistanceChanges"/>),
+    /// so that a bond forming beyond the covalent cut-off is named even when no declared bond covers it. Empty when the mode came
+    /// without displacements.
+    /// </summary>
+    public ImmutableArray<PairDistanceChange> DistanceChanges { get; init; } = [];
 }
 
 /// <summary>Settings for <see cref="ModeCharacter.Describe"/>.</summary>
@@ -59,12 +66,14 @@ public sealed record ModeCharacterResult(
 /// <param name="SummaryComponentCount">How many components the summary names.</param>
 /// <param name="SummaryMinimumShare">Components below this share are left out of the summary.</param>
 /// <param name="Connectivity">How bonds are found.</param>
+/// <param name="LongContactFactor">Atom pairs up to this multiple of their covalent-radius sum are ranked among the distance changes (<see cref="DistanceChangeOptions"/>).</param>
 public sealed record ModeCharacterOptions(
     double NoiseFrequencyCm1 = 10.0,
     double NoiseRigidBodyFraction = 0.9,
     int SummaryComponentCount = 3,
     double SummaryMinimumShare = 0.05,
-    ConnectivityOptions? Connectivity = null)
+    ConnectivityOptions? Connectivity = null,
+    double LongContactFactor = 2.0)
 {
     public static ModeCharacterOptions Default { get; } = new();
 }
@@ -160,7 +169,12 @@ public static class ModeCharacter
             _ => ModeClass.Bend,
         };
         var rotor = cls == ModeClass.Torsion && IsTerminalGroupBond(graph, components[0].Atoms[0], components[0].Atoms[1]);
-        return new ModeCharacterResult(mode.FrequencyCm1, components, cls, rotor, rigid, Summarise(molecule, components, cls, rotor, rigid, o));
+        var distances = DistanceChanges.Along(molecule, d, new DistanceChangeOptions(o.LongContactFactor, o.Connectivity), bonded);
+        var summary = Summarise(molecule, components, cls, rotor, rigid, o);
+        // A long contact that moves most and is not a declared pair is the motion the internal coordinates above cannot name.
+        if (cls != ModeClass.NumericalNoise && distances.Length > 0 && distances[0] is { Relation: PairRelation.LongContact } top && !reaction.Contains(top.Pair))
+            summary += $"; the distance that changes most is {top.Describe()}";
+        return new ModeCharacterResult(mode.FrequencyCm1, components, cls, rotor, rigid, summary) { DistanceChanges = distances };
     }
 
     private static string Summarise(Molecule molecule, ImmutableArray<ModeComponent> components, ModeClass cls, bool rotor, double rigid, ModeCharacterOptions o)

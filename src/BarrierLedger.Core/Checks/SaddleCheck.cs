@@ -184,7 +184,7 @@ public static class SaddleCheck
                     reasons.Add(new(SaddleCheckCodes.ModeMissesReactionBond, CheckSeverity.Failure,
                         $"The imaginary mode {Wave(significant[0].Mode)} mainly moves {string.Join(", ", leading.Select(c => c.Label))}; " +
                         $"none of the declared reaction bonds ({declared}) is among its leading motions. This saddle point belongs to a different " +
-                        "motion than the reaction, or the reaction bonds are declared wrongly."));
+                        "motion than the reaction, or the reaction bonds are declared wrongly." + DistanceSentence(character)));
                 }
             }
         }
@@ -244,6 +244,13 @@ public static class SaddleCheck
     }
 
     private static string Summary(SoftMode s) => s.Character.Summary;
+
+    /// <summary>" The distances that change most are …" naming the leading pairs (long contacts included), or "".</summary>
+    private static string DistanceSentence(ModeCharacterResult character)
+    {
+        var leading = DistanceChanges.Leading(character.DistanceChanges).ToList();
+        return leading.Count == 0 ? "" : $" The interatomic distances that change most along it: {string.Join("; ", leading.Select(c => c.Describe()))}.";
+    }
 
     private static string Wave(NormalMode m) =>
         m.IsImaginary ? $"{Num(Math.Abs(m.FrequencyCm1))}i cm⁻¹" : $"{Num(m.FrequencyCm1)} cm⁻¹";

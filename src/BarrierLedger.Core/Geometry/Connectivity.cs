@@ -89,6 +89,46 @@ public sealed class Connectivity
         return ([.. other.Bonds.Where(b => !_set.Contains(b))], [.. Bonds.Where(b => !other._set.Contains(b))]);
     }
 
+    /// <summary>
+    /// The connected components of the bond graph (the separate molecules of a structure such as "A + B"): each an ascending
+    /// list of 0-based atoms, the components ordered by their lowest atom.
+    /// </summary>
+    public ImmutableArray<ImmutableArray<int>> Components()
+    {
+        var seen = new bool[AtomCount];
+        var result = ImmutableArray.CreateBuilder<ImmutableArray<int>>();
+        for (var start = 0; start < AtomCount; start++)
+        {
+            if (seen[start]) continue;
+            var members = new List<int>();
+            var stack = new Stack<int>([start]);
+            seen[start] = true;
+            while (stack.Count > 0)
+            {
+                var a = stack.Pop();
+                members.Add(a);
+                foreach (var n in _neighbours[a])
+                    if (!seen[n]) { seen[n] = true; stack.Push(n); }
+            }
+            members.Sort();
+            result.Add([.. members]);
+        }
+        return result.ToImmutable();
+    }
+
+    /// <summary>The bond graph restricted to <paramref name="atoms"/> (0-based, ascending), renumbered 0..k−1 in that order.</summary>
+    public Connectivity Subgraph(IReadOnlyList<int> atoms)
+    {
+        ArgumentNullException.ThrowIfNull(atoms);
+        var index = new Dictionary<int, int>(atoms.Count);
+        for (var k = 0; k < atoms.Count; k++) index[atoms[k]] = k;
+        var bonds = new List<Bond>();
+        foreach (var a in atoms)
+            foreach (var n in _neighbours[a])
+                if (n > a && index.TryGetValue(n, out var kn)) bonds.Add(new Bond(index[a], kn));
+        return new Connectivity(atoms.Count, bonds);
+    }
+
     /// <summary>Same atom count and exactly the same bonds.</summary>
     public bool SameAs(Connectivity other) => other.AtomCount == AtomCount && _set.SetEquals(other._set);
 

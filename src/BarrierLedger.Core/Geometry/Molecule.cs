@@ -31,6 +31,18 @@ public sealed record Molecule
     /// <summary>Number of electrons: Σ Z − charge.</summary>
     public int ElectronCount => Elements.Sum(e => e.AtomicNumber) - Charge;
 
+    /// <summary>
+    /// The atoms listed (0-based), in that order, as a structure of their own. Charge 0 and multiplicity 1: a fragment's charge
+    /// and spin cannot be read from its geometry.
+    /// </summary>
+    public Molecule Fragment(IReadOnlyList<int> atoms)
+    {
+        ArgumentNullException.ThrowIfNull(atoms);
+        foreach (var a in atoms)
+            if (a < 0 || a >= AtomCount) throw new ArgumentException($"Atom index {a} is outside 0..{AtomCount - 1}.", nameof(atoms));
+        return new Molecule(atoms.Select(a => Elements[a]), atoms.Select(a => PositionsAngstrom[a]));
+    }
+
     /// <summary>"C4" style label for a 0-based atom index.</summary>
     public string AtomLabel(int index) => $"{Elements[index].Symbol}{index + 1}";
 

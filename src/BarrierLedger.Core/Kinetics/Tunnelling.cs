@@ -52,6 +52,45 @@ public static class Tunnelling
     }
 
     /// <summary>
+    /// Bell's correction for a one-dimensional parabolic barrier (R. P. Bell, The Tunnel Effect in Chemistry, Chapman and Hall,
+    /// 1980, ch. 2; Trans. Faraday Soc. 55, 1 (1959)). With u = h c |ν̃‡| / k_B T and the barrier height V₀ (the zero-point-corrected
+    /// barrier, as in <see cref="SkodjeTruhlar"/>), the thermally averaged transmission of the parabola cut off at the reactant energy is
+    /// <code>Q = (u/2)/sin(u/2) − Σ_{n=1}^{N} (−1)^{n−1} u/(2πn − u) · exp[(u − 2πn) V₀/(u k_B T)]</code>
+    /// The first term alone (<paramref name="terms"/> = 0, or no barrier given) is the infinite parabola; the series is alternating with
+    /// falling terms, so the error of stopping after N terms is below the first term left out. N = 1 is Skodje and Truhlar's expression
+    /// for an exoergic step. Defined above the crossover temperature only (u &lt; 2π): below it the parabolic model fails and this
+    /// throws <see cref="ArgumentException"/>.
+    /// </summary>
+    /// <param name="imaginaryFrequencyCm1">|ν̃‡| in cm⁻¹ (sign ignored).</param>
+    /// <param name="temperatureKelvin">T in K.</param>
+    /// <param name="barrier">V₀ per molecule; null for the infinite parabola.</param>
+    /// <param name="terms">N, the number of terms of the sum kept (0 to 50).</param>
+    public static double Bell(double imaginaryFrequencyCm1, double temperatureKelvin, Energy? barrier = null, int terms = BellDefaultTerms)
+    {
+        var u = ReducedFrequency(imaginaryFrequencyCm1, temperatureKelvin);
+        if (terms is < 0 or > 50) throw new ArgumentException($"Bell's series is kept to 0–50 terms, got {terms}.", nameof(terms));
+        if (u >= 2.0 * Math.PI)
+            throw new ArgumentException(
+                $"Bell's parabolic correction needs T above the crossover temperature {CrossoverTemperatureKelvin(imaginaryFrequencyCm1):F1} K " +
+                $"(|ν̃‡| = {Math.Abs(imaginaryFrequencyCm1):F1} cm⁻¹, T = {temperatureKelvin} K).", nameof(temperatureKelvin));
+        var q = 0.5 * u / Math.Sin(0.5 * u);
+        if (barrier is not { } v) return q;
+        if (!(v.Hartree > 0) || !double.IsFinite(v.Hartree))
+            throw new ArgumentException($"Barrier must be positive, got {v.KcalPerMol:G6} kcal/mol.", nameof(barrier));
+        var heightOverKT = v.Hartree * PhysicalConstants.HartreeJoule / (PhysicalConstants.BoltzmannJoulePerKelvin * temperatureKelvin);
+        for (var n = 1; n <= terms; n++)
+        {
+            var sign = n % 2 == 1 ? 1.0 : -1.0;
+            q -= sign * u / (2.0 * Math.PI * n - u) * Math.Exp((u - 2.0 * Math.PI * n) * heightOverKT / u);
+        }
+        return q;
+    }
+
+    /// <summary>The number of terms of Bell's series kept by default: 1, the first correction for the finite barrier. Each further term is
+    /// smaller than the one before by about exp(−2π V₀ / (h c |ν̃‡|)): 4×10⁻⁷ for V₀ = 10 kcal/mol and |ν̃‡| = 1500 cm⁻¹.</summary>
+    public const int BellDefaultTerms = 1;
+
+    /// <summary>
     /// Crossover temperature T_c = h c |ν̃‡| / (2π k_B) in K below which tunnelling dominates (β &gt; α in Skodje–Truhlar).
     /// </summary>
     public static double CrossoverTemperatureKelvin(double imaginaryFrequencyCm1) =>

@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Paths;
 
 namespace BarrierLedger.Core.Scans;
 
@@ -19,5 +20,9 @@ public sealed record ScanCoordinate(ScanCoordinateKind Kind, IReadOnlyList<int> 
     public string Unit => Kind == ScanCoordinateKind.Distance ? "Å" : "°";
 }
 
-/// <summary>One point of a relaxed scan: coordinate value, electronic energy in hartree, whether it converged, and its geometry if known.</summary>
-public sealed record ScanPoint(double Coordinate, double EnergyHartree, bool Converged = true, Molecule? Geometry = null);
+/// <summary>
+/// One point of a relaxed scan: coordinate value, electronic energy in hartree, whether it converged, and its geometry if known.
+/// A scan point is a <see cref="PathFrame"/> whose coordinate is the scanned one.
+/// </summary>
+public sealed record ScanPoint(double Coordinate, double EnergyHartree, bool Converged = true, Molecule? Geometry = null)
+    : PathFrame(Coordinate, EnergyHartree, Converged, Geometry);

@@ -26,30 +26,37 @@ public static class Thermochemistry
     /// modes is unreliable, which is what quasi-RRHO addresses).</summary>
     public const double LowModeWarningCm1 = 100.0;
 
-    /// <summary>Thermochemistry from the real modes of a vibrational analysis (imaginary ones are excluded and listed).</summary>
+    /// <summary>
+    /// Thermochemistry from the real modes of a vibrational analysis (imaginary ones are excluded and listed), with the atomic masses
+    /// the analysis used (<see cref="VibrationalAnalysis.MassesAmu"/>), so an isotopologue's translation and rotation use its own masses.
+    /// </summary>
     public static ThermoResult Compute(VibrationalAnalysis analysis, ThermoOptions options)
     {
         ArgumentNullException.ThrowIfNull(analysis);
-        return Compute(analysis.Molecule, analysis.FrequenciesCm1, options);
+        return Compute(analysis.Molecule, analysis.FrequenciesCm1, options, analysis.MassesAmu);
     }
 
     /// <summary>
     /// Thermal corrections for <paramref name="molecule"/> (geometry for the moments, multiplicity for the electronic entropy) with
     /// vibrational wavenumbers <paramref name="frequenciesCm1"/> (cm⁻¹, imaginary as negative; translations and rotations not included).
+    /// <paramref name="massesAmu"/> gives one atomic mass per atom (amu) for an isotopologue; null for the most abundant isotopes.
     /// </summary>
-    public static ThermoResult Compute(Molecule molecule, IReadOnlyList<double> frequenciesCm1, ThermoOptions options)
+    public static ThermoResult Compute(Molecule molecule, IReadOnlyList<double> frequenciesCm1, ThermoOptions options, IReadOnlyList<double>? massesAmu = null)
     {
         ArgumentNullException.ThrowIfNull(molecule);
         ArgumentNullException.ThrowIfNull(frequenciesCm1);
         ArgumentNullException.ThrowIfNull(options);
         Validate(molecule, frequenciesCm1, options);
+        var masses = massesAmu ?? Inertia.MassesAmu(molecule);
+        if (masses.Count != molecule.AtomCount)
+            throw new ArgumentException($"{masses.Count} masses given for {molecule.AtomCount} atoms.", nameof(massesAmu));
         var t = options.TemperatureKelvin;
         var notes = ImmutableArray.CreateBuilder<string>();
         var shape = Inertia.Shape(molecule);
         var pressure = ReferencePressurePascal(t, options.StandardState, options.PressurePascal, options.ConcentrationMolPerL);
 
         // Translation
-        var massKg = Inertia.TotalMassAmu(molecule) * PhysicalConstants.AtomicMassConstantKilogram;
+        var massKg = masses.Sum() * PhysicalConstants.AtomicMassConstantKilogram;
         var translational = new ThermoContribution(
             Molar(1.5 * R * t),
             R * (Math.Log(TranslationalPartitionFunction(massKg, t, pressure)) + 2.5),
@@ -60,7 +67,7 @@ public static class Thermochemistry
         var sigma = options.SymmetryNumber;
         if (shape != MolecularShape.Atom)
         {
-            var moments = Inertia.PrincipalMomentsAmuAngstrom2(molecule);
+            var moments = Inertia.PrincipalAxes(molecule, masses).MomentsAmuAngstrom2;
             if (shape == MolecularShape.Linear)
             {
                 if (sigma > 2) notes.Add($"Symmetry number {sigma} given for a linear molecule, which has σ = 1 or 2.");

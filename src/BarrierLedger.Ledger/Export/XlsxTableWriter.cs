@@ -1,11 +1,14 @@
-using ClosedXML.Excel;
+using SpreadCheetah;
+using SpreadCheetah.Styling;
+using SpreadCheetah.Worksheets;
 
 namespace BarrierLedger.Ledger.Export;
 
 /// <summary>
-/// Writes a barrier table as an XLSX workbook (ClosedXML): one sheet "Barriers" with the title, the model lines, the table
-/// (numbers as numeric cells holding exactly the printed, rounded values, with a matching number format), the footnotes
-/// and the caution. Column widths are set from the text lengths (no auto-fit: that needs libgdiplus).
+/// Writes a barrier table as an XLSX workbook: one sheet "Barriers" with the title, the model lines, the table (numbers as
+/// numeric cells holding exactly the printed, rounded values, with a matching number format), the footnotes and the caution.
+/// Written forward-only with SpreadCheetah (a streaming writer: rows go out as they are made, no workbook is held in memory),
+/// so column widths are measured from the text before the first row is written.
 /// </summary>
 public static class XlsxTableWriter
 {
@@ -14,86 +17,105 @@ public static class XlsxTableWriter
     /// <summary>1-based row of the header record: title, model lines, one blank row, then the header.</summary>
     public static int HeaderRow(BarrierTable table) => 1 + table.ModelLines.Count + 2;
 
-    public static void Write(BarrierTable table, Stream destination)
+    public static async Task WriteAsync(BarrierTable table, Stream destination, CancellationToken ct = default)
     {
         ArgumentNullException.ThrowIfNull(table);
         ArgumentNullException.ThrowIfNull(destination);
-        using var wb = new XLWorkbook();
-        var ws = wb.Worksheets.Add(SheetName);
-        ws.Cell(1, 1).Value = table.Title;
-        ws.Cell(1, 1).Style.Font.Bold = true;
-        for (var i = 0; i < table.ModelLines.Count; i++) ws.Cell(2 + i, 1).Value = table.ModelLines[i];
-
-        var header = HeaderRow(table);
         var columns = table.Headers.Count + 1;
-        var widths = new double[columns];
-        for (var c = 0; c < table.Headers.Count; c++) SetText(ws.Cell(header, c + 1), table.Headers[c].Plain, widths, c);
-        SetText(ws.Cell(header, columns), BarrierTable.NoteHeader, widths, columns - 1);
-        var headerRange = ws.Range(header, 1, header, columns);
-        headerRange.Style.Font.Bold = true;
-        headerRange.Style.Border.TopBorder = XLBorderStyleValues.Medium;
-        headerRange.Style.Border.BottomBorder = XLBorderStyleValues.Thin;
+        var options = new WorksheetOptions();
+        var widths = Widths(table, columns);
+        for (var c = 0; c < columns; c++) options.Column(c + 1).Width = Math.Clamp(widths[c] + 2, 6, 60);
 
-        var r = header + 1;
-        foreach (var row in table.Rows)
+        await using var book = await Spreadsheet.CreateNewAsync(destination, cancellationToken: ct).ConfigureAwait(false);
+        await book.StartWorksheetAsync(SheetName, options, ct).ConfigureAwait(false);
+        var bold = book.AddStyle(new Style { Font = { Bold = true } });
+        var italic = book.AddStyle(new Style { Font = { Italic = true } });
+        var header = book.AddStyle(new Style
         {
+            Font = { Bold = true },
+            Border = { Top = { BorderStyle = BorderStyle.Medium }, Bottom = { BorderStyle = BorderStyle.Thin } },
+        });
+        var formats = new Dictionary<string, StyleId>(StringComparer.Ordinal);
+        StyleId Format(string format, bool lastRow)
+        {
+            var key = format + (lastRow ? "|last" : "");
+            if (!formats.TryGetValue(key, out var id))
+            {
+                var style = new Style { Format = NumberFormat.Custom(format) };
+                if (lastRow) style.Border.Bottom.BorderStyle = BorderStyle.Medium;
+                formats[key] = id = book.AddStyle(style);
+            }
+            return id;
+        }
+        var lastRowText = book.AddStyle(new Style { Border = { Bottom = { BorderStyle = BorderStyle.Medium } } });
+
+        await book.AddRowAsync([new Cell(table.Title, bold)], ct).ConfigureAwait(false);
+        foreach (var line in table.ModelLines) await book.AddRowAsync([new Cell(line)], ct).ConfigureAwait(false);
+        await book.AddRowAsync(Array.Empty<Cell>(), ct).ConfigureAwait(false);
+        await book.AddRowAsync([.. table.Headers.Select(h => new Cell(h.Plain, header)), new Cell(BarrierTable.NoteHeader, header)], ct).ConfigureAwait(false);
+
+        for (var r = 0; r < table.Rows.Count; r++)
+        {
+            var row = table.Rows[r];
+            var last = r == table.Rows.Count - 1;
+            var cells = new Cell[columns];
             for (var c = 0; c < row.Cells.Count; c++)
             {
-                var cell = ws.Cell(r, c + 1);
                 var v = row.Cells[c];
-                switch (v.Kind)
+                cells[c] = v.Kind switch
                 {
-                    case CellKind.Fixed:
-                        cell.Value = v.Number!.Value;
-                        cell.Style.NumberFormat.Format = v.Decimals == 0 ? "0" : "0." + new string('0', v.Decimals);
-                        Widen(widths, c, v.Plain.Length + 1);
-                        break;
-                    case CellKind.Scientific:
-                        cell.Value = v.Number!.Value;
-                        cell.Style.NumberFormat.Format = "0.00E+00";
-                        Widen(widths, c, 10);
-                        break;
-                    case CellKind.Imaginary:
-                        cell.Value = v.Number!.Value;
-                        cell.Style.NumberFormat.Format = "0\"i\"";
-                        Widen(widths, c, v.Plain.Length + 2);
-                        break;
-                    case CellKind.Empty:
-                        break;
-                    default:
-                        SetText(cell, v.Text, widths, c);
-                        break;
-                }
+                    CellKind.Fixed => new Cell(v.Number!.Value, Format(v.Decimals == 0 ? "0" : "0." + new string('0', v.Decimals), last)),
+                    CellKind.Scientific => new Cell(v.Number!.Value, Format("0.00E+00", last)),
+                    CellKind.Imaginary => new Cell(v.Number!.Value, Format("0\"i\"", last)),
+                    // An empty cell stays empty (no value), with the rule under the last row.
+                    CellKind.Empty => last ? new Cell((string?)null, lastRowText) : new Cell((string?)null),
+                    // Text is written as text: "1e5" or "=…" in a label stays a label, never a number or a formula.
+                    _ => last ? new Cell(v.Text, lastRowText) : new Cell(v.Text),
+                };
             }
-            SetText(ws.Cell(r, columns), string.Join(" ", row.Marks), widths, columns - 1);
-            r++;
+            var marks = string.Join(" ", row.Marks);
+            cells[columns - 1] = last ? new Cell(marks, lastRowText) : new Cell(marks);
+            await book.AddRowAsync(cells, ct).ConfigureAwait(false);
         }
-        ws.Range(r - 1, 1, r - 1, columns).Style.Border.BottomBorder = XLBorderStyleValues.Medium;
 
-        r++;
-        foreach (var f in table.Footnotes) ws.Cell(r++, 1).Value = $"[{f.Mark}] {f.Text}";
-        r++;
-        ws.Cell(r, 1).Value = table.Caution;
-        ws.Cell(r, 1).Style.Font.Italic = true;
-
-        for (var c = 0; c < columns; c++) ws.Column(c + 1).Width = Math.Clamp(widths[c] + 2, 6, 60);
-        wb.SaveAs(destination);
+        await book.AddRowAsync(Array.Empty<Cell>(), ct).ConfigureAwait(false);
+        foreach (var f in table.Footnotes) await book.AddRowAsync([new Cell($"[{f.Mark}] {f.Text}")], ct).ConfigureAwait(false);
+        await book.AddRowAsync(Array.Empty<Cell>(), ct).ConfigureAwait(false);
+        await book.AddRowAsync([new Cell(table.Caution, italic)], ct).ConfigureAwait(false);
+        await book.FinishAsync(ct).ConfigureAwait(false);
     }
 
     public static byte[] ToBytes(BarrierTable table)
     {
         using var ms = new MemoryStream();
-        Write(table, ms);
+        // Writing to memory completes without waiting on I/O; no synchronisation context is captured (ConfigureAwait(false) throughout).
+        Task.Run(() => WriteAsync(table, ms)).GetAwaiter().GetResult();
         return ms.ToArray();
     }
 
-    private static void SetText(IXLCell cell, string text, double[] widths, int column)
+    /// <summary>Column widths in characters from the header, the printed values and the marks (no auto-fit: widths are set up front).</summary>
+    private static double[] Widths(BarrierTable table, int columns)
     {
-        // Set as text explicitly, so "1e5" or "=…" in a label stays a label.
-        cell.SetValue(text);
-        cell.DataType = XLDataType.Text;
-        Widen(widths, column, text.Length);
+        var widths = new double[columns];
+        for (var c = 0; c < table.Headers.Count; c++) widths[c] = table.Headers[c].Plain.Length;
+        widths[columns - 1] = BarrierTable.NoteHeader.Length;
+        foreach (var row in table.Rows)
+        {
+            for (var c = 0; c < row.Cells.Count; c++)
+            {
+                var v = row.Cells[c];
+                var chars = v.Kind switch
+                {
+                    CellKind.Fixed => v.Plain.Length + 1,
+                    CellKind.Scientific => 10,
+                    CellKind.Imaginary => v.Plain.Length + 2,
+                    CellKind.Empty => 0,
+                    _ => v.Text.Length,
+                };
+                widths[c] = Math.Max(widths[c], chars);
+            }
+            widths[columns - 1] = Math.Max(widths[columns - 1], string.Join(" ", row.Marks).Length);
+        }
+        return widths;
     }
-
-    private static void Widen(double[] widths, int column, double chars) => widths[column] = Math.Max(widths[column], chars);
 }

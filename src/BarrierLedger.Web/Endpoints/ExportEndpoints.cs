@@ -3,7 +3,6 @@ using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Storage;
-using BarrierLedger.Web.Api;
 using BarrierLedger.Web.Components.Account;
 using Microsoft.AspNetCore.Authorization;
 using Microsoft.AspNetCore.Identity;

@@ -1,4 +1,4 @@
-using BarrierLedger.Core.Demo;
+using BarrierLedger.Demo;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Derivation;

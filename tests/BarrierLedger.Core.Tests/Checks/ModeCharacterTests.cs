@@ -63,4 +63,53 @@ public class ModeCharacterTests
         Assert.Equal(ModeClass.NumericalNoise, c.Class);
         Close.Absolute(1.0, c.RigidBodyFraction, 1e-9, "rigid-body fraction of a pure rotation", "definition");
     }
+
+    /// <summary>
+    /// Two methyl radicals 2.40 Å apart (C1 with H2–H4, C5 with H6–H8), a C···C bond forming beyond the 1.2 × radius-sum cut-off
+    /// (1.82 Å): the carbons approach each other and the hydrogens follow at 70 % (the groups flatten less than they move).
+    /// </summary>
+    private static (Molecule Molecule, System.Collections.Immutable.ImmutableArray<Vec3> Mode) ApproachingMethyls()
+    {
+        var atoms = new List<Element>();
+        var pos = new List<Vec3>();
+        var d = new List<Vec3>();
+        foreach (var (centre, side) in new[] { (Vec3.Zero, -1.0), (new Vec3(2.40, 0, 0), 1.0) })
+        {
+            atoms.Add(Elements.C); pos.Add(centre); d.Add(new Vec3(-side, 0, 0));
+            for (var k = 0; k < 3; k++)
+            {
+                var phi = 2 * Math.PI * k / 3 + (side > 0 ? Math.PI / 3 : 0);
+                atoms.Add(Elements.H);
+                pos.Add(centre + 1.09 * new Vec3(0.33 * side, 0.944 * Math.Cos(phi), 0.944 * Math.Sin(phi)));
+                d.Add(new Vec3(-0.7 * side, 0, 0));
+            }
+        }
+        return (new Molecule(atoms, pos, multiplicity: 1), TestSystems.Normalised(d));
+    }
+
+    [Fact]
+    public void LongContactStretch_IsNamedAmongTheDistanceChanges_AndInTheSummary()
+    {
+        // dr/ds of C1···C5: (r1 − r5)·(d1 − d5)/|r1 − r5| with d1 = (1, 0, 0)/|d|, d5 = (−1, 0, 0)/|d|, r1 − r5 = (−2.4, 0, 0):
+        // −2/|d|, |d|² = 2 + 6 × 0.49 = 4.94 (B-matrix stretch row, Wilson, Decius and Cross, Molecular Vibrations, 1955).
+        var (m, mode) = ApproachingMethyls();
+        var c = ModeCharacter.Describe(m, new(-420, mode), [(0, 1)]);
+        var top = c.DistanceChanges[0];
+        Assert.Equal(new Bond(0, 4), top.Pair);
+        Assert.Equal(PairRelation.LongContact, top.Relation);
+        Assert.Equal("C1···C5", top.Label);
+        Close.Absolute(-2 / Math.Sqrt(4.94), top.ChangePerUnitDisplacement, 1e-12, "dr(C1···C5)/ds", "analytic, derived in the comment");
+        Close.Absolute(2.40 / 1.52, top.RadiusSumMultiple, 1e-12, "distance / (R_C + R_C)", "Cordero et al., Dalton Trans. 2008, 2832 (R_C = 0.76 Å)");
+        Assert.Contains("the distance that changes most is C1···C5 2.40 Å (long contact, 1.58 × the covalent-radius sum) shortens", c.Summary);
+    }
+
+    [Fact]
+    public void LongContactStretch_WithWrongDeclaredBonds_TheFailureNamesTheRealMotion()
+    {
+        var (m, mode) = ApproachingMethyls();
+        // Declared: C1–H2, which barely moves; the real motion is the C1···C5 approach.
+        var result = SaddleCheck.Run(new SaddleCheckInput(m, [new(-420, mode)], [(0, 1)]));
+        var failure = result.Reasons.Single(r => r.Code == SaddleCheckCodes.ModeMissesReactionBond);
+        Assert.Contains("C1···C5 2.40 Å (long contact, 1.58 × the covalent-radius sum) shortens", failure.Message);
+    }
 }

@@ -71,4 +71,55 @@ public class TunnellingTests
         Assert.Throws<ArgumentException>(() => Tunnelling.Wigner(1000, -1));
         Assert.Throws<ArgumentException>(() => Tunnelling.SkodjeTruhlar(1000, Energy.FromKcalPerMol(-1), Energy.FromKcalPerMol(5), 298.15));
     }
+
+    // Bell's infinite parabola is x/sin x with x = u/2, whose series is 1 + x²/6 + 7x⁴/360 + 31x⁶/15120 + … (Abramowitz & Stegun,
+    // Handbook of Mathematical Functions, 4.3.68, the series of csc); the first two terms are Wigner's correction.
+    [Theory]
+    [InlineData(300.0, 1000.0)]
+    [InlineData(800.0, 600.0)]
+    public void Bell_InfiniteParabola_MatchesTheCosecantSeries_AndWignerToSecondOrder(double nu, double t)
+    {
+        var x = 0.5 * 1.438776877 * nu / t;
+        var series = 1 + x * x / 6 + 7 * Math.Pow(x, 4) / 360 + 31 * Math.Pow(x, 6) / 15120;
+        var bell = Tunnelling.Bell(nu, t);
+        Close.Absolute(series, bell, 2 * Math.Pow(x, 8) / 10, "Bell infinite parabola", "Abramowitz & Stegun 4.3.68");
+        Close.Absolute(Tunnelling.Wigner(nu, t), bell, 2 * 7 * Math.Pow(x, 4) / 360, "Bell vs Wigner", "Wigner 1932: first two terms of the series");
+    }
+
+    // Skodje and Truhlar's κ for an exoergic step (J. Phys. Chem. 85, 624 (1981), eq. 14) is Bell's series cut after its first term.
+    [Theory]
+    [InlineData(1200.0, 298.15, 8.0)]
+    [InlineData(1800.0, 450.0, 3.0)]
+    public void Bell_WithOneTerm_IsSkodjeTruhlarForAnExoergicStep(double nu, double t, double barrierKcal)
+    {
+        var v0 = Energy.FromKcalPerMol(barrierKcal);
+        var st = Tunnelling.SkodjeTruhlar(nu, v0, v0 + Energy.FromKcalPerMol(5), t);
+        Close.Relative(st, Tunnelling.Bell(nu, t, v0, 1), 1e-12, "Bell, one term", "Skodje & Truhlar 1981 eq. 14");
+    }
+
+    // Bell's Q is the Boltzmann average of the parabolic-barrier transmission G(W) = 1/(1 + exp[2π(V₀ − W)/(h c ν̃)]) from W = 0,
+    // relative to the classical step (Bell, The Tunnel Effect in Chemistry, 1980, eq. 2.5): Q = β e^{βV₀} ∫₀^∞ G(W) e^{−βW} dW.
+    // Computed here by plain quadrature, an independent path; the series with enough terms must agree.
+    [Theory]
+    [InlineData(1200.0, 298.15, 6.0)]
+    [InlineData(2000.0, 500.0, 2.0)]
+    public void Bell_WithManyTerms_EqualsTheQuadratureOfTheParabolicTransmission(double nu, double t, double barrierKcal)
+    {
+        var kT = PhysicalConstants.BoltzmannJoulePerKelvin * t;
+        var hcnu = PhysicalConstants.PlanckJouleSecond * PhysicalConstants.SpeedOfLightMetrePerSecond * 100 * nu;
+        var v0 = Energy.FromKcalPerMol(barrierKcal).Hartree * PhysicalConstants.HartreeJoule;
+        // In units of k_B T: Q = ∫₀^∞ e^{b} e^{−w} / (1 + exp[a(b − w)]) dw, a = 2π k_B T/(h c ν̃), b = V₀/k_B T.
+        var a = 2 * Math.PI * kT / hcnu;
+        var b = v0 / kT;
+        double F(double w) => Math.Exp(b - w - Math.Log(1 + Math.Exp(a * (b - w))));
+        var q = MathNet.Numerics.Integrate.DoubleExponential(F, 0, b + 80, 1e-13);
+        Close.Relative(q, Tunnelling.Bell(nu, t, Energy.FromKcalPerMol(barrierKcal), 30), 1e-9, "Bell series, 30 terms", "quadrature of Bell 1980 eq. 2.5");
+    }
+
+    [Fact]
+    public void Bell_BelowTheCrossoverTemperature_RefusesWithTheReason()
+    {
+        var ex = Assert.Throws<ArgumentException>(() => Tunnelling.Bell(2000.0, 200.0));
+        Assert.Contains("crossover temperature", ex.Message);
+    }
 }

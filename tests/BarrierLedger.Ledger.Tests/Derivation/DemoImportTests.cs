@@ -1,5 +1,5 @@
 using BarrierLedger.Ledger.Storage;
-using BarrierLedger.Core.Demo;
+using BarrierLedger.Demo;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Queries;

@@ -1,8 +1,8 @@
 using System.Diagnostics;
 using System.Text;
-using ClosedXML.Excel;
 using CsvHelper;
 using BarrierLedger.Ledger.Export;
+using BarrierLedger.Ledger.Tests.Support;
 
 namespace BarrierLedger.Ledger.Tests.Export;
 
@@ -22,11 +22,8 @@ public class TableWriterTests
         _ => throw new ArgumentException(format),
     };
 
-    private static string XlsxText(byte[] bytes)
-    {
-        using var wb = new XLWorkbook(new MemoryStream(bytes));
-        return string.Join("\n", wb.Worksheet(XlsxTableWriter.SheetName).CellsUsed().Select(c => c.GetString()));
-    }
+    private static string XlsxText(byte[] bytes) =>
+        string.Join("\n", XlsxSheet.Read(bytes, XlsxTableWriter.SheetName).Cells.Select(c => c.Text));
 
     [Theory]
     [MemberData(nameof(Formats))]
@@ -66,38 +63,74 @@ public class TableWriterTests
     }
 
     [Fact]
-    public void Xlsx_ReadsBackWithClosedXml_ToTheSameValues()
+    public void Xlsx_ReadsBackWithOpenXmlSdk_ToTheSameValuesFormatsAndRules()
     {
-        using var wb = new XLWorkbook(new MemoryStream(XlsxTableWriter.ToBytes(s_table)));
-        var ws = wb.Worksheet(XlsxTableWriter.SheetName);
+        var ws = XlsxSheet.Read(XlsxTableWriter.ToBytes(s_table), XlsxTableWriter.SheetName);
+        Assert.Equal(s_table.Title, ws[1, 1]!.Text);
+        Assert.True(ws[1, 1]!.Bold);
+        for (var i = 0; i < s_table.ModelLines.Count; i++) Assert.Equal(s_table.ModelLines[i], ws[2 + i, 1]!.Text);
         var header = XlsxTableWriter.HeaderRow(s_table);
-        for (var c = 0; c < s_table.Headers.Count; c++) Assert.Equal(s_table.Headers[c].Plain, ws.Cell(header, c + 1).GetString());
-        Assert.Equal(BarrierTable.NoteHeader, ws.Cell(header, s_table.Headers.Count + 1).GetString());
+        for (var c = 0; c < s_table.Headers.Count; c++)
+        {
+            var cell = ws[header, c + 1]!;
+            Assert.Equal(s_table.Headers[c].Plain, cell.Text);
+            Assert.True(cell.Bold);
+            Assert.Equal("medium", cell.TopBorder);
+            Assert.Equal("thin", cell.BottomBorder);
+        }
+        Assert.Equal(BarrierTable.NoteHeader, ws[header, s_table.Headers.Count + 1]!.Text);
         for (var r = 0; r < s_table.Rows.Count; r++)
         {
             var row = s_table.Rows[r];
             for (var c = 0; c < row.Cells.Count; c++)
             {
-                var cell = ws.Cell(header + 1 + r, c + 1);
+                var cell = ws[header + 1 + r, c + 1];
                 var expected = row.Cells[c];
                 switch (expected.Kind)
                 {
                     case CellKind.Fixed or CellKind.Scientific or CellKind.Imaginary:
-                        Assert.Equal(XLDataType.Number, cell.DataType);
-                        Assert.Equal(expected.Number!.Value, cell.GetDouble());
+                        Assert.Equal(expected.Number!.Value, cell!.Number);
+                        Assert.Equal(expected.Kind switch
+                        {
+                            CellKind.Fixed => expected.Decimals == 0 ? "0" : "0." + new string('0', expected.Decimals),
+                            CellKind.Scientific => "0.00E+00",
+                            _ => "0\"i\"",
+                        }, cell.NumberFormat);
                         break;
                     case CellKind.Empty:
-                        Assert.True(cell.IsEmpty());
+                        Assert.True(cell is null || (cell.Text.Length == 0 && cell.Number is null));
                         break;
                     default:
-                        Assert.Equal(expected.Text, cell.GetString());
+                        // Text stays text, never parsed into a number.
+                        Assert.Null(cell!.Number);
+                        Assert.Equal(expected.Text, cell.Text);
                         break;
                 }
             }
-            Assert.Equal(string.Join(" ", row.Marks), ws.Cell(header + 1 + r, row.Cells.Count + 1).GetString());
+            Assert.Equal(string.Join(" ", row.Marks), ws[header + 1 + r, row.Cells.Count + 1]!.Text);
         }
-        // Widths were set (no auto-fit), wide enough for the longest header.
-        Assert.True(ws.Column(1).Width >= "R2 hydrolysis & co".Length);
+        // The rule under the table: the last row's cells carry a medium bottom border.
+        Assert.Equal("medium", ws[header + s_table.Rows.Count, 1]!.BottomBorder);
+        var footRow = header + s_table.Rows.Count + 2;
+        foreach (var f in s_table.Footnotes) Assert.Equal($"[{f.Mark}] {f.Text}", ws[footRow++, 1]!.Text);
+        var caution = ws[footRow + 1, 1]!;
+        Assert.Equal(s_table.Caution, caution.Text);
+        Assert.True(caution.Italic);
+        // Widths were set up front (no auto-fit), wide enough for the longest label.
+        Assert.True(ws.Width(1) >= "R2 hydrolysis & co".Length);
+    }
+
+    [Fact]
+    public void Xlsx_LabelThatLooksLikeAFormula_StaysText()
+    {
+        var row = s_table.Rows[0];
+        var cells = row.Cells.ToList();
+        cells[0] = new TableCell(CellKind.Text, "=HYPERLINK(\"http://example.invalid\")");
+        var table = s_table with { Rows = [row with { Cells = cells }] };
+        var ws = XlsxSheet.Read(XlsxTableWriter.ToBytes(table), XlsxTableWriter.SheetName);
+        var cell = ws[XlsxTableWriter.HeaderRow(table) + 1, 1]!;
+        Assert.Equal("=HYPERLINK(\"http://example.invalid\")", cell.Text);
+        Assert.Null(cell.Number);
     }
 
     [Fact]

@@ -1,6 +1,6 @@
 using System.Security.Cryptography;
 using System.Text.Json;
-using BarrierLedger.Core.Demo;
+using BarrierLedger.Demo;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Storage;

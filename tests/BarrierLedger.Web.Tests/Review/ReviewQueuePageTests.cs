@@ -3,7 +3,7 @@ using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Uploads;
 using BarrierLedger.Web.Components.Account;
 using BarrierLedger.Web.Components.Pages.Review;
-using BarrierLedger.Web.Tests.Api;
+using BarrierLedger.Web.Tests.Endpoints;
 using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Configuration;

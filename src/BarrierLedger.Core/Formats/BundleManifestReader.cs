@@ -1,0 +1,130 @@
+using System.Collections.Immutable;
+using static BarrierLedger.Core.Formats.BundleSchema;
+
+namespace BarrierLedger.Core.Formats;
+
+/// <summary>
+/// Reads the manifest object by object: the root, the study and the species here, calculations, reactions and scans through
+/// their readers beside it. Every error names its JSON path and what was expected.
+/// </summary>
+internal static class BundleManifestReader
+{
+    internal sealed record SpeciesInfo(BundleSpecies Species, string Path, bool Complete = true);
+
+    public static Bundle? Read(byte[] bytes, IssueCollector issues, ReaderLimits limits, BundleFiles files)
+    {
+        using var doc = JsonInput.Parse(bytes, issues);
+        if (doc is null) return null;
+        var j = new JsonInput(issues);
+        var root = doc.RootElement;
+        if (!j.RequireObject(root, "$")) return null;
+        var format = j.String(root, "$", "format", required: true);
+        if (format is not null && format != FormatName)
+        {
+            var hint = JsonInput.Member(root, "schema_name") is not null ? " (this looks like a QCSchema file, not a bundle)" : "";
+            issues.ErrorAt("$.format", $"is '{format}'; expected '{FormatName}'{hint}");
+            return null;
+        }
+        if (format is null) return null;
+        var version = j.Integer(root, "$", "format_version", required: true, min: 1);
+        if (version is > CurrentFormatVersion)
+        {
+            issues.ErrorAt("$.format_version", $"is {version}; this reader understands format_version {CurrentFormatVersion} (written by a newer BarrierLedger?)");
+            return null;
+        }
+        j.WarnUnknown(root, "$", KnownKeys["bundle"]);
+
+        BundleStudy? study = null;
+        if (j.Object(root, "$", "study", required: true) is { } st)
+        {
+            j.WarnUnknown(st, "$.study", KnownKeys["study"]);
+            var name = j.String(st, "$.study", "name", required: true);
+            var description = j.String(st, "$.study", "description", required: false, allowEmpty: true) ?? "";
+            if (name is not null) study = new BundleStudy(name, description);
+        }
+
+        // Species.
+        var species = new Dictionary<string, SpeciesInfo>(StringComparer.Ordinal);
+        if (j.Array(root, "$", "species", required: true) is { } spArr)
+        {
+            var k = 0;
+            foreach (var sp in spArr.EnumerateArray())
+            {
+                var p = JsonInput.Index("$.species", k++);
+                if (!j.RequireObject(sp, p)) continue;
+                j.WarnUnknown(sp, p, KnownKeys["species"]);
+                var label = j.String(sp, p, "label", required: true);
+                var charge = j.Integer(sp, p, "charge", required: true);
+                var mult = j.Integer(sp, p, "multiplicity", required: true, min: 1);
+                if (label is null) continue;
+                if (species.TryGetValue(label, out var prior)) { issues.ErrorAt(JsonInput.Child(p, "label"), $"species '{label}' is already defined at {prior.Path}; labels must be unique"); continue; }
+                // A species whose charge or multiplicity is wrong keeps its label (the error is already listed), so that
+                // references to it do not raise a second, misleading "not in $.species" error.
+                species[label] = new SpeciesInfo(new BundleSpecies(label, charge ?? 0, mult ?? 1), p, charge is not null && mult is not null);
+            }
+            if (k == 0) issues.ErrorAt("$.species", "is empty; expected at least one species");
+        }
+
+        // Calculations.
+        var calculations = new List<BundleCalculation>();
+        var calcPaths = new Dictionary<string, string>(StringComparer.Ordinal);
+        if (j.Array(root, "$", "calculations", required: false) is { } cArr)
+        {
+            var k = 0;
+            foreach (var c in cArr.EnumerateArray())
+            {
+                var p = JsonInput.Index("$.calculations", k++);
+                if (BundleCalculationReader.ReadCalculation(c, p, j, species, limits, files) is { } calc)
+                {
+                    if (calcPaths.TryGetValue(calc.Label, out var prior)) issues.ErrorAt(JsonInput.Child(p, "label"), $"calculation '{calc.Label}' is already defined at {prior}; labels must be unique");
+                    else { calcPaths[calc.Label] = p; calculations.Add(calc); }
+                }
+            }
+        }
+        var calcByLabel = calculations.ToDictionary(c => c.Label, StringComparer.Ordinal);
+
+        // Reactions.
+        var reactions = new List<BundleReaction>();
+        var reactionLabels = new HashSet<string>(StringComparer.Ordinal);
+        if (j.Array(root, "$", "reactions", required: false) is { } rArr)
+        {
+            var k = 0;
+            foreach (var r in rArr.EnumerateArray())
+            {
+                var p = JsonInput.Index("$.reactions", k++);
+                if (BundleReactionReader.ReadReaction(r, p, j, species, calcByLabel) is { } reaction)
+                {
+                    if (!reactionLabels.Add(reaction.Label)) issues.ErrorAt(JsonInput.Child(p, "label"), $"reaction '{reaction.Label}' is defined twice; labels must be unique");
+                    else reactions.Add(reaction);
+                }
+            }
+        }
+
+        // Scans.
+        var scans = new List<BundleScan>();
+        var scanLabels = new HashSet<string>(StringComparer.Ordinal);
+        if (j.Array(root, "$", "scans", required: false) is { } sArr)
+        {
+            var k = 0;
+            foreach (var s in sArr.EnumerateArray())
+            {
+                var p = JsonInput.Index("$.scans", k++);
+                if (BundleScanReader.ReadScan(s, p, j, species, limits, files) is { } scan)
+                {
+                    if (!scanLabels.Add(scan.Label)) issues.ErrorAt(JsonInput.Child(p, "label"), $"scan '{scan.Label}' is defined twice; labels must be unique");
+                    else scans.Add(scan);
+                }
+            }
+        }
+
+        if (issues.HasErrors || study is null || version is null) return null;
+        return new Bundle(version.Value, study, [.. species.Values.Select(v => v.Species)], [.. calculations], [.. reactions], [.. scans],
+            files.Read.ToImmutableDictionary(kv => kv.Key, kv => ImmutableArray.Create(kv.Value), StringComparer.Ordinal));
+    }
+
+    internal static string Known(IEnumerable<string> keys)
+    {
+        var list = keys.Take(12).ToList();
+        return list.Count == 0 ? "(none defined)" : string.Join(", ", list.Select(k => $"'{k}'"));
+    }
+}
