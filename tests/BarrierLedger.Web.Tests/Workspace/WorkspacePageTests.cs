@@ -4,7 +4,7 @@ using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Uploads;
 using BarrierLedger.Web.Components.Pages.Workspace;
-using BarrierLedger.Web.Tests.Api;
+using BarrierLedger.Web.Tests.Endpoints;
 using BarrierLedger.Web.Tests.Support;
 
 namespace BarrierLedger.Web.Tests.Workspace;
