@@ -15,23 +15,46 @@ public class ThermoCommandTests
         return JsonDocument.Parse(output).RootElement.Clone();
     }
 
+    // Water is C2v, so σ = 2 when the option is absent (McQuarrie, Statistical Mechanics, ch. 8, from memory).
     [Theory]
-    [InlineData(new string[0], 298.15, 1, StandardState.Gas1Atm, ThermoTreatment.Rrho)]
-    [InlineData(new[] { "--temperature", "350", "--symmetry-number", "2", "--standard-state", "1M", "--quasi-rrho" }, 350.0, 2, StandardState.Solution1Molar, ThermoTreatment.QuasiRrhoEntropyAndEnthalpy)]
-    [InlineData(new[] { "--standard-state", "1bar" }, 298.15, 1, StandardState.Gas1Bar, ThermoTreatment.Rrho)]
+    [InlineData(new string[0], 298.15, 2, StandardState.Gas1Atm, ThermoTreatment.Rrho)]
+    [InlineData(new[] { "--temperature", "350", "--symmetry-number", "1", "--standard-state", "1M", "--low-modes", "entropy-enthalpy" }, 350.0, 1, StandardState.Solution1Molar, ThermoTreatment.QuasiRrhoEntropyAndEnthalpy)]
+    [InlineData(new[] { "--low-modes", "entropy", "--low-mode-cutoff", "50" }, 298.15, 2, StandardState.Gas1Atm, ThermoTreatment.QuasiRrhoEntropy)]
+    [InlineData(new[] { "--standard-state", "1bar" }, 298.15, 2, StandardState.Gas1Bar, ThermoTreatment.Rrho)]
     public void Thermo_json_equals_the_Core_API_for_the_same_options(string[] options, double t, int sigma, StandardState state, ThermoTreatment treatment)
     {
         using var dir = new TempDir();
         var file = dir.Write("water.json", WaterForceField.QcSchemaJson());
         var j = RunJson(["thermo", "--json", file, .. options]);
+        var cutoff = options.Contains("--low-mode-cutoff") ? 50.0 : 100.0;
         var api = Thermochemistry.Compute(FrequencyAnalysis.FromHessian(WaterForceField.Molecule(), WaterForceField.Hessian()),
-            new ThermoOptions(t, SymmetryNumber: sigma, Treatment: treatment, StandardState: state));
+            new ThermoOptions(t, SymmetryNumber: sigma, Treatment: treatment, StandardState: state, QuasiRrhoCutoffCm1: cutoff));
+        Assert.Equal(sigma, j.GetProperty("symmetry_number").GetInt32());
+        Assert.Equal("C2v", j.GetProperty("point_group").GetString());
+        Assert.Equal(LowModeNames.Name(treatment), j.GetProperty("low_modes").GetString());
         Assert.Equal(api.ZeroPointEnergy.Hartree, j.GetProperty("zpe_hartree").GetDouble(), 12);
         Assert.Equal(api.EnthalpyCorrection.Hartree, j.GetProperty("enthalpy_hartree").GetDouble(), 12);
         Assert.Equal(api.GibbsCorrection.Hartree, j.GetProperty("gibbs_hartree").GetDouble(), 12);
         Assert.Equal(api.EntropyJoulePerMoleKelvin, j.GetProperty("entropy_j_per_mol_k").GetDouble(), 9);
         Assert.Equal(-76.4 + api.GibbsCorrection.Hartree, j.GetProperty("total_gibbs_hartree").GetDouble(), 12);
         Assert.Equal(t, j.GetProperty("temperature_k").GetDouble());
+    }
+
+    [Fact]
+    public void Thermo_on_a_water_Hessian_prints_C2v_and_sigma_2_without_being_told()
+    {
+        // Water's point group C2v and σ = 2 (Cotton, Chemical Applications of Group Theory, ch. 3; McQuarrie, ch. 8; from memory).
+        using var dir = new TempDir();
+        var file = dir.Write("water.json", WaterForceField.QcSchemaJson());
+        var (code, output, err) = CliRunner.Run("thermo", file);
+        Assert.True(code == 0, err);
+        Assert.Contains("point group C2v, so σ = 2", output);
+        var given = CliRunner.Run("thermo", "--symmetry-number", "1", file);
+        Assert.Contains("σ = 1 as given (the point group alone gives 2)", given.Out);
+        // R ln 2 = 5.763 J/(mol K) between the two entropies (CODATA 2018 R).
+        var s2 = RunJson("thermo", "--json", file).GetProperty("entropy_j_per_mol_k").GetDouble();
+        var s1 = RunJson("thermo", "--json", "--symmetry-number", "1", file).GetProperty("entropy_j_per_mol_k").GetDouble();
+        Assert.Equal(8.314462618 * Math.Log(2), s1 - s2, 6);
     }
 
     [Fact]
@@ -48,6 +71,9 @@ public class ThermoCommandTests
     [InlineData("--pressure", "lots", "not a pressure")]
     [InlineData("--standard-state", "2M", "2M")]
     [InlineData("--symmetry-number", "0", "1 or more")]
+    [InlineData("--low-modes", "quasi", "harmonic")]
+    [InlineData("--low-mode-cutoff", "0", "above 0")]
+    [InlineData("--symmetry-tolerance", "-1", "above 0")]
     public void Bad_options_print_usage_and_exit_2(string option, string value, string fragment)
     {
         using var dir = new TempDir();

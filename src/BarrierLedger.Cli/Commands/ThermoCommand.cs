@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Symmetry;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Core.Vibrations;
@@ -20,17 +21,28 @@ internal static class ThermoCommand
         var pressure = new Option<string?>("--pressure") { Description = "Gas pressure with the 1atm standard state: a number in atm, or with a unit (101325Pa, 1bar, 1atm)" };
         var standardState = new Option<string>("--standard-state") { Description = "1atm (gas), 1bar (gas) or 1M (solution, 1 mol/L)", DefaultValueFactory = _ => "1atm" };
         standardState.AcceptOnlyFromAmong("1atm", "1bar", "1M");
-        var quasi = new Option<bool>("--quasi-rrho") { Description = "Grimme's quasi-RRHO entropy for low modes (with the analogous enthalpy treatment)" };
-        var cutoff = new Option<double>("--quasi-rrho-cutoff") { Description = "Quasi-RRHO cut-off ω₀ in cm-1", DefaultValueFactory = _ => 100.0 };
-        var sigma = new Option<int>("--symmetry-number") { Description = "Rotational symmetry number σ (2 for H2O, 12 for CH4)", DefaultValueFactory = _ => 1 };
+        var lowModes = new Option<string>("--low-modes")
+        {
+            Description = "Treatment of low vibrational modes: harmonic (RRHO), entropy (quasi-RRHO entropy, Grimme 2012) or entropy-enthalpy (also the quasi-RRHO enthalpy of Li, Head-Gordon et al. 2015), the energy model's choices",
+            DefaultValueFactory = _ => "harmonic",
+        };
+        lowModes.AcceptOnlyFromAmong([.. LowModeNames.All]);
+        var cutoff = new Option<double>("--low-mode-cutoff") { Description = "Cut-off ω₀ of the low-mode treatment in cm-1", DefaultValueFactory = _ => 100.0 };
+        var sigma = new Option<int?>("--symmetry-number") { Description = "Rotational symmetry number σ; by default it follows from the point group found in the geometry" };
+        var tolerance = new Option<double>("--symmetry-tolerance")
+        {
+            Description = "How far (Å) an atom may lie from its symmetric position for the point group", DefaultValueFactory = _ => PointGroups.DefaultToleranceAngstrom,
+        };
         var command = new Command("thermo", "Thermal corrections (ZPE, enthalpy, entropy, Gibbs energy) of a calculation from its frequencies.");
         input.AddTo(command);
-        foreach (var o in new Option[] { temperature, pressure, standardState, quasi, cutoff, sigma, json }) command.Options.Add(o);
+        foreach (var o in new Option[] { temperature, pressure, standardState, lowModes, cutoff, sigma, tolerance, json }) command.Options.Add(o);
         command.SetAction(pr =>
         {
             var t = pr.GetValue(temperature);
             if (!(t > 0) || !double.IsFinite(t)) throw new UsageException($"--temperature must be above 0 K, got {t}");
-            if (pr.GetValue(sigma) < 1) throw new UsageException($"--symmetry-number must be 1 or more, got {pr.GetValue(sigma)}");
+            if (pr.GetValue(sigma) is < 1) throw new UsageException($"--symmetry-number must be 1 or more, got {pr.GetValue(sigma)}");
+            if (!(pr.GetValue(cutoff) > 0) || !double.IsFinite(pr.GetValue(cutoff))) throw new UsageException($"--low-mode-cutoff must be above 0 cm-1, got {pr.GetValue(cutoff)}");
+            if (!(pr.GetValue(tolerance) > 0) || !double.IsFinite(pr.GetValue(tolerance))) throw new UsageException($"--symmetry-tolerance must be above 0 Å, got {pr.GetValue(tolerance)}");
             var state = pr.GetValue(standardState) switch { "1bar" => StandardState.Gas1Bar, "1M" => StandardState.Solution1Molar, _ => StandardState.Gas1Atm };
             var pressurePa = PhysicalConstants.StandardAtmospherePascal;
             if (pr.GetValue(pressure) is { } ptext)
@@ -52,11 +64,12 @@ internal static class ThermoCommand
                 ctx.Err.WriteLine($"barrierledger: {data.Source}: the Hessian cannot be analysed: {ex.Message}");
                 return ExitCodes.Unreadable;
             }
-            var options = new ThermoOptions(t, pressurePa, pr.GetValue(sigma),
-                pr.GetValue(quasi) ? ThermoTreatment.QuasiRrhoEntropyAndEnthalpy : ThermoTreatment.Rrho, pr.GetValue(cutoff), state);
+            var symmetry = PointGroups.Detect(analysis.Molecule, pr.GetValue(tolerance));
+            var given = pr.GetValue(sigma);
+            var options = new ThermoOptions(t, pressurePa, given ?? symmetry.SymmetryNumber, LowModeNames.Parse(pr.GetValue(lowModes)!), pr.GetValue(cutoff), state);
             var r = Thermochemistry.Compute(analysis, options);
-            if (pr.GetValue(json)) ctx.WriteJson(ToJson(data, analysis, r));
-            else WriteTable(ctx.Out, data, analysis, r);
+            if (pr.GetValue(json)) ctx.WriteJson(ToJson(data, analysis, r, symmetry, given is not null));
+            else WriteTable(ctx.Out, data, analysis, r, symmetry, given is not null);
             return ExitCodes.Ok;
         });
         return command;
@@ -75,7 +88,7 @@ internal static class ThermoCommand
         return ok;
     }
 
-    private static object ToJson(CalculationData data, VibrationalAnalysis a, ThermoResult r) => new
+    private static object ToJson(CalculationData data, VibrationalAnalysis a, ThermoResult r, PointGroupResult symmetry, bool sigmaGiven) => new
     {
         file = data.Source,
         calculation = data.Label,
@@ -84,9 +97,13 @@ internal static class ThermoCommand
         temperature_k = r.Options.TemperatureKelvin,
         standard_state = r.Options.StandardState switch { StandardState.Gas1Bar => "1bar", StandardState.Solution1Molar => "1M", _ => "1atm" },
         reference_pressure_pa = r.ReferencePressurePascal,
+        point_group = symmetry.Group.Name,
+        point_group_tolerance_angstrom = symmetry.ToleranceAngstrom,
+        point_group_note = symmetry.Note.Length == 0 ? null : symmetry.Note,
         symmetry_number = r.Options.SymmetryNumber,
-        treatment = r.Options.Treatment.ToString(),
-        quasi_rrho_cutoff_cm1 = r.Options.Treatment == ThermoTreatment.Rrho ? (double?)null : r.Options.QuasiRrhoCutoffCm1,
+        symmetry_number_source = sigmaGiven ? "given" : "point group",
+        low_modes = LowModeNames.Name(r.Options.Treatment),
+        low_mode_cutoff_cm1 = r.Options.Treatment == ThermoTreatment.Rrho ? (double?)null : r.Options.QuasiRrhoCutoffCm1,
         frequencies_cm1 = a.FrequenciesCm1,
         imaginary_count = a.ImaginaryModes.Length,
         zpe_hartree = r.ZeroPointEnergy.Hartree,
@@ -101,14 +118,18 @@ internal static class ThermoCommand
         notes = r.Notes,
     };
 
-    private static void WriteTable(TextWriter o, CalculationData data, VibrationalAnalysis a, ThermoResult r)
+    private static void WriteTable(TextWriter o, CalculationData data, VibrationalAnalysis a, ThermoResult r, PointGroupResult symmetry, bool sigmaGiven)
     {
         string F(double v) => v.ToString("F6", CultureInfo.InvariantCulture);
         string K(Energy e) => e.KcalPerMol.ToString("F2", CultureInfo.InvariantCulture);
         var opt = r.Options;
-        o.WriteLine($"{data.Source} ({data.Label}): {StructureChecks.FormulaOf(a.Molecule)}, {a.Shape}, σ = {opt.SymmetryNumber}");
+        o.WriteLine($"{data.Source} ({data.Label}): {StructureChecks.FormulaOf(a.Molecule)}, {a.Shape}");
+        o.WriteLine(sigmaGiven
+            ? $"point group {symmetry.Group.Name}; σ = {opt.SymmetryNumber} as given (the point group alone gives {symmetry.SymmetryNumber})"
+            : $"point group {symmetry.Group.Name}, so σ = {opt.SymmetryNumber}");
+        if (symmetry.Note.Length > 0) o.WriteLine($"Note: {symmetry.Note}");
         o.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"T = {opt.TemperatureKelvin} K, standard state {opt.StandardState} (p = {r.ReferencePressurePascal:G6} Pa), {opt.Treatment}"));
+            $"T = {opt.TemperatureKelvin} K, standard state {opt.StandardState} (p = {r.ReferencePressurePascal:G6} Pa), low modes {LowModeNames.Name(opt.Treatment)}{(opt.Treatment == ThermoTreatment.Rrho ? "" : $" (cut-off {opt.QuasiRrhoCutoffCm1} cm-1)")}"));
         o.WriteLine();
         o.WriteLine("  correction                      hartree     kcal/mol");
         o.WriteLine($"  zero-point energy         {F(r.ZeroPointEnergy.Hartree),13} {K(r.ZeroPointEnergy),12}");

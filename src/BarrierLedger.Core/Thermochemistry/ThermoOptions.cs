@@ -47,3 +47,41 @@ public sealed record ThermoOptions(
     /// <summary>298.15 K, 1 atm, σ = 1, RRHO.</summary>
     public static ThermoOptions Default { get; } = new();
 }
+
+/// <summary>
+/// The words the energy model, the bundle's <c>energy_model.low_modes</c> and <c>barrierledger thermo --low-modes</c> use for a
+/// <see cref="ThermoTreatment"/>: "harmonic" (RRHO), "entropy" (quasi-RRHO entropy), "entropy-enthalpy" (quasi-RRHO entropy
+/// and enthalpy). The stored enum values do not change with these names.
+/// </summary>
+public static class LowModeNames
+{
+    public const string Harmonic = "harmonic";
+    public const string Entropy = "entropy";
+    public const string EntropyEnthalpy = "entropy-enthalpy";
+
+    public static IReadOnlyList<string> All { get; } = [Harmonic, Entropy, EntropyEnthalpy];
+
+    public static string Name(ThermoTreatment treatment) => treatment switch
+    {
+        ThermoTreatment.Rrho => Harmonic,
+        ThermoTreatment.QuasiRrhoEntropy => Entropy,
+        ThermoTreatment.QuasiRrhoEntropyAndEnthalpy => EntropyEnthalpy,
+        _ => throw new ArgumentOutOfRangeException(nameof(treatment), treatment, "Unknown treatment."),
+    };
+
+    public static bool TryParse(string? name, out ThermoTreatment treatment)
+    {
+        (var ok, treatment) = (name ?? "").Trim().ToLowerInvariant() switch
+        {
+            Harmonic => (true, ThermoTreatment.Rrho),
+            Entropy => (true, ThermoTreatment.QuasiRrhoEntropy),
+            EntropyEnthalpy => (true, ThermoTreatment.QuasiRrhoEntropyAndEnthalpy),
+            _ => (false, ThermoTreatment.Rrho),
+        };
+        return ok;
+    }
+
+    /// <summary>As <see cref="TryParse"/>; throws <see cref="ArgumentException"/> naming the accepted words.</summary>
+    public static ThermoTreatment Parse(string name) => TryParse(name, out var t)
+        ? t : throw new ArgumentException($"'{name}' is not a low-mode treatment; use {string.Join(", ", All)}.", nameof(name));
+}

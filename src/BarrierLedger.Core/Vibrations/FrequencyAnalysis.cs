@@ -1,6 +1,5 @@
 using System.Buffers;
 using System.Collections.Immutable;
-using System.Numerics;
 using System.Runtime.InteropServices;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Units;
@@ -52,10 +51,10 @@ public static class FrequencyAnalysis
         options ??= HessianOptions.Default;
         var n = 3 * molecule.AtomCount;
         if (molecule.AtomCount == 0) throw new HessianException(HessianProblem.EmptyMolecule, "The molecule has no atoms.", nameof(molecule));
-        var masses = ResolveMasses(molecule, options);
-        CheckSize(molecule, hessianHartreePerBohr2);
+        var masses = HessianPreparation.ResolveMasses(molecule, options);
+        HessianPreparation.CheckSize(molecule, hessianHartreePerBohr2);
 
-        var shape = ShapeOf(molecule, masses, options.LinearToleranceAmuAngstrom2);
+        var shape = RigidBodyProjection.ShapeOf(molecule, masses, options.LinearToleranceAmuAngstrom2);
         var invSqrtMass = new double[n];
         for (var i = 0; i < n; i++) invSqrtMass[i] = 1.0 / Math.Sqrt(masses[i / 3]);
 
@@ -64,27 +63,27 @@ public static class FrequencyAnalysis
         var f = ArrayPool<double>.Shared.Rent(n * n);
         try
         {
-            var scan = SymmetriseAndMassWeight(hessianHartreePerBohr2, n, invSqrtMass, f);
+            var scan = HessianPreparation.SymmetriseAndMassWeight(hessianHartreePerBohr2, n, invSqrtMass, f);
             if (scan.NonFiniteIndex >= 0)
             {
                 var i = scan.NonFiniteIndex;
                 throw new HessianException(HessianProblem.NonFinite,
-                    $"Hessian element at row {i / n + 1}, column {i % n + 1} ({Coordinate(molecule, i / n)}, {Coordinate(molecule, i % n)}) is {hessianHartreePerBohr2[i]}.");
+                    $"Hessian element at row {i / n + 1}, column {i % n + 1} ({HessianPreparation.Coordinate(molecule, i / n)}, {HessianPreparation.Coordinate(molecule, i % n)}) is {hessianHartreePerBohr2[i]}.");
             }
             if (scan.WorstAsymmetry > options.AsymmetryToleranceHartreePerBohr2)
             {
                 var (h, wi, wj) = (hessianHartreePerBohr2, scan.WorstRow, scan.WorstColumn);
                 throw new HessianException(HessianProblem.Asymmetric,
                     $"Hessian is not symmetric: H[{wi + 1},{wj + 1}] = {h[wi * n + wj]:G6} but H[{wj + 1},{wi + 1}] = {h[wj * n + wi]:G6} " +
-                    $"({Coordinate(molecule, wi)} / {Coordinate(molecule, wj)}), difference {scan.WorstAsymmetry:G3} hartree/bohr² exceeds the tolerance " +
+                    $"({HessianPreparation.Coordinate(molecule, wi)} / {HessianPreparation.Coordinate(molecule, wj)}), difference {scan.WorstAsymmetry:G3} hartree/bohr² exceeds the tolerance " +
                     $"{options.AsymmetryToleranceHartreePerBohr2:G3}.");
             }
             // The ∞-norm bounds the spectrum; the shift must lie above it.
             var shift = 2.0 * scan.NormInf + 1.0;
 
-            var d = RigidBodyBasis(molecule, masses, shape);
+            var d = RigidBodyProjection.RigidBodyBasis(molecule, masses, shape);
             var k = d.Length / n;
-            ProjectAndShift(f, n, d, k, shift);
+            RigidBodyProjection.ProjectAndShift(f, n, d, k, shift);
 
             var eigenvalues = new double[n];
             var solver = SymmetricEigensolver.SolveInPlace(f, n, eigenvalues, options.Solver);
@@ -152,7 +151,7 @@ public static class FrequencyAnalysis
                     $"Mode {i + 1} ({mode.FrequencyCm1:F1} cm⁻¹) has {mode.DisplacementCartesian.Length} displacement vectors for {molecule.AtomCount} atoms.",
                     nameof(modes));
         }
-        var (shape, kept, removed) = DropRigidBodyModes(molecule, modes, nameof(modes));
+        var (shape, kept, removed) = RigidBodyProjection.DropRigidBodyModes(molecule, modes, nameof(modes));
         return new VibrationalAnalysis(molecule, shape, [.. kept.OrderBy(m => m.FrequencyCm1)], removed, GivenModesSolver);
     }
 
@@ -232,238 +231,5 @@ public static class FrequencyAnalysis
         var omega = 2.0 * Math.PI * PhysicalConstants.SpeedOfLightMetrePerSecond * 100.0 * nu;
         var forceNewtonPerMetre = Math.Sign(nu) * omega * omega * reducedMass * PhysicalConstants.AtomicMassConstantKilogram;
         return new NormalMode(nu, ImmutableCollectionsMarshal.AsImmutableArray(disp), reducedMass, forceNewtonPerMetre / 100.0);
-    }
-
-    /// <summary>
-    /// Rows of the orthonormal k×3N basis of mass-weighted translations and rotations, row-major in one array.
-    /// </summary>
-    private static double[] RigidBodyBasis(Molecule molecule, double[] masses, MolecularShape shape)
-    {
-        var atoms = molecule.AtomCount;
-        var n = 3 * atoms;
-        var vectors = new List<double[]>();
-        for (var alpha = 0; alpha < 3; alpha++)
-        {
-            var t = new double[n];
-            for (var a = 0; a < atoms; a++) t[3 * a + alpha] = Math.Sqrt(masses[a]);
-            vectors.Add(t);
-        }
-        if (shape != MolecularShape.Atom)
-        {
-            var com = Inertia.CentreOfMass(molecule, masses);
-            var (_, axes) = Inertia.PrincipalAxes(molecule, masses);
-            // For a linear molecule the axis with the smallest moment is the molecular axis: no rotation about it.
-            for (var p = shape == MolecularShape.Linear ? 1 : 0; p < 3; p++)
-            {
-                var r = new double[n];
-                for (var a = 0; a < atoms; a++)
-                {
-                    var v = axes[p].Cross(molecule.PositionsAngstrom[a] - com) * Math.Sqrt(masses[a]);
-                    r[3 * a] = v.X;
-                    r[3 * a + 1] = v.Y;
-                    r[3 * a + 2] = v.Z;
-                }
-                vectors.Add(r);
-            }
-        }
-        // Modified Gram–Schmidt, twice (the vectors are orthogonal in exact arithmetic; this removes round-off).
-        for (var pass = 0; pass < 2; pass++)
-            for (var c = 0; c < vectors.Count; c++)
-            {
-                var v = vectors[c];
-                for (var b = 0; b < c; b++)
-                {
-                    var dot = Dot(v, vectors[b]);
-                    for (var i = 0; i < n; i++) v[i] -= dot * vectors[b][i];
-                }
-                var norm = Math.Sqrt(Dot(v, v));
-                if (norm < 1e-8)
-                    throw new InvalidOperationException($"Rigid-body motion {c + 1} vanishes for a {shape} structure; the geometry may have coincident atoms.");
-                for (var i = 0; i < n; i++) v[i] /= norm;
-            }
-        var d = new double[vectors.Count * n];
-        for (var c = 0; c < vectors.Count; c++) vectors[c].CopyTo(d, c * n);
-        return d;
-    }
-
-    /// <summary>In place: F ← F − Dᵀ Wᵀ − W D with G = F Dᵀ, M = D G + s·1, W = G − ½ Dᵀ M (a rank-2k update, O(n²k)).</summary>
-    private static void ProjectAndShift(double[] f, int n, double[] d, int k, double shift)
-    {
-        // G (n×k), row-major: G[i,c] = Σ_j F[i,j] D[c,j]
-        var g = new double[n * k];
-        for (var i = 0; i < n; i++)
-        {
-            var row = f.AsSpan(i * n, n);
-            for (var c = 0; c < k; c++) g[i * k + c] = Dot(row, d.AsSpan(c * n, n));
-        }
-        // M (k×k) = D G + s·1
-        var m = new double[k * k];
-        for (var c = 0; c < k; c++)
-            for (var e = 0; e < k; e++)
-            {
-                var sum = 0.0;
-                for (var i = 0; i < n; i++) sum += d[c * n + i] * g[i * k + e];
-                m[c * k + e] = sum + (c == e ? shift : 0.0);
-            }
-        // Symmetrise M against round-off.
-        for (var c = 0; c < k; c++)
-            for (var e = c + 1; e < k; e++)
-                m[c * k + e] = m[e * k + c] = 0.5 * (m[c * k + e] + m[e * k + c]);
-        // W (n×k) = G − ½ Dᵀ M, stored transposed (k×n) so the update loop reads rows contiguously.
-        var wt = new double[k * n];
-        for (var i = 0; i < n; i++)
-            for (var c = 0; c < k; c++)
-            {
-                var sum = 0.0;
-                for (var e = 0; e < k; e++) sum += d[e * n + i] * m[e * k + c];
-                wt[c * n + i] = g[i * k + c] - 0.5 * sum;
-            }
-        // F[i,j] −= Σ_c D[c,i] W[j,c] + W[i,c] D[c,j]
-        Span<double> di = stackalloc double[k];
-        Span<double> wi = stackalloc double[k];
-        for (var i = 0; i < n; i++)
-        {
-            for (var c = 0; c < k; c++) { di[c] = d[c * n + i]; wi[c] = wt[c * n + i]; }
-            var row = f.AsSpan(i * n, n);
-            for (var c = 0; c < k; c++)
-            {
-                SubtractTwo(row, di[c], wt.AsSpan(c * n, n), wi[c], d.AsSpan(c * n, n));
-            }
-        }
-    }
-
-    private static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
-    {
-        var i = 0;
-        var sum = 0.0;
-        if (Vector.IsHardwareAccelerated && a.Length >= 2 * Vector<double>.Count)
-        {
-            var acc = Vector<double>.Zero;
-            var va = MemoryMarshal.Cast<double, Vector<double>>(a);
-            var vb = MemoryMarshal.Cast<double, Vector<double>>(b);
-            for (var v = 0; v < va.Length; v++) acc += va[v] * vb[v];
-            sum = Vector.Sum(acc);
-            i = va.Length * Vector<double>.Count;
-        }
-        for (; i < a.Length; i++) sum += a[i] * b[i];
-        return sum;
-    }
-
-    /// <summary>row[j] −= a·x[j] + b·y[j].</summary>
-    private static void SubtractTwo(Span<double> row, double a, ReadOnlySpan<double> x, double b, ReadOnlySpan<double> y)
-    {
-        var j = 0;
-        if (Vector.IsHardwareAccelerated && row.Length >= 2 * Vector<double>.Count)
-        {
-            var vr = MemoryMarshal.Cast<double, Vector<double>>(row);
-            var vx = MemoryMarshal.Cast<double, Vector<double>>(x);
-            var vy = MemoryMarshal.Cast<double, Vector<double>>(y);
-            var va = new Vector<double>(a);
-            var vbb = new Vector<double>(b);
-            for (var v = 0; v < vr.Length; v++) vr[v] -= va * vx[v] + vbb * vy[v];
-            j = vr.Length * Vector<double>.Count;
-        }
-        for (; j < row.Length; j++) row[j] -= a * x[j] + b * y[j];
-    }
-
-    private static double[] ResolveMasses(Molecule molecule, HessianOptions options)
-    {
-        if (options.MassesAmu is null) return Inertia.MassesAmu(molecule);
-        if (options.MassesAmu.Count != molecule.AtomCount)
-            throw new HessianException(HessianProblem.BadMasses, $"{options.MassesAmu.Count} masses given for {molecule.AtomCount} atoms.", nameof(options));
-        for (var i = 0; i < molecule.AtomCount; i++)
-            if (!(options.MassesAmu[i] > 0) || !double.IsFinite(options.MassesAmu[i]))
-                throw new HessianException(HessianProblem.BadMasses,
-                    $"Mass of atom {molecule.AtomLabel(i)} must be positive and finite, got {options.MassesAmu[i]}.", nameof(options));
-        return [.. options.MassesAmu];
-    }
-
-    private static void CheckSize(Molecule molecule, double[] h)
-    {
-        var n = 3 * molecule.AtomCount;
-        if (h.Length == n * n) return;
-        var side = Math.Sqrt(h.Length);
-        var hint = side == Math.Floor(side) ? $" (a {side}×{side} matrix, which fits {side / 3:0.##} atoms)" : "";
-        throw new HessianException(HessianProblem.SizeMismatch,
-            $"Hessian has {h.Length} elements{hint}, but {molecule.AtomCount} atoms need 3N×3N = {n}×{n} = {n * n}.");
-    }
-
-    private readonly record struct HessianScan(double WorstAsymmetry, int WorstRow, int WorstColumn, int NonFiniteIndex, double NormInf);
-
-    /// <summary>
-    /// F_ij = F_ji = ½(H_ij + H_ji)/√(m_i m_j) into <paramref name="f"/>, and in the same pass the largest |H_ij − H_ji| with its
-    /// position, the first non-finite element and the ∞-norm of F. Works on 32×32 tiles of the upper triangle: reading H column-wise
-    /// element by element would miss the cache on every access for large n.
-    /// </summary>
-    private static HessianScan SymmetriseAndMassWeight(double[] h, int n, double[] invSqrtMass, double[] f)
-    {
-        const int tile = 32;
-        var worst = 0.0;
-        var (worstRow, worstColumn) = (0, 0);
-        var nonFinite = -1;
-        var rowSums = new double[n];
-        for (var bi = 0; bi < n; bi += tile)
-        {
-            var iEnd = Math.Min(bi + tile, n);
-            for (var bj = bi; bj < n; bj += tile)
-            {
-                var jEnd = Math.Min(bj + tile, n);
-                for (var i = bi; i < iEnd; i++)
-                {
-                    var rowI = i * n;
-                    var wI = 0.5 * invSqrtMass[i];
-                    var sumI = 0.0;
-                    for (var j = bj == bi ? i : bj; j < jEnd; j++)
-                    {
-                        var a = h[rowI + j];
-                        var b = h[j * n + i];
-                        if (!double.IsFinite(a) || !double.IsFinite(b))
-                        {
-                            var index = double.IsFinite(a) ? j * n + i : rowI + j;
-                            if (nonFinite < 0 || index < nonFinite) nonFinite = index;
-                            continue;
-                        }
-                        var diff = Math.Abs(a - b);
-                        if (diff > worst) { worst = diff; worstRow = i; worstColumn = j; }
-                        var v = (a + b) * wI * invSqrtMass[j];
-                        f[rowI + j] = v;
-                        f[j * n + i] = v;
-                        var abs = Math.Abs(v);
-                        sumI += abs;
-                        if (j != i) rowSums[j] += abs;
-                    }
-                    rowSums[i] += sumI;
-                }
-            }
-        }
-        return new HessianScan(worst, worstRow, worstColumn, nonFinite, rowSums.Length == 0 ? 0.0 : rowSums.Max());
-    }
-
-    private static string Coordinate(Molecule m, int index) => $"{m.AtomLabel(index / 3)} {"xyz"[index % 3]}";
-
-    private static MolecularShape ShapeOf(Molecule molecule, double[] masses, double linearTolerance)
-    {
-        if (molecule.AtomCount == 1) return MolecularShape.Atom;
-        var (moments, _) = Inertia.PrincipalAxes(molecule, masses);
-        return moments[0] <= linearTolerance ? MolecularShape.Linear : MolecularShape.NonLinear;
-    }
-
-    private static (MolecularShape Shape, IReadOnlyList<NormalMode> Kept, int Removed) DropRigidBodyModes(
-        Molecule molecule, IReadOnlyList<NormalMode> modes, string paramName)
-    {
-        if (molecule.AtomCount == 0) throw new ArgumentException("The molecule has no atoms.", nameof(molecule));
-        var shape = Inertia.Shape(molecule);
-        var external = Inertia.ExternalDegreesOfFreedom(shape);
-        var n = 3 * molecule.AtomCount;
-        if (modes.Count == n)
-        {
-            var byMagnitude = modes.OrderBy(m => Math.Abs(m.FrequencyCm1)).ToArray();
-            return (shape, byMagnitude[external..], external);
-        }
-        if (modes.Count > n - external)
-            throw new ArgumentException(
-                $"{modes.Count} modes given for a {shape} structure of {molecule.AtomCount} atoms: expected at most 3N − {external} = {n - external} " +
-                $"vibrations, or all 3N = {n} including translations and rotations.", paramName);
-        return (shape, modes, 0);
     }
 }

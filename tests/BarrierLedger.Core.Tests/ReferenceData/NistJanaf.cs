@@ -16,6 +16,10 @@ public static class NistJanaf
     public const double NitrogenEntropy = 191.609;
     public const double WaterEntropy = 188.834;
     public const double CarbonDioxideEntropy = 213.795;
+    /// <summary>S°(298.15 K, 1 bar) of NH₃ 192.774, CH₄ 186.251, C₂H₄ 219.330 J/(mol K) (from memory).</summary>
+    public const double AmmoniaEntropy = 192.774;
+    public const double MethaneEntropy = 186.251;
+    public const double EthyleneEntropy = 219.330;
     /// <summary>RRHO from experimental r_e and fundamentals within 0.5 J/(mol K): the rest is anharmonicity, centrifugal distortion
     /// and vibration–rotation coupling, which the tables include and RRHO does not.</summary>
     public const double PolyatomicEntropyTolerance = 0.5;

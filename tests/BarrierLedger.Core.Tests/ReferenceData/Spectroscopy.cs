@@ -36,4 +36,14 @@ public static class Spectroscopy
     /// <summary>CO₂: r(CO) = 1.1600 Å, linear; fundamentals ν₁ 1333 (unperturbed by the Fermi dyad 1285/1388), ν₂ 667 (×2), ν₃ 2349 cm⁻¹; σ = 2.</summary>
     public const double CO2BondLengthAngstrom = 1.1600;
     public static readonly double[] CO2FundamentalsCm1 = [667.0, 667.0, 1333.0, 2349.0];
+
+    /// <summary>
+    /// Gas-phase fundamentals (cm⁻¹; degenerate modes repeated), from memory (Herzberg II; Shimanouchi, Tables of Molecular
+    /// Vibrational Frequencies, NSRDS-NBS 39, 1972). NH₃: ν₁ 3336.2, ν₂ 950.3 (mean of the inversion doublet 932.4/968.1),
+    /// ν₃ 3443.6 (e), ν₄ 1626.1 (e). CH₄: ν₁ 2917 (a₁), ν₂ 1534 (e), ν₃ 3019 (f₂), ν₄ 1306 (f₂). C₂H₄: 3026, 1623, 1342, 1023, 3103,
+    /// 1236, 949, 943, 3106, 826, 2989, 1444. Geometries are those of <see cref="SymmetryReference"/>.
+    /// </summary>
+    public static readonly double[] NH3FundamentalsCm1 = [3336.2, 950.3, 3443.6, 3443.6, 1626.1, 1626.1];
+    public static readonly double[] CH4FundamentalsCm1 = [2917, 1534, 1534, 3019, 3019, 3019, 1306, 1306, 1306];
+    public static readonly double[] C2H4FundamentalsCm1 = [3026, 1623, 1342, 1023, 3103, 1236, 949, 943, 3106, 826, 2989, 1444];
 }
