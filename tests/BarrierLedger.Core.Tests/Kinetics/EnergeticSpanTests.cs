@@ -33,6 +33,37 @@ public class EnergeticSpanTests
         Assert.Empty(r.Notes);
     }
 
+    // The energetic-span TOF is the exact steady-state turnover of the cycle (Kozuch and Shaik derived it from Christiansen's
+    // steady-state formula, J. Am. Chem. Soc. 2006, 128, 3355; for two intermediates TOF = (k₁k₂ − k₋₁k₋₂)/(k₁ + k₋₁ + k₂ + k₋₂),
+    // J. A. Christiansen, Adv. Catal. 1953, 5, 311, from memory). The same hand-derived cycle as above, run as a microkinetic model
+    // (I1 → I2 over T1, I2 → I1 over T2 with the cycle's −20 kcal/mol) until its steady state: the net flux through T2 per
+    // catalyst must equal the energetic-span TOF of 2.0772 s⁻¹, and the hand-computed degrees of control must follow from
+    // the steady-state populations.
+    [Fact]
+    public void HandDerivedCycle_TofEqualsTheSteadyStateOfTheMicrokineticModel()
+    {
+        var levels = new[]
+        {
+            new EnergyLevel("I1", Energy.FromKcalPerMol(0)), new EnergyLevel("T1", Energy.FromKcalPerMol(15)), new EnergyLevel("I2", Energy.FromKcalPerMol(-5)),
+            new EnergyLevel("T2", Energy.FromKcalPerMol(12)), new EnergyLevel("I1'", Energy.FromKcalPerMol(-20)),
+        };
+        var network = new ReactionNetwork(["I1", "I2"],
+        [
+            new ElementaryStep("1", [new("I1")], [new("I2")], new EyringRates("I1", "T1", "I2")),
+            new ElementaryStep("2", [new("I2")], [new("I1")], new EyringRates("I2", "T2", "I1'")),
+        ], levels);
+        var conditions = new SimulationConditions(new Dictionary<string, double> { ["I1"] = 1.0 }, TemperatureProgram.Isothermal(298.15), 100.0);
+        var sim = Microkinetics.Simulate(network, conditions, options: new SimulationOptions(1e-11, 1e-16));
+        var k = sim.RateConstantsAtStart;
+        var (i1, i2) = (sim.Final.MolPerL[0], sim.Final.MolPerL[1]);
+        var flux = k[1].Forward * i2 - k[1].Reverse * i1;
+        var span = EnergeticSpan.Analyze([I("I1", 0), T("T1", 15), I("I2", -5), T("T2", 12)], Energy.FromKcalPerMol(-20), 298.15);
+        Close.Relative(span.TurnoverFrequencyPerSecond, flux, 1e-8, "steady-state TOF of the simulation", "energetic span = Christiansen steady state");
+        Close.Relative(2.0772, flux, 1e-4, "steady-state TOF", "hand derivation above");
+        var christiansen = (k[0].Forward * k[1].Forward - k[0].Reverse * k[1].Reverse) / (k[0].Forward + k[0].Reverse + k[1].Forward + k[1].Reverse);
+        Close.Relative(christiansen, flux, 1e-8, "steady-state TOF", "Christiansen 1953 (from memory)");
+    }
+
     // Hand derivation: I1 0 → T1 20 → I2 −15 → T2 0 → (I1 − 10), ΔG_r = −10. Spans: T1/I1 20; T1/I2 (T before I) 20 + 15 − 10 = 25;
     // T2/I1 0; T2/I2 15. δE = 25 with TDTS = T1 before TDI = I2: the span wraps round into the next turnover and ΔG_r enters.
     [Fact]
