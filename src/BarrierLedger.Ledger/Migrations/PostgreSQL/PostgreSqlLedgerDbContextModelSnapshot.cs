@@ -849,12 +849,6 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<int>("Charge")
                         .HasColumnType("integer");
 
-                    b.Property<string>("Description")
-                        .IsRequired()
-                        .HasMaxLength(4000)
-                        .HasColumnType("character varying(4000)")
-                        .UseCollation("C");
-
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)
@@ -1047,7 +1041,7 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     b.HasKey("Id");
 
-                    b.ToTable("DataProtectionKeys");
+                    b.ToTable("DataProtectionKeys", (string)null);
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>

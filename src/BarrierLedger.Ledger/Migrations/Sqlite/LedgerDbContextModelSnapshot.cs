@@ -761,11 +761,6 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<int>("Charge")
                         .HasColumnType("INTEGER");
 
-                    b.Property<string>("Description")
-                        .IsRequired()
-                        .HasMaxLength(4000)
-                        .HasColumnType("TEXT");
-
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)
@@ -935,7 +930,7 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
 
                     b.HasKey("Id");
 
-                    b.ToTable("DataProtectionKeys");
+                    b.ToTable("DataProtectionKeys", (string)null);
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>
