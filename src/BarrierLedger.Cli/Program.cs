@@ -54,6 +54,7 @@ public static class Program
         root.Subcommands.Add(VibrationsCommand.Create(context));
         root.Subcommands.Add(VibrationsCommand.CreateDeprecated(context));
         root.Subcommands.Add(ThermoCommand.Create(context));
+        root.Subcommands.Add(KieCommand.Create(context));
         root.Subcommands.Add(RateCommand.Create(context));
         root.Subcommands.Add(ScanCommand.Create(context));
         root.Subcommands.Add(ValidateCommand.Create(context));

@@ -42,6 +42,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<LedgerQueryService>();
         services.AddSingleton<ReactionQueryService>();
         services.AddSingleton<WorkspaceQueryService>();
+        services.AddSingleton<IsotopeEffects.IsotopeEffectService>();
         services.AddSingleton<RecordService>();
         services.AddSingleton<BackupService>();
         return services;
