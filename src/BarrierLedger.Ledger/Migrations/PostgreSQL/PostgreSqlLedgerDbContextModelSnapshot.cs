@@ -915,6 +915,12 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<int>("Charge")
                         .HasColumnType("integer");
 
+                    b.Property<string>("Description")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("character varying(4000)")
+                        .UseCollation("C");
+
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)
@@ -1107,7 +1113,7 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     b.HasKey("Id");
 
-                    b.ToTable("DataProtectionKeys", (string)null);
+                    b.ToTable("DataProtectionKeys");
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>

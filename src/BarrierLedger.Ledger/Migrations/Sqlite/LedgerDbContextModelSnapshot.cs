@@ -820,6 +820,11 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<int>("Charge")
                         .HasColumnType("INTEGER");
 
+                    b.Property<string>("Description")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)
@@ -989,7 +994,7 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
 
                     b.HasKey("Id");
 
-                    b.ToTable("DataProtectionKeys", (string)null);
+                    b.ToTable("DataProtectionKeys");
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>
