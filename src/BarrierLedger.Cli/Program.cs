@@ -51,8 +51,10 @@ public static class Program
     public static RootCommand BuildRootCommand(CliContext context)
     {
         var root = new RootCommand("barrierledger: read quantum-chemistry results, analyse frequencies, thermochemistry, rates and scans.");
-        root.Subcommands.Add(FreqCommand.Create(context));
+        root.Subcommands.Add(VibrationsCommand.Create(context));
+        root.Subcommands.Add(VibrationsCommand.CreateDeprecated(context));
         root.Subcommands.Add(ThermoCommand.Create(context));
+        root.Subcommands.Add(KieCommand.Create(context));
         root.Subcommands.Add(RateCommand.Create(context));
         root.Subcommands.Add(ScanCommand.Create(context));
         root.Subcommands.Add(ValidateCommand.Create(context));

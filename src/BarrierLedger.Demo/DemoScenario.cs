@@ -215,6 +215,17 @@ public static class DemoScenario
         ("KE", "barrier mixing levels of theory (one state at another level)", "Passed", "Failed: vinyl alcohol was optimised and single-pointed on def2-TZVP geometries"),
     ];
 
+    /// <summary>
+    /// Isotopologue sets the demo loader stores after the upload (reaction label, saddle-point position, name, saddle-point atoms):
+    /// KE breaks the C2–H4 bond in its only (so rate-determining) step, so H4→D gives a primary H/D isotope effect, and C2→¹³C a
+    /// small heavy-atom one. The reactant-side atoms are found by atom order (acetaldehyde and TS-KE share their numbering).
+    /// </summary>
+    public static IReadOnlyList<(string Reaction, int SaddlePosition, string Name, string Substitutions)> IsotopologueSets { get; } =
+    [
+        ("KE", 1, "D at H4 (primary, the hydrogen that moves)", "4=D"),
+        ("KE", 1, "13C at C2 (the carbon that loses H4)", "2=13C"),
+    ];
+
     /// <summary>The README.md written beside the bundle.</summary>
     public static string Readme(DemoStudy study)
     {

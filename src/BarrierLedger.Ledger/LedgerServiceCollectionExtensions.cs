@@ -41,6 +41,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<ReviewService>();
         services.AddSingleton<LedgerQueryService>();
         services.AddSingleton<ReactionQueryService>();
+        services.AddSingleton<IsotopeEffects.IsotopeEffectService>();
         services.AddSingleton<RecordService>();
         services.AddSingleton<BackupService>();
         return services;

@@ -4,7 +4,7 @@ using System.Text.Json;
 namespace BarrierLedger.Cli.Tests;
 
 /// <summary>
-/// freq and scan print the check verdicts with their reasons. The inputs are the check test cases of the Core tests
+/// vibrations and scan print the check verdicts with their reasons. The inputs are the check test cases of the Core tests
 /// (tests/BarrierLedger.Core.Tests/Checks/Cases), whose expected verdicts are derived there.
 /// </summary>
 public class VerdictOutputTests
@@ -18,7 +18,7 @@ public class VerdictOutputTests
     [InlineData("h-transfer-two-imaginary.json", "Verdict: Failed", 1, "[saddle.several-significant-imaginary-modes]")]
     public void Freq_PrintsTheSaddlePointVerdictWithReasons(string file, string verdict, int exit, string code)
     {
-        var (c, o, e) = CliRunner.Run("freq", Case(file));
+        var (c, o, e) = CliRunner.Run("vibrations", Case(file));
         Assert.True(c == exit, $"exit {c}; stderr: {e}");
         Assert.Contains($"Saddle-point check: {verdict}", o);
         Assert.Contains(code, o);
@@ -27,7 +27,7 @@ public class VerdictOutputTests
     [Fact]
     public void FreqJson_CarriesTheVerdict()
     {
-        var (c, o, _) = CliRunner.Run("freq", Case("h-transfer-soft-rotor.json"), "--json");
+        var (c, o, _) = CliRunner.Run("vibrations", Case("h-transfer-soft-rotor.json"), "--json");
         Assert.Equal(0, c);
         var check = JsonDocument.Parse(o).RootElement.GetProperty("saddle_check");
         Assert.Equal("needs_attention", check.GetProperty("verdict").GetString());

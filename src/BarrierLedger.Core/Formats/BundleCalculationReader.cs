@@ -219,8 +219,9 @@ internal static class BundleCalculationReader
         j.WarnUnknown(m, p, KnownKeys["mode"]);
         var freq = j.Number(m, p, "frequency_cm1", required: true);
         var d = j.Array(m, p, "displacements", required: true);
-        var mu = j.Number(m, p, "reduced_mass_amu", required: false) ?? double.NaN;
-        var k = j.Number(m, p, "force_constant_mdyn_per_angstrom", required: false) ?? double.NaN;
+        var mu = OneOf(m, p, j, "reduced_mass_da", "reduced_mass_amu", 1.0);
+        // 1 mdyn/Å = 100 N/m exactly (definitions of the dyne and the ångström).
+        var k = OneOf(m, p, j, "force_constant_n_per_m", "force_constant_mdyn_per_angstrom", 100.0);
         if (freq is null || d is null) return null;
         var dp = JsonInput.Child(p, "displacements");
         var flat = j.Numbers(d.Value, dp, allowNested: true, maxCount: 3L * atomCount);
@@ -230,5 +231,17 @@ internal static class BundleCalculationReader
         if (norm == 0) { j.Issues.ErrorAt(dp, "is all zeros; a normal mode needs a non-zero displacement"); return null; }
         var vecs = Enumerable.Range(0, atomCount).Select(i => new Vec3(flat[3 * i], flat[3 * i + 1], flat[3 * i + 2]) / norm);
         return new NormalMode(freq.Value, [.. vecs], mu, k);
+    }
+
+    /// <summary>The value under <paramref name="key"/>, or under its older name scaled by <paramref name="oldToNew"/>; NaN when neither is given.</summary>
+    private static double OneOf(JsonElement m, string p, JsonInput j, string key, string oldKey, double oldToNew)
+    {
+        if (m.TryGetProperty(key, out _) && m.TryGetProperty(oldKey, out _))
+        {
+            j.Issues.ErrorAt(JsonInput.Child(p, oldKey), $"gives the same quantity as '{key}' under its older name; give only '{key}'");
+            return double.NaN;
+        }
+        if (m.TryGetProperty(oldKey, out _)) return (j.Number(m, p, oldKey, required: false) ?? double.NaN) * oldToNew;
+        return j.Number(m, p, key, required: false) ?? double.NaN;
     }
 }

@@ -28,7 +28,9 @@ public static class BundleSchema
         ["calculation"] = ["label", "species", "kind", "level_of_theory", "energy_hartree", "file", "geometry", "frequencies_cm1", "modes",
             "hessian_hartree_per_bohr2", "thermal_corrections", "note"],
         ["geometry"] = ["symbols", "positions_angstrom"],
-        ["mode"] = ["frequency_cm1", "displacements", "reduced_mass_amu", "force_constant_mdyn_per_angstrom"],
+        // reduced_mass_amu and force_constant_mdyn_per_angstrom are the names format_version 1 bundles were first written with:
+        // still read (the force constant converted to N/m), never written.
+        ["mode"] = ["frequency_cm1", "displacements", "reduced_mass_da", "force_constant_n_per_m", "reduced_mass_amu", "force_constant_mdyn_per_angstrom"],
         ["thermal_corrections"] = ["temperature_kelvin", "zero_point_hartree", "enthalpy_hartree", "gibbs_hartree"],
         ["reaction"] = ["label", "description", "states"],
         ["state"] = ["label", "kind", "terms", "calculation", "reaction_coordinate"],

@@ -55,6 +55,30 @@ public sealed record AtomMappingResult(
     public bool Succeeded => Status == AtomMappingStatus.Mapped;
 }
 
+/// <summary>Atoms of one class bonded only to the same parent (the hydrogens of a methyl group, the fluorines of CF₃).</summary>
+/// <param name="Parent">The 0-based atom they are bonded to.</param>
+/// <param name="Members">The 0-based atoms of the group, ascending.</param>
+public sealed record InterchangeableGroup(int Parent, ImmutableArray<int> Members);
+
+/// <summary>
+/// The bond-preserving self-mappings of a structure (its graph automorphisms), as <see cref="AtomMapping.Symmetry"/> lists them: the
+/// skeleton mappings, and the interchangeable terminal groups whose order is left to the geometry.
+/// </summary>
+/// <param name="Classes">Equivalence class of every atom (see <see cref="AtomMapping.EquivalenceClasses"/>).</param>
+/// <param name="SkeletonMappings">
+/// Every bond-preserving mapping of the skeleton onto itself, the identity first: Mapping[i] is the atom that atom i goes to. Members
+/// of an interchangeable group go to the members of the image group in ascending order (their best order depends on the geometry).
+/// </param>
+/// <param name="Groups">The interchangeable terminal groups.</param>
+/// <param name="Skeleton">The skeleton atoms (every atom outside an interchangeable group), 0-based, ascending.</param>
+/// <param name="Exhaustive">Every skeleton mapping was listed (false: stopped at <see cref="AtomMappingOptions.MaxSkeletonMappings"/>).</param>
+public sealed record AtomSymmetry(
+    ImmutableArray<int> Classes,
+    ImmutableArray<ImmutableArray<int>> SkeletonMappings,
+    ImmutableArray<InterchangeableGroup> Groups,
+    ImmutableArray<int> Skeleton,
+    bool Exhaustive);
+
 /// <summary>
 /// Which atom of one structure is which atom of another, from the bond graphs (<see cref="Connectivity"/>) and, among the mappings
 /// the bonds allow, the geometry (lowest <see cref="Kabsch"/> RMSD). The same atom order in both files is the common case and
@@ -90,6 +114,69 @@ public static class AtomMapping
         if (g.AtomCount != molecule.AtomCount)
             throw new ArgumentException($"The bond graph has {g.AtomCount} atoms but the structure {molecule.AtomCount}.", nameof(bonds));
         return [.. Refine([molecule], [g])];
+    }
+
+    /// <summary>
+    /// The bond-preserving self-mappings of <paramref name="molecule"/> (its topological symmetry), found by the same search as
+    /// <see cref="Find(Molecule, Connectivity, Molecule, Connectivity, AtomMappingOptions?)"/> run on the structure against itself.
+    /// Listing them once lets many structures with this bond graph (the conformers of one species, renumbered into its atom order)
+    /// be compared pair by pair without repeating the graph search: every mapping between two of them is one of these.
+    /// </summary>
+    public static AtomSymmetry Symmetry(Molecule molecule, Connectivity? bonds = null, AtomMappingOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(molecule);
+        var g = bonds ?? Connectivity.Of(molecule);
+        if (g.AtomCount != molecule.AtomCount)
+            throw new ArgumentException($"The bond graph has {g.AtomCount} atoms but the structure {molecule.AtomCount}.", nameof(bonds));
+        var o = options ?? AtomMappingOptions.Default;
+        if (o.MaxSkeletonMappings < 1) throw new ArgumentException("MaxSkeletonMappings must be 1 or more.", nameof(options));
+        var colours = Refine([molecule], [g]);
+        if (molecule.AtomCount == 0) return new AtomSymmetry([], [[]], [], [], true);
+        var search = new Search(molecule, g, colours, molecule, g, colours, o, collect: true);
+        search.Run();
+        var groups = search.GroupsOfMobile.Select(x => new InterchangeableGroup(x.Parent, [.. x.Members])).ToImmutableArray();
+        var inGroup = new bool[molecule.AtomCount];
+        foreach (var grp in groups) foreach (var a in grp.Members) inGroup[a] = true;
+        return new AtomSymmetry([.. colours], [.. search.Collected.Select(m => m.ToImmutableArray())], groups,
+            [.. Enumerable.Range(0, molecule.AtomCount).Where(i => !inGroup[i])], search.Exhaustive);
+    }
+
+    /// <summary>
+    /// One bond-preserving mapping of <paramref name="mobile"/> onto <paramref name="reference"/>, the first the search meets (the
+    /// identity when it preserves every bond), without comparing geometries: for renumbering many structures of one bond graph
+    /// into a common order before they are compared under <see cref="Symmetry"/> (which mapping is then immaterial). The result's
+    /// RMSD is NaN; <see cref="AtomMappingResult.Exhaustive"/> is false unless no other mapping could exist.
+    /// </summary>
+    public static AtomMappingResult FindAny(Molecule mobile, Connectivity mobileBonds, Molecule reference, Connectivity referenceBonds)
+    {
+        ArgumentNullException.ThrowIfNull(mobile);
+        ArgumentNullException.ThrowIfNull(mobileBonds);
+        ArgumentNullException.ThrowIfNull(reference);
+        ArgumentNullException.ThrowIfNull(referenceBonds);
+        if (mobileBonds.AtomCount != mobile.AtomCount) throw new ArgumentException("The mobile bond graph does not fit the mobile structure.", nameof(mobileBonds));
+        if (referenceBonds.AtomCount != reference.AtomCount) throw new ArgumentException("The reference bond graph does not fit the reference structure.", nameof(referenceBonds));
+        if (mobile.AtomCount == reference.AtomCount && mobileBonds.SameAs(referenceBonds)
+            && mobile.Elements.Select(e => e.AtomicNumber).SequenceEqual(reference.Elements.Select(e => e.AtomicNumber)))
+            return new AtomMappingResult(AtomMappingStatus.Mapped, [.. Enumerable.Range(0, mobile.AtomCount)], double.NaN, true, false, 1, 1,
+                "atoms in the same order with the same bonds");
+        var fm = Formula.Of(mobile);
+        var fr = Formula.Of(reference);
+        if (fm != fr)
+            return Fail(AtomMappingStatus.DifferentAtoms, $"the atoms differ: {fm} against {fr} ({fm.DifferenceFrom(fr)})");
+        var colours = Refine([mobile, reference], [mobileBonds, referenceBonds]);
+        var n = mobile.AtomCount;
+        var cm = colours[..n];
+        var cr = colours[n..];
+        if (!cm.Order().SequenceEqual(cr.Order()))
+            return Fail(AtomMappingStatus.DifferentBonds, "the same atoms, but " + BondTypeDifference(mobile, mobileBonds, reference, referenceBonds));
+        var search = new Search(mobile, mobileBonds, cm, reference, referenceBonds, cr, AtomMappingOptions.Default with { MaxSkeletonMappings = 1 }, collect: true);
+        search.Run();
+        if (search.Collected.Count == 0)
+            return Fail(AtomMappingStatus.DifferentBonds, "the same atoms and the same kinds of bonds, but joined differently: no numbering of one gives the bonds of the other");
+        var map = search.Collected[0];
+        var identity = map.Select((v, i) => v == i).All(x => x);
+        return new AtomMappingResult(AtomMappingStatus.Mapped, [.. map], double.NaN, identity, false, 1, 1,
+            identity ? "atoms matched in the same order" : $"atoms matched in another order by their bonds ({Describe(mobile, reference, map)})");
     }
 
     /// <summary>Maps <paramref name="mobile"/> onto <paramref name="reference"/>, bonds from <see cref="Connectivity.Of"/>.</summary>
@@ -265,9 +352,10 @@ public static class AtomMapping
         private readonly int[] _map, _reverse;
         private readonly bool _skeletonOrients;
 
-        public Search(Molecule m, Connectivity gm, int[] cm, Molecule r, Connectivity gr, int[] cr, AtomMappingOptions o)
+        public Search(Molecule m, Connectivity gm, int[] cm, Molecule r, Connectivity gr, int[] cr, AtomMappingOptions o, bool collect = false)
         {
             (_m, _gm, _cm, _r, _gr, _cr, _o) = (m, gm, cm, r, gr, cr, o);
+            _collect = collect ? [] : null;
             _n = m.AtomCount;
             _groupMemberM = Groups(gm, cm, _groupsM);
             _groupMemberR = Groups(gr, cr, null);
@@ -283,10 +371,18 @@ public static class AtomMapping
         public bool Exhaustive { get; private set; } = true;
         public int EquallyGood { get; private set; }
         private readonly List<double> _rmsds = [];
+        private readonly List<int[]>? _collect;
+
+        /// <summary>In collecting mode: every complete skeleton mapping, groups in ascending order, in the order found.</summary>
+        public IReadOnlyList<int[]> Collected => _collect ?? [];
+
+        /// <summary>The interchangeable terminal groups of the mobile structure.</summary>
+        public IReadOnlyList<(int Parent, int Colour, int[] Members)> GroupsOfMobile => _groupsM;
 
         public void Run()
         {
             Extend(0);
+            if (_collect is not null) return;
             EquallyGood = _rmsds.Count(x => x <= BestRmsd + _o.EquallyGoodAngstrom);
         }
 
@@ -372,6 +468,13 @@ public static class AtomMapping
                 if (t.Length != members.Length) return; // cannot happen for equal classes; guard anyway
                 targets.Add(t);
             }
+            if (_collect is not null)
+            {
+                for (var g = 0; g < _groupsM.Count; g++)
+                    for (var k = 0; k < targets[g].Length; k++) map[_groupsM[g].Members[k]] = targets[g][k];
+                _collect.Add(map);
+                return;
+            }
             double rmsd;
             if (_groupsM.Count == 0)
             {
@@ -409,7 +512,7 @@ public static class AtomMapping
                 {
                     var members = _groupsM[g].Members;
                     var moved = members.Select(i => Apply(rot, pc, qc, _m.PositionsAngstrom[i])).ToArray();
-                    var best = Assign(moved, targets[g]);
+                    var best = NearestOrder(moved, targets[g], _r.PositionsAngstrom);
                     for (var k = 0; k < members.Length; k++)
                     {
                         if (map[members[k]] != best[k]) changed = true;
@@ -442,38 +545,7 @@ public static class AtomMapping
             return bestRmsd;
         }
 
-        /// <summary>The order of <paramref name="targets"/> that puts <paramref name="moved"/> nearest (all orders up to 6 atoms, else greedy).</summary>
-        private int[] Assign(Vec3[] moved, int[] targets)
-        {
-            if (targets.Length <= 6)
-            {
-                var best = targets;
-                var bestCost = double.PositiveInfinity;
-                foreach (var p in Permutations(targets))
-                {
-                    var cost = 0.0;
-                    for (var k = 0; k < p.Length; k++) cost += (moved[k] - _r.PositionsAngstrom[p[k]]).LengthSquared;
-                    if (cost < bestCost) { bestCost = cost; best = p; }
-                }
-                return best;
-            }
-            var free = targets.ToList();
-            var result = new int[targets.Length];
-            var pairs = Enumerable.Range(0, moved.Length)
-                .SelectMany(k => targets.Select(t => (k, t, d: (moved[k] - _r.PositionsAngstrom[t]).LengthSquared)))
-                .OrderBy(x => x.d).ToList();
-            var done = new bool[moved.Length];
-            foreach (var (k, t, _) in pairs)
-            {
-                if (done[k] || !free.Contains(t)) continue;
-                result[k] = t;
-                done[k] = true;
-                free.Remove(t);
-            }
-            return result;
-        }
-
-        private static IEnumerable<int[]> Permutations(int[] items)
+        internal static IEnumerable<int[]> Permutations(int[] items)
         {
             if (items.Length <= 1) { yield return (int[])items.Clone(); yield break; }
             for (var i = 0; i < items.Length; i++)
@@ -489,17 +561,22 @@ public static class AtomMapping
         {
             var target = new Vec3[_n];
             for (var i = 0; i < _n; i++) target[i] = _r.PositionsAngstrom[map[i]];
-            return Kabsch.Superpose(_m.PositionsAngstrom, target).RmsdAngstrom;
+            Span<double> rotation = stackalloc double[9];
+            return Kabsch.Fit(_m.PositionsAngstrom.AsSpan(), target, rotation, out _, out _);
         }
 
         private (double[] Rot, Vec3 Pc, Vec3 Qc) Fit(int[] map, IReadOnlyList<int> atoms)
         {
-            var mobile = atoms.Select(i => _m.PositionsAngstrom[i]).ToArray();
-            var target = atoms.Select(i => _r.PositionsAngstrom[map[i]]).ToArray();
-            var k = Kabsch.Superpose(mobile, target);
-            var pc = mobile.Aggregate(Vec3.Zero, (a, b) => a + b) / mobile.Length;
-            var qc = target.Aggregate(Vec3.Zero, (a, b) => a + b) / target.Length;
-            return ([.. k.RotationRowMajor], pc, qc);
+            var mobile = new Vec3[atoms.Count];
+            var target = new Vec3[atoms.Count];
+            for (var k = 0; k < atoms.Count; k++)
+            {
+                mobile[k] = _m.PositionsAngstrom[atoms[k]];
+                target[k] = _r.PositionsAngstrom[map[atoms[k]]];
+            }
+            var rotation = new double[9];
+            Kabsch.Fit(mobile, target, rotation, out var pc, out var qc);
+            return (rotation, pc, qc);
         }
 
         private static Vec3 Apply(double[] r, Vec3 pc, Vec3 qc, Vec3 x)
@@ -509,7 +586,7 @@ public static class AtomMapping
         }
 
         /// <summary>Three or more points not all within 0.05 Å of one line: they fix an orientation.</summary>
-        private static bool Orients(Vec3[] points)
+        internal static bool Orients(Vec3[] points)
         {
             if (points.Length < 3) return false;
             var a = points[0];
@@ -518,6 +595,78 @@ public static class AtomMapping
             if (axis.Length < 1e-6) return false;
             axis = axis.Normalized();
             return points.Any(p => ((p - a) - axis * (p - a).Dot(axis)).Length > 0.05);
+        }
+    }
+
+    /// <summary>Every order of <paramref name="items"/>.</summary>
+    internal static IEnumerable<int[]> OrdersOf(int[] items) => Search.Permutations(items);
+
+    /// <summary>Three or more points not all within 0.05 Å of one line: they fix an orientation.</summary>
+    internal static bool FixesOrientation(Vec3[] points) => Search.Orients(points);
+
+    /// <summary>
+    /// The order of <paramref name="targets"/> (atoms of <paramref name="reference"/>) that puts the <paramref name="moved"/> positions
+    /// nearest, by the sum of squared distances: every order up to 6 atoms, beyond that the nearest pairs first (greedy).
+    /// </summary>
+    internal static int[] NearestOrder(IReadOnlyList<Vec3> moved, int[] targets, IReadOnlyList<Vec3> reference)
+    {
+        var m = new Vec3[moved.Count];
+        for (var k = 0; k < m.Length; k++) m[k] = moved[k];
+        var result = new int[targets.Length];
+        NearestOrder(m, targets, reference, result);
+        return result;
+    }
+
+    /// <summary>The same, written into <paramref name="order"/>, without allocation up to 6 atoms (Heap's algorithm over the orders).</summary>
+    internal static void NearestOrder(ReadOnlySpan<Vec3> moved, ReadOnlySpan<int> targets, IReadOnlyList<Vec3> reference, Span<int> order)
+    {
+        var n = targets.Length;
+        if (n <= 6)
+        {
+            Span<int> p = stackalloc int[n];
+            Span<int> c = stackalloc int[n];
+            targets.CopyTo(p);
+            c.Clear();
+            double Cost(ReadOnlySpan<Vec3> mv, Span<int> q)
+            {
+                var cost = 0.0;
+                for (var k = 0; k < q.Length; k++) cost += (mv[k] - reference[q[k]]).LengthSquared;
+                return cost;
+            }
+            var best = Cost(moved, p);
+            p.CopyTo(order);
+            var i = 1;
+            while (i < n)
+            {
+                if (c[i] < i)
+                {
+                    if (i % 2 == 0) (p[0], p[i]) = (p[i], p[0]);
+                    else (p[c[i]], p[i]) = (p[i], p[c[i]]);
+                    var cost = Cost(moved, p);
+                    if (cost < best) { best = cost; p.CopyTo(order); }
+                    c[i]++;
+                    i = 1;
+                }
+                else
+                {
+                    c[i] = 0;
+                    i++;
+                }
+            }
+            return;
+        }
+        var free = targets.ToArray().ToList();
+        var pairs = new List<(int K, int T, double D)>(n * n);
+        for (var k = 0; k < n; k++)
+            foreach (var t in targets) pairs.Add((k, t, (moved[k] - reference[t]).LengthSquared));
+        pairs.Sort((a, b) => a.D.CompareTo(b.D));
+        var done = new bool[n];
+        foreach (var (k, t, _) in pairs)
+        {
+            if (done[k] || !free.Contains(t)) continue;
+            order[k] = t;
+            done[k] = true;
+            free.Remove(t);
         }
     }
 

@@ -12,12 +12,21 @@ public static class Boltzmann
     private const double R = PhysicalConstants.GasConstantJoulePerMoleKelvin;
 
     /// <summary>Populations p_i (sum 1), in input order.</summary>
-    public static double[] Populations(IReadOnlyList<Energy> gibbsEnergies, double temperatureKelvin)
+    public static double[] Populations(IReadOnlyList<Energy> gibbsEnergies, double temperatureKelvin) =>
+        Populations(gibbsEnergies, null, temperatureKelvin);
+
+    /// <summary>
+    /// Populations with degeneracies: p_i = g_i exp(−G_i/RT) / Σ_j g_j exp(−G_j/RT), where g_i counts the equivalent copies of
+    /// conformer i that are not listed separately (2 for a chiral conformer of an achiral molecule listed without its mirror
+    /// image, such as gauche butane; McQuarrie, Statistical Mechanics, ch. 2). The population of conformer i includes its copies.
+    /// </summary>
+    public static double[] Populations(IReadOnlyList<Energy> gibbsEnergies, IReadOnlyList<int>? degeneracies, double temperatureKelvin)
     {
         Validate(gibbsEnergies, temperatureKelvin, nameof(gibbsEnergies));
+        ValidateDegeneracies(degeneracies, gibbsEnergies.Count);
         var rt = R * temperatureKelvin;
         var min = gibbsEnergies.Min();
-        var w = gibbsEnergies.Select(g => Math.Exp(-(g - min).KJPerMol * 1000.0 / rt)).ToArray();
+        var w = gibbsEnergies.Select((g, i) => (degeneracies?[i] ?? 1) * Math.Exp(-(g - min).KJPerMol * 1000.0 / rt)).ToArray();
         var sum = w.Sum();
         for (var i = 0; i < w.Length; i++) w[i] /= sum;
         return w;
@@ -27,13 +36,31 @@ public static class Boltzmann
     /// Free energy of the ensemble, G_ens = −RT ln Σ exp(−G_i/RT) = G_min − RT ln Σ exp(−(G_i − G_min)/RT); below G_min by at most
     /// RT ln n.
     /// </summary>
-    public static Energy EnsembleFreeEnergy(IReadOnlyList<Energy> gibbsEnergies, double temperatureKelvin)
+    public static Energy EnsembleFreeEnergy(IReadOnlyList<Energy> gibbsEnergies, double temperatureKelvin) =>
+        EnsembleFreeEnergy(gibbsEnergies, null, temperatureKelvin);
+
+    /// <summary>
+    /// Free energy of the ensemble with degeneracies, G_ens = −RT ln Σ g_i exp(−G_i/RT) (see
+    /// <see cref="Populations(IReadOnlyList{Energy}, IReadOnlyList{int}?, double)"/>). Listing a conformer twice counts it twice: the
+    /// ensemble comes out lower by up to RT ln 2 per repeated conformer, which is why duplicates are found first.
+    /// </summary>
+    public static Energy EnsembleFreeEnergy(IReadOnlyList<Energy> gibbsEnergies, IReadOnlyList<int>? degeneracies, double temperatureKelvin)
     {
         Validate(gibbsEnergies, temperatureKelvin, nameof(gibbsEnergies));
+        ValidateDegeneracies(degeneracies, gibbsEnergies.Count);
         var rt = R * temperatureKelvin;
         var min = gibbsEnergies.Min();
-        var sum = gibbsEnergies.Sum(g => Math.Exp(-(g - min).KJPerMol * 1000.0 / rt));
+        var sum = gibbsEnergies.Select((g, i) => (degeneracies?[i] ?? 1) * Math.Exp(-(g - min).KJPerMol * 1000.0 / rt)).Sum();
         return min - Energy.FromKJPerMol(rt * Math.Log(sum) / 1000.0);
+    }
+
+    private static void ValidateDegeneracies(IReadOnlyList<int>? degeneracies, int count)
+    {
+        if (degeneracies is null) return;
+        if (degeneracies.Count != count)
+            throw new ArgumentException($"{degeneracies.Count} degeneracies for {count} energies.", nameof(degeneracies));
+        for (var i = 0; i < count; i++)
+            if (degeneracies[i] < 1) throw new ArgumentException($"Degeneracy {i + 1} must be 1 or more, got {degeneracies[i]}.", nameof(degeneracies));
     }
 
     /// <summary>

@@ -230,6 +230,6 @@ public static class FrequencyAnalysis
         var reducedMass = 1.0 / invMu;
         var omega = 2.0 * Math.PI * PhysicalConstants.SpeedOfLightMetrePerSecond * 100.0 * nu;
         var forceNewtonPerMetre = Math.Sign(nu) * omega * omega * reducedMass * PhysicalConstants.AtomicMassConstantKilogram;
-        return new NormalMode(nu, ImmutableCollectionsMarshal.AsImmutableArray(disp), reducedMass, forceNewtonPerMetre / 100.0);
+        return new NormalMode(nu, ImmutableCollectionsMarshal.AsImmutableArray(disp), reducedMass, forceNewtonPerMetre);
     }
 }

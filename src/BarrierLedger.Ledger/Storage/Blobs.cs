@@ -53,7 +53,11 @@ public static class Blobs
 
     public static Element[] ToElements(byte[]? bytes) => bytes is null ? [] : [.. bytes.Select(z => Elements.Get(z))];
 
-    /// <summary>Modes as M blocks of 3N displacement components, each block preceded by its wavenumber, reduced mass and force constant.</summary>
+    /// <summary>
+    /// Modes as M blocks of 3N displacement components, each block preceded by its wavenumber, reduced mass (Da) and force constant.
+    /// The force constant is kept in the blob in mdyn/Å, the unit ledgers were first written with, so stored ledgers read back
+    /// unchanged; it is converted here, at the store's edge (1 mdyn/Å = 100 N/m exactly), and nowhere else.
+    /// </summary>
     public static byte[] FromModes(IReadOnlyList<NormalMode> modes)
     {
         if (modes.Count == 0) return [];
@@ -64,12 +68,15 @@ public static class Blobs
         {
             if (m.DisplacementCartesian.Length != n) throw new ArgumentException("Every mode must cover the same atoms.", nameof(modes));
             values[k++] = m.FrequencyCm1;
-            values[k++] = m.ReducedMassAmu;
-            values[k++] = m.ForceConstantMdynPerAngstrom;
+            values[k++] = m.ReducedMassDalton;
+            values[k++] = m.ForceConstantNewtonPerMetre / NewtonPerMetrePerMdynPerAngstrom;
             foreach (var d in m.DisplacementCartesian) { values[k++] = d.X; values[k++] = d.Y; values[k++] = d.Z; }
         }
         return FromDoubles(values);
     }
+
+    /// <summary>1 mdyn/Å = 10⁻⁸ N / 10⁻¹⁰ m = 100 N/m (exact, by the definitions of the dyne and the ångström).</summary>
+    private const double NewtonPerMetrePerMdynPerAngstrom = 100.0;
 
     public static NormalMode[] ToModes(byte[]? bytes, int atomCount)
     {
@@ -84,7 +91,7 @@ public static class Blobs
             var o = m * block;
             var d = ImmutableArray.CreateBuilder<Vec3>(atomCount);
             for (var a = 0; a < atomCount; a++) d.Add(new Vec3(v[o + 3 + 3 * a], v[o + 4 + 3 * a], v[o + 5 + 3 * a]));
-            modes[m] = new NormalMode(v[o], d.MoveToImmutable(), v[o + 1], v[o + 2]);
+            modes[m] = new NormalMode(v[o], d.MoveToImmutable(), v[o + 1], v[o + 2] * NewtonPerMetrePerMdynPerAngstrom);
         }
         return modes;
     }

@@ -34,6 +34,7 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
     public DbSet<StoredFile> StoredFiles => Set<StoredFile>();
     public DbSet<AuditEvent> AuditEvents => Set<AuditEvent>();
     public DbSet<ReactionDerivation> ReactionDerivations => Set<ReactionDerivation>();
+    public DbSet<IsotopologueSet> IsotopologueSets => Set<IsotopologueSet>();
     public DbSet<WorkLease> WorkLeases => Set<WorkLease>();
     public DbSet<DataProtectionKey> DataProtectionKeys => Set<DataProtectionKey>();
 

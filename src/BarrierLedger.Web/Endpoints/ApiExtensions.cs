@@ -96,6 +96,7 @@ public static class ApiExtensions
         UploadEndpoints.Map(api, options);
         LedgerEndpoints.Map(api);
         ExportApiEndpoints.Map(api);
+        IsotopeEffectEndpoints.Map(api);
 
         endpoints.MapFallback("/api/{**rest}", (HttpContext c) => ApiProblems.NotFound($"No API endpoint at {c.Request.Method} {c.Request.Path}; see {Prefix}/openapi.json."))
             .AllowAnonymous().ExcludeFromDescription();

@@ -30,6 +30,8 @@ public static class ExportEndpoints
             var file = format == "zip" ? await export.SupportingInfoZipAsync(study, ct) : await export.SupportingInfoTextAsync(study, ct);
             return File(file);
         }));
+        group.MapGet("/isotope-effects/{reactionId:int}", (int reactionId, string? format, BarrierLedger.Ledger.IsotopeEffects.IsotopeEffectService service, CancellationToken ct) =>
+            IsotopeEffectEndpoints.GetAsync(reactionId, format ?? "csv", service, ct));
         endpoints.MapGet(Prefix + "/backup", BackupAsync).RequireAuthorization(Policies.Admin).ExcludeFromDescription();
         return endpoints;
     }

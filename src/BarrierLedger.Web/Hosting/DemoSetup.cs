@@ -2,6 +2,7 @@ using BarrierLedger.Demo;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Derivation;
+using BarrierLedger.Ledger.IsotopeEffects;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Uploads;
 using Microsoft.AspNetCore.Identity;
@@ -37,6 +38,7 @@ public sealed class DemoSetup(
     EnergyModelService models,
     RecomputeService recompute,
     LedgerQueryService ledger,
+    IsotopeEffectService isotopes,
     DemoOptions options,
     ILogger<DemoSetup> log)
 {
@@ -77,6 +79,12 @@ public sealed class DemoSetup(
         var saved = await models.SaveStudyOverrideAsync(studyId, protocol, 0, member.Id, ct);
         if (!saved.Saved) log.LogWarning("Demo energy model not set: {Why}", saved.Conflict ?? string.Join("; ", saved.Errors));
         await recompute.WhenIdleAsync();
+        foreach (var (reaction, position, name, substitutions) in DemoScenario.IsotopologueSets)
+        {
+            var id = await isotopes.FindReactionAsync(studyId, reaction, ct);
+            var set = id is null ? null : await isotopes.CreateAsync(id.Value, position, name, substitutions, null, member.Id, ct);
+            if (set is not { Saved: true }) log.LogWarning("Demo isotopologue set '{Name}' not stored: {Why}", name, set is null ? $"no reaction {reaction}" : string.Join("; ", set.Errors));
+        }
         log.LogInformation("Loaded the demo study ({Calcs} calculations, {Reactions} reactions) from {Dir}.",
             outcome.CalculationIds.Count, outcome.ReactionIds.Count, dir);
     }

@@ -225,4 +225,43 @@ public class BundleReaderTests
         var e = Assert.Single(r.Errors);
         Assert.Equal("$.species[0].charge", e.JsonPath);
     }
+
+    private static string OneModeBundle(string modeKeys) => $$"""
+        {"format":"barrierledger-bundle","format_version":1,"study":{"name":"x"},
+         "species":[{"label":"HH","charge":0,"multiplicity":1}],
+         "calculations":[{"label":"h2","species":"HH","kind":"minimum","level_of_theory":"HF/STO-3G","energy_hartree":-1.1,
+           "geometry":{"symbols":["H","H"],"positions_angstrom":[[0,0,0],[0,0,0.74]]},
+           "modes":[{"frequency_cm1":4400.0,"displacements":[[0,0,-1],[0,0,1]]{{modeKeys}}}]}]}
+        """;
+
+    [Fact]
+    public void Mode_keys_in_SI_are_read_as_given()
+    {
+        var r = BundleReader.Read(Utf8(OneModeBundle(""","reduced_mass_da":0.504,"force_constant_n_per_m":575.0""")), "b.json");
+        Assert.Empty(r.Errors);
+        var mode = r.Value!.Calculations.Single().Modes.Single();
+        Assert.Equal(0.504, mode.ReducedMassDalton);
+        Assert.Equal(575.0, mode.ForceConstantNewtonPerMetre);
+    }
+
+    [Fact]
+    public void Older_mode_keys_are_still_read_and_mdyn_per_angstrom_becomes_N_per_m()
+    {
+        // 1 mdyn/Å = 1e-8 N / 1e-10 m = 100 N/m exactly (definitions of the dyne and the ångström).
+        var r = BundleReader.Read(Utf8(OneModeBundle(""","reduced_mass_amu":0.504,"force_constant_mdyn_per_angstrom":5.75""")), "b.json");
+        Assert.Empty(r.Errors);
+        Assert.DoesNotContain(r.Issues, i => i.Message.Contains("unknown", StringComparison.OrdinalIgnoreCase));
+        var mode = r.Value!.Calculations.Single().Modes.Single();
+        Assert.Equal(0.504, mode.ReducedMassDalton);
+        Assert.Equal(575.0, mode.ForceConstantNewtonPerMetre, 10);
+    }
+
+    [Fact]
+    public void A_mode_with_both_the_new_and_the_older_key_is_an_error_at_the_older_key()
+    {
+        var r = BundleReader.Read(Utf8(OneModeBundle(""","force_constant_n_per_m":575.0,"force_constant_mdyn_per_angstrom":5.75""")), "b.json");
+        var e = Assert.Single(r.Errors);
+        Assert.Equal("$.calculations[0].modes[0].force_constant_mdyn_per_angstrom", e.JsonPath);
+        Assert.Contains("give only 'force_constant_n_per_m'", e.Message);
+    }
 }

@@ -117,6 +117,58 @@ public class AtomMappingTests
     }
 
     [Fact]
+    public void FindAny_ShuffledCopy_GivesABondPreservingNumbering()
+    {
+        var m = Asymmetric();
+        int[] order = [8, 3, 0, 7, 5, 1, 6, 2, 4];
+        var shuffled = Permuted(m, order, p => Rotate(p, new Vec3(-0.3, 0.8, 0.5), 2.3));
+        var gs = Connectivity.Of(shuffled);
+        var gm = Connectivity.Of(m);
+        var r = AtomMapping.FindAny(shuffled, gs, m, gm);
+        Assert.True(r.Succeeded, r.Message);
+        Assert.False(r.IsIdentity);
+        Assert.Equal(m.AtomCount, r.Map.Distinct().Count());
+        Assert.All(gs.Bonds, b => Assert.True(gm.AreBonded(r.Map[b.A], r.Map[b.B]), $"bond {b.Label(shuffled)} is not kept"));
+        Assert.All(Enumerable.Range(0, m.AtomCount), i => Assert.Equal(shuffled.Elements[i], m.Elements[r.Map[i]]));
+
+        var same = AtomMapping.FindAny(m, gm, m, gm);
+        Assert.True(same.IsIdentity);
+        Assert.Equal("atoms in the same order with the same bonds", same.Message);
+
+        var water = new Molecule([Elements.Get("O"), Elements.H, Elements.H], [Vec3.Zero, new Vec3(0.96, 0, 0), new Vec3(-0.24, 0.93, 0)]);
+        Assert.Equal(AtomMappingStatus.DifferentAtoms, AtomMapping.FindAny(water, Connectivity.Of(water), m, gm).Status);
+    }
+
+    [Fact]
+    public void Symmetry_ListsTheSkeletonSelfMappingsAndTheInterchangeableGroups()
+    {
+        // Cube of eight carbons: the 48 symmetry operations of O_h are its 48 bond-preserving self-mappings, identity first.
+        var corners = new List<Vec3>();
+        for (var i = 0; i < 8; i++) corners.Add(new Vec3(i & 1, (i >> 1) & 1, (i >> 2) & 1) * 1.55);
+        var cube = AtomMapping.Symmetry(new Molecule(Enumerable.Repeat(Elements.C, 8), corners));
+        Assert.Equal(48, cube.SkeletonMappings.Length);
+        Assert.Equal(Enumerable.Range(0, 8), cube.SkeletonMappings[0]);
+        Assert.Equal(48, cube.SkeletonMappings.Select(m => string.Join(",", m)).Distinct().Count());
+        Assert.True(cube.Exhaustive);
+        Assert.Empty(cube.Groups);
+
+        // Staggered ethane: the skeleton is the two carbons (2 mappings: C1↔C2 or not); each methyl's hydrogens are a group.
+        var e = AtomMapping.Symmetry(InternalCoordinatesTests.StaggeredEthane());
+        Assert.Equal(2, e.SkeletonMappings.Length);
+        Assert.Equal([0, 1], e.Skeleton.ToArray());
+        Assert.Equal(2, e.Groups.Length);
+        Assert.All(e.Groups, g => Assert.Equal(3, g.Members.Length));
+        // The C1↔C2 mapping sends the hydrogens of C1 to those of C2.
+        var swap = e.SkeletonMappings[1];
+        Assert.Equal(1, swap[0]);
+        Assert.Equal(e.Groups.Single(g => g.Parent == 1).Members, e.Groups.Single(g => g.Parent == 0).Members.Select(h => swap[h]));
+
+        var limited = AtomMapping.Symmetry(new Molecule(Enumerable.Repeat(Elements.C, 8), corners), options: new AtomMappingOptions(MaxSkeletonMappings: 5));
+        Assert.Equal(5, limited.SkeletonMappings.Length);
+        Assert.False(limited.Exhaustive);
+    }
+
+    [Fact]
     public void HighlySymmetricStructure_SaysWhenTheSearchStoppedAtItsLimit()
     {
         // Cubane-like C8 cage (48 automorphisms) without hydrogens, limited to 5 mappings: the answer says it is not exhaustive.

@@ -136,4 +136,42 @@ public class KabschTests
         Close.Absolute(rmsd, kabsch.RmsdAngstrom, 1e-10, "RMSD", "Horn, J. Opt. Soc. Am. A 1987, 4, 629 (quaternion method, computed here)");
         Assert.True(rmsd > 0.05, "the noise must leave a residual for the comparison to mean something");
     }
+    [Fact]
+    public void Fit_AgreesWithTheSvdSuperposition_OnNoisyMirroredAndPlanarSets()
+    {
+        // The allocation-free quaternion path (Horn 1987) against the SVD path (Kabsch 1976/1978): the same least-squares problem
+        // solved two ways. Sets: a noisy rigid copy, a mirror image (the best proper rotation is then far from exact), a planar set.
+        var rng = new Random(8);
+        var m = InternalCoordinatesTests.StaggeredEthane().PositionsAngstrom;
+        var noisy = m.Select(p => Rotate(p, new Vec3(1, 2, -0.5), 0.9) + new Vec3(1, -2, 3) + new Vec3(rng.NextDouble() - 0.5, rng.NextDouble() - 0.5, rng.NextDouble() - 0.5) * 0.3).ToArray();
+        // A random (chiral) cloud: a symmetric one such as ethane would make the best rotation of its mirror image non-unique.
+        var cloud = Enumerable.Range(0, 8).Select(_ => new Vec3(rng.NextDouble(), rng.NextDouble(), rng.NextDouble()) * 3).ToArray();
+        var mirror = cloud.Select(p => Rotate(new Vec3(-p.X, p.Y, p.Z), new Vec3(0.2, 1, 0.3), 2.0)).ToArray();
+        var planar = Enumerable.Range(0, 6).Select(k => new Vec3(Math.Cos(k), Math.Sin(2.0 * k), 0)).ToArray();
+        var planarMoved = planar.Select(p => Rotate(p, new Vec3(1, 1, 0), 0.7) + new Vec3(0, 0, 0.05 * rng.NextDouble())).ToArray();
+        foreach (var (name, mobile, reference) in new[] { ("noisy", noisy, m.ToArray()), ("mirror", mirror, cloud), ("planar", planarMoved, planar) })
+        {
+            var svd = Kabsch.Superpose(mobile, reference);
+            var rotation = new double[9];
+            var rmsd = Kabsch.Fit(mobile, reference, rotation, out var pc, out var qc);
+            Close.Absolute(svd.RmsdAngstrom, rmsd, 1e-10, $"RMSD, {name} set", "Kabsch SVD solution (Acta Cryst. A 1976, 32, 922; 1978, 34, 827)");
+            for (var i = 0; i < 9; i++)
+                Close.Absolute(svd.RotationRowMajor[i], rotation[i], 1e-9, $"rotation element {i}, {name} set", "Kabsch SVD solution");
+            // The returned centroids and rotation reproduce the SVD path's aligned positions.
+            for (var a = 0; a < mobile.Length; a++)
+            {
+                var x = Apply([.. rotation], mobile[a] - pc) + qc;
+                Close.Absolute(0, (x - svd.AlignedAngstrom[a]).Length, 1e-9, $"aligned atom {a + 1}, {name} set", "Kabsch SVD solution");
+            }
+        }
+        Assert.True(Kabsch.Superpose(mirror, cloud).RmsdAngstrom > 0.2, "a mirror image is not superposed by a proper rotation");
+    }
+
+    [Fact]
+    public void Fit_MismatchedOrEmptySets_AreRejected()
+    {
+        var r = new double[9];
+        Assert.Throws<ArgumentException>(() => Kabsch.Fit([Vec3.Zero], [Vec3.Zero, Vec3.Zero], r, out _, out _));
+        Assert.Throws<ArgumentException>(() => Kabsch.Fit([], [], r, out _, out _));
+    }
 }

@@ -44,5 +44,32 @@ public class BoltzmannTests
     }
 
     [Fact]
+    public void Butane_AntiAndDoublyDegenerateGauche_GiveTheTextbookPopulationsAndEnsembleG()
+    {
+        // anti at 0, gauche 3.8 kJ/mol above with degeneracy 2 (the ±60° mirror-image forms), 298.15 K.
+        var g = new[] { Energy.FromKJPerMol(0), Energy.FromKJPerMol(ConformerReference.ButaneGaucheAboveAntiKJPerMol) };
+        var p = Boltzmann.Populations(g, [1, 2], 298.15);
+        Close.Absolute(ConformerReference.ButaneAntiPopulation298, p[0], ConformerReference.ButaneTolerance, "anti population", "hand computation, ConformerReference");
+        Close.Absolute(ConformerReference.ButaneGauchePopulation298, p[1], ConformerReference.ButaneTolerance, "gauche population (both forms)", "hand computation, ConformerReference");
+        Close.Absolute(ConformerReference.ButaneAntiRoughly, p[0], ConformerReference.ButaneRoughTolerance, "anti population", "textbook 70 : 30, from memory");
+        var ens = Boltzmann.EnsembleFreeEnergy(g, [1, 2], 298.15);
+        Close.Absolute(ConformerReference.ButaneEnsembleBelowAntiKJPerMol, ens.KJPerMol, ConformerReference.ButaneTolerance,
+            "G_ens − G_anti", "hand computation −RT ln(1 + 2x), ConformerReference");
+
+        // Listing the two gauche forms separately is the same ensemble.
+        var listed = new[] { g[0], g[1], g[1] };
+        Close.Absolute(ens.KJPerMol, Boltzmann.EnsembleFreeEnergy(listed, 298.15).KJPerMol, 1e-12, "gauche listed twice against degeneracy 2", "definition");
+        Close.Absolute(p[1] / 2, Boltzmann.Populations(listed, 298.15)[2], 1e-12, "one gauche form", "definition");
+    }
+
+    [Fact]
+    public void Degeneracies_OfTheWrongCountOrBelowOne_AreRejected()
+    {
+        var g = new[] { Energy.Zero, Energy.FromKcalPerMol(1) };
+        Assert.Contains("1 degeneracies for 2 energies", Assert.Throws<ArgumentException>(() => Boltzmann.Populations(g, [1], 298.15)).Message);
+        Assert.Throws<ArgumentException>(() => Boltzmann.EnsembleFreeEnergy(g, [1, 0], 298.15));
+    }
+
+    [Fact]
     public void EmptyList_IsRejected() => Assert.Throws<ArgumentException>(() => Boltzmann.Populations([], 298.15));
 }

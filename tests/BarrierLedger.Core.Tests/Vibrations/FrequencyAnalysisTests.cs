@@ -30,8 +30,8 @@ public class FrequencyAnalysisTests
         var mh = m.Elements[0].MostAbundantIsotopeMassDa;
         var mcl = m.Elements[1].MostAbundantIsotopeMassDa;
         var stretchFactor = (mh + mcl) * (mh + mcl) / (mh * mh + mcl * mcl);
-        Close.Relative(mh * mcl / (mh + mcl) * stretchFactor, mode.ReducedMassAmu, 1e-9, "reduced mass of HCl", "two-body reduced mass, projected on x̂");
-        Close.Relative(5.163 * stretchFactor, mode.ForceConstantMdynPerAngstrom, 1e-9, "force constant of HCl", "input 516.3 N/m, projected on x̂");
+        Close.Relative(mh * mcl / (mh + mcl) * stretchFactor, mode.ReducedMassDalton, 1e-9, "reduced mass of HCl", "two-body reduced mass, projected on x̂");
+        Close.Relative(516.3 * stretchFactor, mode.ForceConstantNewtonPerMetre, 1e-9, "force constant of HCl", "input 516.3 N/m, projected on x̂");
         // The displacement is along the bond, unit length over all components.
         var norm = Math.Sqrt(mode.DisplacementCartesian.Sum(v => v.LengthSquared));
         Close.Absolute(1.0, norm, 1e-12, "displacement norm", "normalisation convention of NormalMode");
@@ -130,7 +130,7 @@ public class FrequencyAnalysisTests
         for (var k = 0; k < native.Modes.Length; k++)
         {
             Close.Absolute(managed.Modes[k].FrequencyCm1, native.Modes[k].FrequencyCm1, 1e-6, $"mode {k + 1}", "MathNet managed Evd");
-            Close.Relative(managed.Modes[k].ReducedMassAmu, native.Modes[k].ReducedMassAmu, 1e-6, $"reduced mass {k + 1}", "MathNet managed Evd");
+            Close.Relative(managed.Modes[k].ReducedMassDalton, native.Modes[k].ReducedMassDalton, 1e-6, $"reduced mass {k + 1}", "MathNet managed Evd");
         }
     }
 
@@ -144,7 +144,7 @@ public class FrequencyAnalysisTests
         var a = FrequencyAnalysis.FromHessian(m, h);
         var imaginary = Assert.Single(a.ImaginaryModes);
         Assert.Same(a.Modes[0], imaginary);
-        Assert.True(imaginary.ForceConstantMdynPerAngstrom < 0);
+        Assert.True(imaginary.ForceConstantNewtonPerMetre < 0);
         Assert.DoesNotContain(a.RealFrequenciesCm1, v => v < 0);
     }
 

@@ -463,6 +463,72 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.ToTable("FrequencyChecks", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<DateTimeOffset>("CreatedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("CreatedByUserId")
+                        .IsRequired()
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.Property<string>("Mapping")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("character varying(20)");
+
+                    b.Property<string>("Name")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .UseCollation("C");
+
+                    b.Property<string>("ReactantSubstitutions")
+                        .IsRequired()
+                        .HasMaxLength(8000)
+                        .HasColumnType("character varying(8000)")
+                        .UseCollation("C");
+
+                    b.Property<int>("ReactionId")
+                        .HasColumnType("integer");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("boolean");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.Property<int>("SaddlePosition")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("SaddleSubstitutions")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("character varying(4000)")
+                        .UseCollation("C");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("bigint");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReactionId");
+
+                    b.ToTable("IsotopologueSets", (string)null);
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>
                 {
                     b.Property<int>("Id")
@@ -1239,6 +1305,17 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .IsRequired();
 
                     b.Navigation("Calculation");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Reaction", "Reaction")
+                        .WithMany()
+                        .HasForeignKey("ReactionId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Reaction");
                 });
 
             modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>

@@ -412,6 +412,65 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.ToTable("FrequencyChecks", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("CreatedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("CreatedByUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Mapping")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Name")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ReactantSubstitutions")
+                        .IsRequired()
+                        .HasMaxLength(8000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("ReactionId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("SaddlePosition")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("SaddleSubstitutions")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReactionId");
+
+                    b.ToTable("IsotopologueSets", (string)null);
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>
                 {
                     b.Property<int>("Id")
@@ -1104,6 +1163,17 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                         .IsRequired();
 
                     b.Navigation("Calculation");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Reaction", "Reaction")
+                        .WithMany()
+                        .HasForeignKey("ReactionId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("Reaction");
                 });
 
             modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>

@@ -7,20 +7,37 @@ using BarrierLedger.Core.Vibrations;
 namespace BarrierLedger.Cli.Commands;
 
 /// <summary>
-/// <c>barrierledger freq FILE</c>: vibrational analysis of one calculation (from its Hessian, modes or frequencies).
-/// The saddle-point verdict is printed by <see cref="WriteSaddleCheck"/> when the structure has an imaginary mode or is declared a saddle point.
+/// <c>barrierledger vibrations FILE</c>: vibrational analysis of one calculation (from its Hessian, modes or frequencies), with
+/// reduced masses in Da and force constants in N/m (SI). The saddle-point verdict is printed by <see cref="WriteSaddleCheck"/> when the
+/// structure has an imaginary mode or is declared a saddle point. The verb was called <c>freq</c> until this release; that name still
+/// works, hidden from the help, with a line on stderr saying it goes away in the next release.
 /// </summary>
-internal static class FreqCommand
+internal static class VibrationsCommand
 {
-    public static Command Create(CliContext ctx)
+    public const string Name = "vibrations";
+    public const string DeprecatedName = "freq";
+
+    public static Command Create(CliContext ctx) => Create(ctx, Name);
+
+    /// <summary>The old verb: same arguments and output, plus one deprecation line on stderr.</summary>
+    public static Command CreateDeprecated(CliContext ctx)
+    {
+        var command = Create(ctx, DeprecatedName);
+        command.Hidden = true;
+        return command;
+    }
+
+    private static Command Create(CliContext ctx, string name)
     {
         var input = new CalculationArguments();
         var json = CommonOptions.Json();
-        var command = new Command("freq", "Vibrational analysis of a calculation: frequencies (imaginary as negative), reduced masses, force constants.");
+        var command = new Command(name, "Vibrational analysis of a calculation: wavenumbers (imaginary as negative), reduced masses (Da), force constants (N/m).");
         input.AddTo(command);
         command.Options.Add(json);
         command.SetAction(pr =>
         {
+            if (name == DeprecatedName)
+                ctx.Err.WriteLine($"barrierledger: '{DeprecatedName}' is deprecated and will be removed in the next release; use '{Name}' (same arguments; the JSON keys are now reduced_mass_da and force_constant_n_per_m)");
             var data = input.Load(pr, ctx);
             if (data is null) return ExitCodes.Unreadable;
             if (!data.HasVibrations)
@@ -76,8 +93,8 @@ internal static class FreqCommand
         modes = a.Modes.Select(m => new
         {
             frequency_cm1 = m.FrequencyCm1,
-            reduced_mass_amu = Finite(m.ReducedMassAmu),
-            force_constant_mdyn_per_angstrom = Finite(m.ForceConstantMdynPerAngstrom),
+            reduced_mass_da = Finite(m.ReducedMassDalton),
+            force_constant_n_per_m = Finite(m.ForceConstantNewtonPerMetre),
         }),
     };
 
@@ -90,17 +107,22 @@ internal static class FreqCommand
         if (data.LevelOfTheory is { } l) o.WriteLine($"Level of theory: {l}");
         if (data.EnergyHartree is { } e) o.WriteLine(string.Create(CultureInfo.InvariantCulture, $"Electronic energy: {e:F8} Eh"));
         o.WriteLine($"Shape: {a.Shape}; {a.RemovedModeCount} translations/rotations removed; eigensolver: {a.EigenSolver}");
+        o.WriteLine($"Modes: {a.Modes.Length}, of them imaginary: {a.ImaginaryModes.Length}");
         o.WriteLine();
-        o.WriteLine("  mode   wavenumber/cm-1   reduced mass/amu   force const./(mdyn/Å)");
-        for (var i = 0; i < a.Modes.Length; i++)
+        // One row per mode, lowest wavenumber first; an imaginary mode shows its magnitude with "i" and a negative force constant.
+        string[] header = ["#", "ν̃ (cm⁻¹)", "μ (Da)", "k (N/m)"];
+        var rows = a.Modes.Select((mode, i) => new[]
         {
-            var mode = a.Modes[i];
-            var freq = mode.IsImaginary ? $"{-mode.FrequencyCm1:F2}i" : $"{mode.FrequencyCm1:F2} ";
-            o.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"  {i + 1,4}   {freq,15}   {Num(mode.ReducedMassAmu, "F4"),16}   {Num(mode.ForceConstantMdynPerAngstrom, "F4"),21}"));
-        }
-        o.WriteLine();
-        o.WriteLine($"Imaginary modes: {a.ImaginaryModes.Length}");
+            (i + 1).ToString(CultureInfo.InvariantCulture),
+            mode.IsImaginary ? (-mode.FrequencyCm1).ToString("F1", CultureInfo.InvariantCulture) + "i" : mode.FrequencyCm1.ToString("F1", CultureInfo.InvariantCulture),
+            Num(mode.ReducedMassDalton, "F3"),
+            Num(mode.ForceConstantNewtonPerMetre, "F1"),
+        }).ToList();
+        var widths = Enumerable.Range(0, header.Length).Select(c => rows.Select(r => r[c].Length).Append(header[c].Length).Max()).ToArray();
+        string Line(IReadOnlyList<string> cells) => string.Join(" | ", cells.Select((t, c) => t.PadLeft(widths[c]))).TrimEnd();
+        o.WriteLine(Line(header));
+        o.WriteLine(string.Join("-+-", widths.Select(w => new string('-', w))));
+        foreach (var r in rows) o.WriteLine(Line(r));
     }
 
     private static string Num(double v, string format) => double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "-";
