@@ -44,6 +44,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<WorkspaceQueryService>();
         services.AddSingleton<IsotopeEffects.IsotopeEffectService>();
         services.AddSingleton<RecordService>();
+        services.AddSingleton<Reactions.ReactionBuilderService>();
         services.AddSingleton<BackupService>();
         return services;
     }

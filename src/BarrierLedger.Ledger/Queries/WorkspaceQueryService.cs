@@ -92,6 +92,15 @@ public sealed class WorkspaceQueryService(IDbContextFactory<LedgerDbContext> fac
         return new SpeciesDetail(head.StudyId, head.StudyName, species, structure, structure is null ? null : pick!.Id, scans, reactions);
     }
 
+    /// <summary>A calculation's geometry with its species' charge and multiplicity (atoms in file order), or null when it has none.</summary>
+    public async Task<Molecule?> GetGeometryAsync(int calculationId, CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var c = await db.Calculations.AsNoTracking().Where(x => x.Id == calculationId)
+            .Select(x => new { x.AtomicNumbers, x.PositionsAngstrom, x.Species!.Charge, x.Species.Multiplicity }).FirstOrDefaultAsync(ct);
+        return c is null ? null : Blobs.ToMolecule(c.AtomicNumbers, c.PositionsAngstrom, c.Charge, c.Multiplicity);
+    }
+
     /// <summary>A stored original file, or null when there is none with this id.</summary>
     public async Task<StoredFileContent?> GetStoredFileAsync(int fileId, CancellationToken ct = default)
     {
