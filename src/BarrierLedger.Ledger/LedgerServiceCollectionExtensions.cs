@@ -41,8 +41,10 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<ReviewService>();
         services.AddSingleton<LedgerQueryService>();
         services.AddSingleton<ReactionQueryService>();
+        services.AddSingleton<WorkspaceQueryService>();
         services.AddSingleton<IsotopeEffects.IsotopeEffectService>();
         services.AddSingleton<RecordService>();
+        services.AddSingleton<Reactions.ReactionBuilderService>();
         services.AddSingleton<BackupService>();
         return services;
     }

@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using BarrierLedger.Core.Kinetics;
 using BarrierLedger.Core.Units;
 using BenchmarkDotNet.Attributes;
@@ -46,6 +47,26 @@ public class KineticsBenchmarks
 
     [GlobalCleanup]
     public void Cleanup() => Console.WriteLine($"// load average at the end: {LoadAverage()}");
+
+    // On a shared machine the wall time mostly measures the other users; the process's CPU time per iteration (all threads; one
+    // invocation per iteration under RunStrategy.Monitoring) is printed beside it. For the two-thread Monte Carlo, CPU time / 2 is
+    // the wall time two free cores would need.
+    private TimeSpan _cpuBefore;
+    private Stopwatch _wall = new();
+
+    [IterationSetup]
+    public void BeforeIteration()
+    {
+        _cpuBefore = Process.GetCurrentProcess().TotalProcessorTime;
+        _wall = Stopwatch.StartNew();
+    }
+
+    [IterationCleanup]
+    public void AfterIteration()
+    {
+        var cpu = Process.GetCurrentProcess().TotalProcessorTime - _cpuBefore;
+        Console.WriteLine($"// iteration: CPU {cpu.TotalMilliseconds:0.0} ms, wall {_wall.Elapsed.TotalMilliseconds:0.0} ms, load average {LoadAverage()}");
+    }
 
     [Benchmark(Description = "Simulate 50 species / 100 steps, 1e-6..1e4 s (rtol 1e-6)")]
     public SimulationResult Simulate() => Microkinetics.Simulate(_network, _conditions, _question);

@@ -77,9 +77,12 @@ internal sealed class CompiledNetwork
     public readonly int SpeciesCount;
     public readonly int StepCount;
     public readonly Dictionary<string, int> SpeciesIndex;
-    public readonly int[][] ReactantIndex, ReactantPower, ProductIndex, ProductPower;
-    public readonly int[][] NetIndex;
-    public readonly double[][] NetCoefficient;
+    // Each side of a step as three factor slots (a coefficient of 2 fills two slots; unused slots hold SpeciesCount, the index of
+    // a constant 1 appended to the concentrations): the rate of a side is k · Y[f₀] · Y[f₁] · Y[f₂].
+    public readonly int[] ForwardFactors, ReverseFactors;
+    // Species each step changes, with their net coefficients, for step s at NetStart[s] .. NetStart[s + 1] − 1.
+    public readonly int[] NetStart, NetSpecies;
+    public readonly double[] NetCoefficient;
     // Per step: -1 for fixed rates, else level indices.
     private readonly int[] _from, _saddle, _to;
     private readonly double[] _fixedForward, _fixedReverse;
@@ -107,9 +110,11 @@ internal sealed class CompiledNetwork
         ReferenceTemperature = network.ReferenceTemperatureKelvin;
         _standard = network.StandardStateOrDefault;
 
-        ReactantIndex = new int[StepCount][]; ReactantPower = new int[StepCount][];
-        ProductIndex = new int[StepCount][]; ProductPower = new int[StepCount][];
-        NetIndex = new int[StepCount][]; NetCoefficient = new double[StepCount][];
+        ForwardFactors = new int[3 * StepCount];
+        ReverseFactors = new int[3 * StepCount];
+        NetStart = new int[StepCount + 1];
+        var netSpecies = new List<int>();
+        var netCoefficient = new List<double>();
         _from = new int[StepCount]; _saddle = new int[StepCount]; _to = new int[StepCount];
         _fixedForward = new double[StepCount]; _fixedReverse = new double[StepCount];
         _tunnelling = new TunnellingModel?[StepCount];
@@ -118,14 +123,18 @@ internal sealed class CompiledNetwork
         for (var s = 0; s < StepCount; s++)
         {
             var step = network.Steps[s];
-            (ReactantIndex[s], ReactantPower[s]) = Collapse(step.Reactants);
-            (ProductIndex[s], ProductPower[s]) = Collapse(step.Products);
-            var net = new Dictionary<int, double>();
-            for (var i = 0; i < ReactantIndex[s].Length; i++) net[ReactantIndex[s][i]] = net.GetValueOrDefault(ReactantIndex[s][i]) - ReactantPower[s][i];
-            for (var i = 0; i < ProductIndex[s].Length; i++) net[ProductIndex[s][i]] = net.GetValueOrDefault(ProductIndex[s][i]) + ProductPower[s][i];
-            var nonzero = net.Where(kv => kv.Value != 0).OrderBy(kv => kv.Key).ToArray();
-            NetIndex[s] = [.. nonzero.Select(kv => kv.Key)];
-            NetCoefficient[s] = [.. nonzero.Select(kv => kv.Value)];
+            Factors(step.Reactants, ForwardFactors.AsSpan(3 * s, 3));
+            Factors(step.Products, ReverseFactors.AsSpan(3 * s, 3));
+            var net = new SortedDictionary<int, double>();
+            foreach (var t in step.Reactants) net[SpeciesIndex[t.Species]] = net.GetValueOrDefault(SpeciesIndex[t.Species]) - t.Coefficient;
+            foreach (var t in step.Products) net[SpeciesIndex[t.Species]] = net.GetValueOrDefault(SpeciesIndex[t.Species]) + t.Coefficient;
+            foreach (var (i, nu) in net)
+            {
+                if (nu == 0) continue;
+                netSpecies.Add(i);
+                netCoefficient.Add(nu);
+            }
+            NetStart[s + 1] = netSpecies.Count;
             switch (step.Rate)
             {
                 case FixedRates f:
@@ -141,20 +150,73 @@ internal sealed class CompiledNetwork
                     break;
             }
         }
+        NetSpecies = [.. netSpecies];
+        NetCoefficient = [.. netCoefficient];
     }
 
     public bool IsFixed(int step) => _from[step] < 0;
+
+    private SparsePattern? _pattern;
+    private int[]? _forwardSlots, _reverseSlots;
+
+    /// <summary>
+    /// The Jacobian's pattern (entry (i, j) when species j is a reactant or product of a step that changes species i), its
+    /// elimination order, and where each partial derivative goes: for step s, factor slot m of a side and the step's changed
+    /// species p, slot[(3s + m) · 6 + p − NetStart[s]] (a step changes at most six species) (−1 for a constant factor). Computed once per network and shared by every
+    /// simulation of it (the Monte Carlo's samples).
+    /// </summary>
+    public (SparsePattern Pattern, int[] ForwardSlots, int[] ReverseSlots) Sparsity
+    {
+        get
+        {
+            if (_pattern is null)
+            {
+                lock (NetStart)
+                {
+                    if (_pattern is null)
+                    {
+                        var index = new Dictionary<(int, int), int>();
+                        var entries = new List<(int, int)>();
+                        int[] Slots(int[] factors)
+                        {
+                            var slots = new int[18 * StepCount];
+                            Array.Fill(slots, -1);
+                            for (var s = 0; s < StepCount; s++)
+                                for (var m = 0; m < 3; m++)
+                                {
+                                    var column = factors[3 * s + m];
+                                    if (column == SpeciesCount) continue;
+                                    for (var p = NetStart[s]; p < NetStart[s + 1]; p++)
+                                    {
+                                        var key = (NetSpecies[p], column);
+                                        if (!index.TryGetValue(key, out var slot)) { slot = entries.Count; index[key] = slot; entries.Add(key); }
+                                        slots[(3 * s + m) * 6 + p - NetStart[s]] = slot;
+                                    }
+                                }
+                            return slots;
+                        }
+                        _forwardSlots = Slots(ForwardFactors);
+                        _reverseSlots = Slots(ReverseFactors);
+                        _pattern = SparsePattern.Analyze(SpeciesCount, entries);
+                    }
+                }
+            }
+            return (_pattern, _forwardSlots!, _reverseSlots!);
+        }
+    }
 
     public bool HasEnthalpies(int step) =>
         IsFixed(step) || (!double.IsNaN(LevelEnthalpyJoule[_from[step]]) && !double.IsNaN(LevelEnthalpyJoule[_saddle[step]]) && !double.IsNaN(LevelEnthalpyJoule[_to[step]]));
 
     public (int From, int Saddle, int To) LevelsOf(int step) => (_from[step], _saddle[step], _to[step]);
 
-    private (int[] Index, int[] Power) Collapse(IReadOnlyList<StepTerm> terms)
+    // Validation keeps each side at three molecules or fewer.
+    private void Factors(IReadOnlyList<StepTerm> terms, Span<int> slots)
     {
-        var d = new SortedDictionary<int, int>();
-        foreach (var t in terms) d[SpeciesIndex[t.Species]] = d.GetValueOrDefault(SpeciesIndex[t.Species]) + t.Coefficient;
-        return ([.. d.Keys], [.. d.Values]);
+        slots.Fill(SpeciesCount);
+        var k = 0;
+        foreach (var t in terms.OrderBy(t => SpeciesIndex[t.Species]))
+            for (var c = 0; c < t.Coefficient; c++) slots[k++] = SpeciesIndex[t.Species];
     }
 
     /// <summary>G of a level at T in J/mol with a shift: G(T) = H − T (H − G_ref)/T_ref, or G_ref when H is unknown.</summary>
@@ -240,14 +302,18 @@ internal sealed class CompiledNetwork
 /// <summary>
 /// The mass-action ODE system of a compiled network at a temperature program: d[X]/dt = Σ_s ν_Xs (k_f,s Π[R]^ν − k_r,s Π[P]^ν),
 /// with its analytic Jacobian and, under a temperature ramp, ∂f/∂t = Σ_s ν_Xs (dk_f/dT Π[R]^ν − dk_r/dT Π[P]^ν) dT/dt
-/// (dk/dT by central difference in T).
+/// (dk/dT by central difference in T). The Jacobian is also given by its nonzero entries alone, in the network's
+/// <see cref="CompiledNetwork.Sparsity"/> pattern.
 /// </summary>
-internal sealed class MassActionSystem : IStiffSystem
+internal sealed class MassActionSystem : ISparseStiffSystem
 {
     private readonly CompiledNetwork _net;
     private readonly TemperatureProgram _program;
     private readonly double[] _shift;
     private readonly double[] _kf, _kr, _kfPlus, _krPlus, _kfMinus, _krMinus;
+    // Concentrations with a constant 1 appended (the unused factor slots point at it), and dense-Jacobian scratch.
+    private readonly double[] _padded;
+    private double[]? _values;
     private double _cachedTemperature = double.NaN;
 
     public MassActionSystem(CompiledNetwork network, TemperatureProgram program, double[]? levelShiftJoule = null)
@@ -258,6 +324,7 @@ internal sealed class MassActionSystem : IStiffSystem
         var n = network.StepCount;
         _kf = new double[n]; _kr = new double[n];
         _kfPlus = new double[n]; _krPlus = new double[n]; _kfMinus = new double[n]; _krMinus = new double[n];
+        _padded = new double[network.SpeciesCount + 1];
     }
 
     public int Dimension => _net.SpeciesCount;
@@ -277,25 +344,75 @@ internal sealed class MassActionSystem : IStiffSystem
     public void Derivative(double t, ReadOnlySpan<double> y, Span<double> dydt)
     {
         var (kf, kr) = ConstantsAt(t);
+        Rates(kf, kr, y, dydt);
+    }
+
+    // dydt = Σ_s ν_s (k_f,s Π[R] − k_r,s Π[P]).
+    private void Rates(double[] kf, double[] kr, ReadOnlySpan<double> y, Span<double> dydt)
+    {
+        var c = Pad(y);
+        var ff = _net.ForwardFactors;
+        var rf = _net.ReverseFactors;
+        var start = _net.NetStart;
+        var species = _net.NetSpecies;
+        var nu = _net.NetCoefficient;
         dydt.Clear();
         for (var s = 0; s < _net.StepCount; s++)
         {
-            var rate = kf[s] * Product(_net.ReactantIndex[s], _net.ReactantPower[s], y) - kr[s] * Product(_net.ProductIndex[s], _net.ProductPower[s], y);
-            var idx = _net.NetIndex[s];
-            var nu = _net.NetCoefficient[s];
-            for (var i = 0; i < idx.Length; i++) dydt[idx[i]] += nu[i] * rate;
+            var f = 3 * s;
+            var rate = kf[s] * (c[ff[f]] * c[ff[f + 1]] * c[ff[f + 2]]) - kr[s] * (c[rf[f]] * c[rf[f + 1]] * c[rf[f + 2]]);
+            for (var p = start[s]; p < start[s + 1]; p++) dydt[species[p]] += nu[p] * rate;
         }
+    }
+
+    private double[] Pad(ReadOnlySpan<double> y)
+    {
+        y.CopyTo(_padded);
+        _padded[^1] = 1.0;
+        return _padded;
     }
 
     public void Jacobian(double t, ReadOnlySpan<double> y, double[] jacobian)
     {
-        var (kf, kr) = ConstantsAt(t);
+        var entries = JacobianPattern.Entries;
+        var values = _values ??= new double[entries.Count];
+        JacobianValues(t, y, values);
         var n = _net.SpeciesCount;
         Array.Clear(jacobian);
+        for (var e = 0; e < entries.Count; e++) jacobian[entries[e].Row + entries[e].Column * n] += values[e];
+    }
+
+    public SparsePattern JacobianPattern => _net.Sparsity.Pattern;
+
+    // ∂/∂y_j of k Y[f₀] Y[f₁] Y[f₂] = k Σ over the slots m holding j of the product of the other two.
+    public void JacobianValues(double t, ReadOnlySpan<double> y, Span<double> values)
+    {
+        var (kf, kr) = ConstantsAt(t);
+        var (_, forwardSlots, reverseSlots) = _net.Sparsity;
+        var c = Pad(y);
+        values.Clear();
         for (var s = 0; s < _net.StepCount; s++)
         {
-            AddPartials(s, kf[s], _net.ReactantIndex[s], _net.ReactantPower[s], y, jacobian, n, 1.0);
-            AddPartials(s, kr[s], _net.ProductIndex[s], _net.ProductPower[s], y, jacobian, n, -1.0);
+            AddPartials(s, kf[s], _net.ForwardFactors, forwardSlots, c, values);
+            AddPartials(s, -kr[s], _net.ReverseFactors, reverseSlots, c, values);
+        }
+    }
+
+    private void AddPartials(int s, double k, int[] factors, int[] slots, double[] c, Span<double> values)
+    {
+        if (k == 0.0) return;
+        var f = 3 * s;
+        var (a, b, d) = (c[factors[f]], c[factors[f + 1]], c[factors[f + 2]]);
+        var start = _net.NetStart[s];
+        var count = _net.NetStart[s + 1] - start;
+        var nu = _net.NetCoefficient;
+        for (var m = 0; m < 3; m++)
+        {
+            if (factors[f + m] == _net.SpeciesCount) continue;
+            var partial = k * (m == 0 ? b * d : m == 1 ? a * d : a * b);
+            if (partial == 0.0) continue;
+            var slot = (f + m) * 6;
+            for (var p = 0; p < count; p++) values[slots[slot + p]] += nu[start + p] * partial;
         }
     }
 
@@ -307,42 +424,13 @@ internal sealed class MassActionSystem : IStiffSystem
         var dT = 1e-3 * Math.Max(1.0, temperature * 1e-3);
         _net.RateConstants(temperature + dT, _shift, _kfPlus, _krPlus);
         _net.RateConstants(temperature - dT, _shift, _kfMinus, _krMinus);
-        dfdt.Clear();
+        // ∂f/∂t = Σ_s ν_s (dk_f/dT Π[R] − dk_r/dT Π[P]) dT/dt: the rates with k replaced by dk/dt.
         for (var s = 0; s < _net.StepCount; s++)
         {
-            var dkf = (_kfPlus[s] - _kfMinus[s]) / (2 * dT) * slope;
-            var dkr = (_krPlus[s] - _krMinus[s]) / (2 * dT) * slope;
-            var rate = dkf * Product(_net.ReactantIndex[s], _net.ReactantPower[s], y) - dkr * Product(_net.ProductIndex[s], _net.ProductPower[s], y);
-            var idx = _net.NetIndex[s];
-            var nu = _net.NetCoefficient[s];
-            for (var i = 0; i < idx.Length; i++) dfdt[idx[i]] += nu[i] * rate;
+            _kfPlus[s] = (_kfPlus[s] - _kfMinus[s]) / (2 * dT) * slope;
+            _krPlus[s] = (_krPlus[s] - _krMinus[s]) / (2 * dT) * slope;
         }
+        Rates(_kfPlus, _krPlus, y, dfdt);
         return true;
     }
-
-    private void AddPartials(int s, double k, int[] index, int[] power, ReadOnlySpan<double> y, double[] jacobian, int n, double sign)
-    {
-        if (k == 0.0) return;
-        var netIdx = _net.NetIndex[s];
-        var nu = _net.NetCoefficient[s];
-        for (var a = 0; a < index.Length; a++)
-        {
-            // ∂/∂y_j of k Π y_i^{p_i} = k p_j y_j^{p_j − 1} Π_{i≠j} y_i^{p_i}
-            var d = sign * k * power[a] * Pow(y[index[a]], power[a] - 1);
-            for (var b = 0; b < index.Length; b++)
-                if (b != a) d *= Pow(y[index[b]], power[b]);
-            if (d == 0.0) continue;
-            var column = index[a] * n;
-            for (var i = 0; i < netIdx.Length; i++) jacobian[netIdx[i] + column] += nu[i] * d;
-        }
-    }
-
-    private static double Product(int[] index, int[] power, ReadOnlySpan<double> y)
-    {
-        var p = 1.0;
-        for (var i = 0; i < index.Length; i++) p *= Pow(y[index[i]], power[i]);
-        return p;
-    }
-
-    private static double Pow(double x, int p) => p switch { 0 => 1.0, 1 => x, 2 => x * x, 3 => x * x * x, _ => Math.Pow(x, p) };
 }

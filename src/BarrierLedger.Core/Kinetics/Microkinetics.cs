@@ -92,7 +92,7 @@ public static class Microkinetics
         var program = conditions.Temperature;
         var system = new MassActionSystem(compiled, program, shiftJoule);
         var atol = options.AbsoluteToleranceFraction * y0.Max();
-        var integrator = new Rodas4(system, new StiffOptions(options.RelativeTolerance, atol, MaxSteps: options.MaxSteps));
+        var integrator = new Rodas4(system, new StiffOptions(options.RelativeTolerance, atol, MaxSteps: options.MaxSteps, NonNegative: true));
         var reportTimes = (conditions.ReportTimesSeconds ?? []).Distinct().Order().ToArray();
         var stops = reportTimes.ToList();
         if (program.HoldTimeSeconds is { } hold && hold > 0 && hold < conditions.EndTimeSeconds) stops.Add(hold);

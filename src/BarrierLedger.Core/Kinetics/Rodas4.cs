@@ -22,6 +22,20 @@ public interface IStiffSystem
 }
 
 /// <summary>
+/// A system whose Jacobian keeps one sparsity pattern: <see cref="Rodas4"/> then factors (1/(hγ) I − J) by sparse elimination
+/// in the pattern's precomputed order (<see cref="SparsePattern"/>), and by dense LU with partial pivoting only when that
+/// elimination fails its pivot test.
+/// </summary>
+public interface ISparseStiffSystem : IStiffSystem
+{
+    /// <summary>The entries of ∂f/∂y that can be nonzero, with their elimination order (computed once per system shape).</summary>
+    SparsePattern JacobianPattern { get; }
+
+    /// <summary>Writes ∂f/∂y at (t, y) for the entries of <see cref="JacobianPattern"/>, in the order of its <see cref="SparsePattern.Entries"/>.</summary>
+    void JacobianValues(double t, ReadOnlySpan<double> y, Span<double> values);
+}
+
+/// <summary>
 /// Error control of <see cref="Rodas4"/>. A step is accepted when the root-mean-square of eᵢ / (atol + rtol · max(|yᵢ|, |ŷᵢ|))
 /// is at most 1 (Hairer and Wanner II, §IV.8).
 /// </summary>
@@ -30,8 +44,16 @@ public interface IStiffSystem
 /// <param name="InitialStep">First step size; null to choose it (Hairer, Nørsett and Wanner I, §II.4).</param>
 /// <param name="MaxStep">Largest step; null for no limit.</param>
 /// <param name="MaxSteps">Largest number of attempted steps before giving up.</param>
+/// <param name="NonNegative">
+/// The solution cannot be negative (concentrations): a component that comes out below zero counts as an error of at least its
+/// size, so a step that drives a concentration negative beyond the absolute tolerance is rejected and retried shorter
+/// (the error-estimate part of L. F. Shampine, S. Thompson, J. A. Kierzenka and G. D. Byrne, Appl. Math. Comput. 170 (2005) 556,
+/// "Non-negative solutions of ODEs", from memory). Without it, a bimolecular step between two spuriously negative
+/// concentrations can feed itself and blow up.
+/// </param>
 public sealed record StiffOptions(
-    double RelativeTolerance = 1e-6, double AbsoluteTolerance = 1e-12, double? InitialStep = null, double? MaxStep = null, int MaxSteps = 200_000)
+    double RelativeTolerance = 1e-6, double AbsoluteTolerance = 1e-12, double? InitialStep = null, double? MaxStep = null, int MaxSteps = 200_000,
+    bool NonNegative = false)
 {
     /// <summary>Throws <see cref="ArgumentException"/> for tolerances that are not positive and finite.</summary>
     public void Validate()
@@ -48,8 +70,12 @@ public sealed record StiffOptions(
     }
 }
 
-/// <summary>Work done by an integration: accepted and rejected steps, f and Jacobian evaluations, LU decompositions.</summary>
-public sealed record StiffStatistics(int AcceptedSteps, int RejectedSteps, int FunctionEvaluations, int JacobianEvaluations, int Decompositions);
+/// <summary>
+/// Work done by an integration: accepted and rejected steps, f and Jacobian evaluations, LU decompositions, and how many of those
+/// were dense with partial pivoting because the sparse elimination of an <see cref="ISparseStiffSystem"/> failed its pivot test
+/// (every decomposition is dense for a system without a pattern).
+/// </summary>
+public sealed record StiffStatistics(int AcceptedSteps, int RejectedSteps, int FunctionEvaluations, int JacobianEvaluations, int Decompositions, int DenseDecompositions = 0);
 
 /// <summary>How an integration ended: reached the end, or stopped at <see cref="TimeReached"/> for <see cref="FailureReason"/>.</summary>
 public sealed record StiffOutcome(bool Completed, double TimeReached, string? FailureReason, StiffStatistics Statistics);
@@ -65,7 +91,10 @@ public delegate void AcceptedStepHandler(double tStart, double[] yStart, double 
 /// (1/(hγ) I − J) uᵢ = f(t + αᵢh, y + Σⱼ aᵢⱼuⱼ) + Σⱼ (cᵢⱼ/h) uⱼ + h dᵢ ∂f/∂t, i = 1…6; y₁ = y + Σⱼ a₅ⱼuⱼ + u₅ + u₆ and the error
 /// estimate is u₆ (the embedded solution is y₁ − u₆). Step sizes follow h_new = h · min(6, max(0.2, 0.9 · err^{−1/4})) with
 /// Gustafsson's predictive controller after accepted steps (K. Gustafsson, ACM Trans. Math. Softw. 17 (1991) 533, as in RODAS).
-/// The LU factorisation and solves are MathNet's linear-algebra provider on column-major arrays.
+/// f, ∂f/∂y and ∂f/∂t are evaluated once per point (t, y): a rejected step, or a shorter trial step from the same point, re-uses
+/// them and only factors the matrix again for the new h (the method needs the exact Jacobian at the step's start, not a new one
+/// per attempt). For an <see cref="ISparseStiffSystem"/> the matrix is factored by <see cref="SparsePattern"/>'s sparse
+/// elimination; otherwise, and whenever that elimination fails its pivot test, by MathNet's dense LU with partial pivoting.
 /// </summary>
 public sealed class Rodas4
 {
@@ -110,10 +139,19 @@ public sealed class Rodas4
     private readonly IStiffSystem _system;
     private readonly StiffOptions _options;
     private readonly int _n;
-    private readonly double[] _jacobian, _matrix, _f0, _ft, _f, _yStage, _k1, _k2, _k3, _k4, _k5, _k6;
-    private readonly int[] _pivots;
+    private readonly double[] _f0, _ft, _f, _yStage, _k1, _k2, _k3, _k4, _k5, _k6;
+    private double[]? _jacobian, _matrix;
+    private int[]? _pivots;
+    private readonly ISparseStiffSystem? _sparseSystem;
+    private readonly SparseLU? _sparse;
+    private readonly double[] _jacobianValues = [];
+    private bool _useSparse;
     private readonly ILinearAlgebraProvider _provider = LinearAlgebraControl.Provider;
-    private int _accepted, _rejected, _evaluations, _jacobians, _decompositions;
+    private int _accepted, _rejected, _evaluations, _jacobians, _decompositions, _denseDecompositions;
+    // The point (t, y) whose f, ∂f/∂y and ∂f/∂t are held in _f0, the Jacobian and _ft.
+    private readonly double[] _pointY;
+    private double _pointT = double.NaN;
+    private bool _pointNonAutonomous;
 
     public Rodas4(IStiffSystem system, StiffOptions? options = null)
     {
@@ -123,15 +161,21 @@ public sealed class Rodas4
         _options.Validate();
         _n = system.Dimension;
         if (_n < 1) throw new ArgumentException($"The system must have at least one unknown, got {_n}.", nameof(system));
-        _jacobian = new double[_n * _n];
-        _matrix = new double[_n * _n];
-        _pivots = new int[_n];
+        if (system is ISparseStiffSystem sparse)
+        {
+            if (sparse.JacobianPattern.Dimension != _n)
+                throw new ArgumentException($"The Jacobian pattern is {sparse.JacobianPattern.Dimension}×{sparse.JacobianPattern.Dimension} for a system of {_n}.", nameof(system));
+            _sparseSystem = sparse;
+            _sparse = new SparseLU(sparse.JacobianPattern);
+            _jacobianValues = new double[sparse.JacobianPattern.Entries.Count];
+        }
+        _pointY = new double[_n];
         _f0 = new double[_n]; _ft = new double[_n]; _f = new double[_n]; _yStage = new double[_n];
         _k1 = new double[_n]; _k2 = new double[_n]; _k3 = new double[_n]; _k4 = new double[_n]; _k5 = new double[_n]; _k6 = new double[_n];
     }
 
     /// <summary>Work done so far by this integrator.</summary>
-    public StiffStatistics Statistics => new(_accepted, _rejected, _evaluations, _jacobians, _decompositions);
+    public StiffStatistics Statistics => new(_accepted, _rejected, _evaluations, _jacobians, _decompositions, _denseDecompositions);
 
     /// <summary>
     /// One step of size <paramref name="h"/> from (t, y) into <paramref name="yNew"/>, with the scaled error norm of the step.
@@ -140,17 +184,8 @@ public sealed class Rodas4
     public bool TryStep(double t, ReadOnlySpan<double> y, double h, Span<double> yNew, out double errorNorm)
     {
         var n = _n;
-        _system.Derivative(t, y, _f0);
-        _evaluations++;
-        _system.Jacobian(t, y, _jacobian);
-        _jacobians++;
-        var nonAutonomous = _system.TimeDerivative(t, y, _ft);
-
-        var fac = 1.0 / (h * Gamma);
-        for (var i = 0; i < _matrix.Length; i++) _matrix[i] = -_jacobian[i];
-        for (var i = 0; i < n; i++) _matrix[i + i * n] += fac;
-        _provider.LUFactor(_matrix, n, _pivots);
-        _decompositions++;
+        var nonAutonomous = EvaluateAt(t, y);
+        Decompose(1.0 / (h * Gamma));
 
         // Stage 1
         for (var i = 0; i < n; i++) _k1[i] = _f0[i] + (nonAutonomous ? h * D1 * _ft[i] : 0.0);
@@ -188,13 +223,14 @@ public sealed class Rodas4
 
         var atol = _options.AbsoluteTolerance;
         var rtol = _options.RelativeTolerance;
+        var nonNegative = _options.NonNegative;
         var sum = 0.0;
         for (var i = 0; i < n; i++)
         {
             var value = _yStage[i] + _k6[i];
             yNew[i] = value;
             var scale = atol + rtol * Math.Max(Math.Abs(y[i]), Math.Abs(value));
-            var e = _k6[i] / scale;
+            var e = (nonNegative && value < 0 ? Math.Max(Math.Abs(_k6[i]), -value) : _k6[i]) / scale;
             sum += e * e;
         }
         errorNorm = Math.Sqrt(sum / n);
@@ -301,7 +337,51 @@ public sealed class Rodas4
         _evaluations++;
     }
 
-    private void Solve(double[] rhs) => _provider.LUSolveFactored(1, _matrix, _n, _pivots, rhs);
+    private void Solve(double[] rhs)
+    {
+        if (_useSparse) _sparse!.Solve(rhs);
+        else _provider.LUSolveFactored(1, _matrix!, _n, _pivots!, rhs);
+    }
+
+    // f, ∂f/∂y and ∂f/∂t at (t, y), unless they are held for that very point already. Returns whether ∂f/∂t is nonzero.
+    private bool EvaluateAt(double t, ReadOnlySpan<double> y)
+    {
+        if (t == _pointT && y.SequenceEqual(_pointY)) return _pointNonAutonomous;
+        _system.Derivative(t, y, _f0);
+        _evaluations++;
+        if (_sparseSystem is not null) _sparseSystem.JacobianValues(t, y, _jacobianValues);
+        else _system.Jacobian(t, y, _jacobian ??= new double[_n * _n]);
+        _jacobians++;
+        _pointNonAutonomous = _system.TimeDerivative(t, y, _ft);
+        y.CopyTo(_pointY);
+        _pointT = t;
+        return _pointNonAutonomous;
+    }
+
+    // Factors (fac·I − J): sparse when the system has a pattern and the elimination passes its pivot test, else dense with partial pivoting.
+    private void Decompose(double fac)
+    {
+        var n = _n;
+        _decompositions++;
+        _useSparse = _sparse is not null && _sparse.FactorShiftedNegative(fac, _jacobianValues);
+        if (_useSparse) return;
+        _denseDecompositions++;
+        _matrix ??= new double[n * n];
+        _pivots ??= new int[n];
+        if (_sparseSystem is not null)
+        {
+            Array.Clear(_matrix);
+            var entries = _sparseSystem.JacobianPattern.Entries;
+            for (var e = 0; e < entries.Count; e++) _matrix[entries[e].Row + entries[e].Column * n] -= _jacobianValues[e];
+        }
+        else
+        {
+            var jacobian = _jacobian!;
+            for (var i = 0; i < _matrix.Length; i++) _matrix[i] = -jacobian[i];
+        }
+        for (var i = 0; i < n; i++) _matrix[i + i * n] += fac;
+        _provider.LUFactor(_matrix, n, _pivots);
+    }
 
     // Starting step of Hairer, Nørsett and Wanner, Solving ODEs I, §II.4, for a method of order 4.
     private double StartingStep(double t0, double[] y0)

@@ -53,6 +53,12 @@ internal sealed class DerivationInputs
             [.. statesByReaction[r.Id].OrderBy(s => s.Position).Select(s => new StateInput(s.Id, s.Position, s.Label, s.Kind, s.SaddleCalculationId,
                 [.. terms[s.Id].Select(t => (t.SpeciesId, t.Coefficient))], [.. pairs[s.Id].Select(p => (p.AtomA, p.AtomB))]))])).ToList();
 
+        return await ForReactionsAsync(db, reactionInputs, ct);
+    }
+
+    /// <summary>The species and live calculations the given reactions (stored or not) read, in two queries.</summary>
+    public static async Task<DerivationInputs> ForReactionsAsync(LedgerDbContext db, List<ReactionInput> reactionInputs, CancellationToken ct)
+    {
         var speciesIds = reactionInputs.SelectMany(r => r.States).SelectMany(s => s.Terms).Select(t => t.SpeciesId).Distinct().ToList();
         var species = await db.Species.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.Id))
             .Select(s => new SpeciesInput(s.Id, s.Label, s.Charge, s.Multiplicity, s.Formula, s.SymmetryNumber)).ToListAsync(ct);

@@ -40,6 +40,21 @@ public sealed class DerivationService(TimeProvider time)
         await ReactionStatusSummary.RefreshAsync(db, affected, ct);
     }
 
+    /// <summary>
+    /// Derives a pathway that is not stored (the reaction builder's live preview) through exactly the path a stored reaction takes:
+    /// the same inputs loader, the same <see cref="ReactionDeriver"/> and model. Writes nothing.
+    /// </summary>
+    public async Task<DerivedPreview> PreviewAsync(LedgerDbContext db, int studyId, IReadOnlyList<PreviewState> states, CancellationToken ct)
+    {
+        var (model, _) = await EffectiveModelAsync(db, studyId, ct);
+        var input = new ReactionInput(0, studyId, 0, [.. states.Select((s, i) => new StateInput(0, i, s.Label, s.Kind, s.SaddleCalculationId,
+            [.. s.Terms], [.. s.Pairs]))]);
+        var inputs = await DerivationInputs.ForReactionsAsync(db, [input], ct);
+        var d = new ReactionDeriver(model, inputs).Derive(input);
+        return new DerivedPreview(d.BarrierGibbsHartree, d.ReactionGibbsHartree, d.BarrierElectronicHartree, d.RateConstantPerSecond, d.HalfLifeSeconds,
+            d.TemperatureKelvin, d.LevelOfTheory, d.Consistent, d.Consistency, d.States, d.Steps, model);
+    }
+
     /// <summary>Marks reactions' derived values out of date (their inputs changed).</summary>
     public static Task BumpRevisionsAsync(LedgerDbContext db, IReadOnlyCollection<int> reactionIds, CancellationToken ct) =>
         db.Reactions.Where(r => EF.Parameter(reactionIds).Contains(r.Id)).ExecuteUpdateAsync(u => u.SetProperty(r => r.InputsRevision, r => r.InputsRevision + 1), ct);

@@ -56,4 +56,16 @@ public class Calculation : IVersioned, IRetirable
     public DateTimeOffset? RetiredAt { get; set; }
     public string? RetiredByUserId { get; set; }
     public long Version { get; set; }
+
+    /// <summary>Sets the level of theory and the parts the energy model matches on (method, basis, solvation, geometry level, energy key).</summary>
+    public void SetLevel(LevelOfTheory level)
+    {
+        ArgumentNullException.ThrowIfNull(level);
+        LevelOfTheory = level.ToString();
+        Method = level.Method;
+        Basis = level.Basis;
+        Solvation = level.Solvation;
+        GeometryLevel = level.GeometryLevel?.EnergyPart ?? "";
+        EnergyLevelKey = Derivation.EnergyLevels.Key(level.EnergyPart);
+    }
 }

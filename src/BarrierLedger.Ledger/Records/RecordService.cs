@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Storage;
@@ -69,6 +70,94 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
         return result;
     }
 
+    /// <summary>
+    /// Creates a species in a study before any result names it (label unique in the study, retired ones included; charge;
+    /// multiplicity 2S+1 of 1 or more). Its formula is set by the first geometry stored for it. Throws <see cref="ArgumentException"/>
+    /// with the reason when a value is not acceptable.
+    /// </summary>
+    public async Task<int> CreateSpeciesAsync(int studyId, string label, int charge, int multiplicity, string description, string userId, CancellationToken ct = default)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(userId);
+        if (LabelProblem(label, "species label") is { } problem) throw new ArgumentException(problem, nameof(label));
+        if (multiplicity < 1) throw new ArgumentException($"the multiplicity (2S+1) must be 1 or more (got {multiplicity})", nameof(multiplicity));
+        return await LedgerRetry.RunAsync(async token =>
+        {
+            await using var db = await factory.CreateDbContextAsync(token);
+            await using var tx = await LedgerRetry.BeginWriteAsync(db, token);
+            var study = await db.Studies.FirstOrDefaultAsync(s => s.Id == studyId, token)
+                ?? throw new ArgumentException($"study {studyId} does not exist", nameof(studyId));
+            if (study.Retired) throw new ArgumentException($"study '{study.Name}' is retired; restore it before adding to it", nameof(studyId));
+            var trimmed = label.Trim();
+            if (await db.Species.AnyAsync(s => s.StudyId == studyId && s.Label == trimmed, token))
+                throw new ArgumentException($"the study already has a species labelled '{trimmed}' (perhaps retired: restore it instead)", nameof(label));
+            var species = new Species { StudyId = studyId, Label = trimmed, Charge = charge, Multiplicity = multiplicity, Description = (description ?? "").Trim() };
+            db.Species.Add(species);
+            await db.SaveChangesAsync(token);
+            audit.Record(db, userId, "species.created", nameof(Species), species.Id,
+                $"Species '{species.Label}' created in study '{study.Name}' (charge {charge}, multiplicity {multiplicity}).");
+            await db.SaveChangesAsync(token);
+            await tx.CommitAsync(token);
+            return species.Id;
+        }, ct);
+    }
+
+    /// <summary>Renames or describes a species (the label stays unique in its study); the reactions using it are re-derived so their messages name it.</summary>
+    public Task<EditResult> EditSpeciesDetailsAsync(int id, string label, string description, long expectedVersion, string userId, CancellationToken ct = default) =>
+        EditAsync<Species>(id, expectedVersion, userId, async (db, s, token) =>
+        {
+            if (LabelProblem(label, "species label") is { } problem) return [problem];
+            var trimmed = label.Trim();
+            if (trimmed != s.Label && await db.Species.AnyAsync(x => x.StudyId == s.StudyId && x.Label == trimmed && x.Id != s.Id, token))
+                return [$"the study already has a species labelled '{trimmed}'"];
+            s.Label = trimmed;
+            s.Description = (description ?? "").Trim();
+            return [];
+        }, s => ("species.edited", $"Species now '{s.Label}'" + (s.Description.Length > 0 ? $": {s.Description}" : ".")), ct, _ => true);
+
+    /// <summary>
+    /// Corrects what a calculation is: its label, note, kind and level of theory. A calculation that is the saddle point of a live
+    /// reaction's state stays a saddle point (choose another one there first). Changing the kind or level re-derives the reactions
+    /// that use its species.
+    /// </summary>
+    public Task<EditResult> EditCalculationAsync(int id, string label, string note, CalculationKind kind, string levelOfTheory, long expectedVersion, string userId,
+        CancellationToken ct = default)
+    {
+        var inputsChanged = false;
+        return EditAsync<Calculation>(id, expectedVersion, userId, async (db, c, token) =>
+        {
+            var errors = new List<string>();
+            if (LabelProblem(label, "calculation label") is { } problem) errors.Add(problem);
+            if (!Enum.IsDefined(kind)) errors.Add($"'{kind}' is not a kind of calculation");
+            if (!Core.Chemistry.LevelOfTheory.TryParse(levelOfTheory, out var level, out var why)) errors.Add($"level of theory: {why}");
+            if (kind != CalculationKind.SaddlePoint && c.Kind == CalculationKind.SaddlePoint)
+            {
+                var uses = await db.ReactionStates.Where(st => st.SaddleCalculationId == c.Id && !st.Reaction!.Retired)
+                    .Select(st => new { st.Label, Reaction = st.Reaction!.Label }).ToListAsync(token);
+                if (uses.Count > 0)
+                    errors.Add($"it is the saddle point of {string.Join(", ", uses.Select(u => $"state '{u.Label}' of reaction '{u.Reaction}'"))}; " +
+                               "choose another calculation there before calling it something else");
+            }
+            if (errors.Count > 0) return errors;
+            inputsChanged = c.Kind != kind || c.LevelOfTheory != level.ToString();
+            c.Label = label.Trim();
+            c.Note = (note ?? "").Trim();
+            c.Kind = kind;
+            c.SetLevel(level);
+            return [];
+        }, c => ("calculation.edited", $"Calculation now '{c.Label}': {c.Kind} at {c.LevelOfTheory}" + (c.Note.Length > 0 ? $"; note: {c.Note}" : ".")), ct,
+        _ => inputsChanged);
+    }
+
+    /// <summary>What is wrong with a label a person typed, or null: not empty, at most 200 characters, one line.</summary>
+    internal static string? LabelProblem(string? label, string what)
+    {
+        var t = label?.Trim() ?? "";
+        if (t.Length == 0) return $"the {what} is empty";
+        if (t.Length > 200) return $"the {what} has {t.Length} characters; at most 200";
+        if (t.Any(char.IsControl)) return $"the {what} contains a line break or another control character";
+        return null;
+    }
+
     public Task<EditResult> RetireAsync(RecordKind kind, int id, long expectedVersion, string userId, string reason, CancellationToken ct = default) =>
         SetRetiredAsync(kind, id, expectedVersion, userId, true, reason, ct);
 
@@ -112,8 +201,12 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
         };
     }
 
-    private async Task<EditResult> EditAsync<T>(int id, long expectedVersion, string userId, Func<T, IReadOnlyList<string>> apply, Func<T, (string Action, string Summary)> describe,
-        CancellationToken ct, bool rederiveSpecies = false) where T : class, IVersioned
+    private Task<EditResult> EditAsync<T>(int id, long expectedVersion, string userId, Func<T, IReadOnlyList<string>> apply, Func<T, (string Action, string Summary)> describe,
+        CancellationToken ct, bool rederiveSpecies = false) where T : class, IVersioned =>
+        EditAsync<T>(id, expectedVersion, userId, (_, e, _) => Task.FromResult(apply(e)), describe, ct, _ => rederiveSpecies);
+
+    private async Task<EditResult> EditAsync<T>(int id, long expectedVersion, string userId, Func<LedgerDbContext, T, CancellationToken, Task<IReadOnlyList<string>>> apply,
+        Func<T, (string Action, string Summary)> describe, CancellationToken ct, Func<T, bool> rederiveSpecies) where T : class, IVersioned
     {
         return await LedgerRetry.RunAsync(async token =>
         {
@@ -124,8 +217,9 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
             if (entity.Version != expectedVersion)
                 return EditResult.Conflicted(ConflictText(typeof(T).Name, id, expectedVersion, entity.Version));
             db.Entry(entity).Property(e => e.Version).OriginalValue = expectedVersion;
-            var errors = apply(entity);
+            var errors = await apply(db, entity, token);
             if (errors.Count > 0) return EditResult.Invalid(errors);
+            var rederive = rederiveSpecies(entity);
             var (action, summary) = describe(entity);
             audit.Record(db, userId, action, typeof(T).Name, id, summary, before: $"version {expectedVersion}", after: $"version {expectedVersion + 1}");
             try
@@ -136,7 +230,7 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
             {
                 return EditResult.Conflicted(ConflictText(typeof(T).Name, id, expectedVersion, null));
             }
-            if (rederiveSpecies)
+            if (rederive)
             {
                 var speciesId = entity switch
                 {

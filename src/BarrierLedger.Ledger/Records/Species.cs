@@ -7,6 +7,8 @@ public class Species : IVersioned, IRetirable
     public int StudyId { get; set; }
     public Study? Study { get; set; }
     public string Label { get; set; } = "";
+    /// <summary>Free text a member writes about the species (conformer, how it was found); empty when none.</summary>
+    public string Description { get; set; } = "";
     public int Charge { get; set; }
     public int Multiplicity { get; set; } = 1;
     /// <summary>Hill formula, from the first geometry stored; empty until one is.</summary>

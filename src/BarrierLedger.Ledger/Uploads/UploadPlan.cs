@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Vibrations;
+using BarrierLedger.Ledger.Reactions;
 using BarrierLedger.Ledger.Records;
 using Microsoft.EntityFrameworkCore;
 using Storage = BarrierLedger.Ledger.Storage;
@@ -190,31 +191,12 @@ internal sealed class UploadPlan
         foreach (var r in draft.Reactions)
         {
             var where = $"reaction '{r.Label}'";
-            if (r.States.Count < 2) plan.Error(primary, $"{where} needs at least two states");
             foreach (var s in r.States)
-            {
-                if (s.Terms.Count == 0) plan.Error(primary, $"{where}, state '{s.Label}' has no species");
-                foreach (var t in s.Terms)
-                {
-                    Lookup(t.Species, primary, $"{where}, state '{s.Label}'");
-                    if (t.Coefficient < 1) plan.Error(primary, $"{where}, state '{s.Label}': coefficient {t.Coefficient} of '{t.Species}' must be a whole number of 1 or more");
-                }
-                if (s.Kind == StateKind.SaddlePoint)
-                {
-                    if (s.Calculation is null) plan.Error(primary, $"{where}, saddle-point state '{s.Label}' names no calculation");
-                    else if (!calcByLabel.TryGetValue(s.Calculation, out var c)) plan.Error(primary, $"{where}, state '{s.Label}' names calculation '{s.Calculation}', which is not in this upload");
-                    else
-                    {
-                        if (c.Kind != CalculationKind.SaddlePoint) plan.Error(primary, $"{where}, state '{s.Label}': calculation '{c.Label}' is a {c.Kind}, not a saddle point");
-                        if (!s.Terms.Any(t => t.Species == c.Species))
-                            plan.Error(primary, $"{where}, state '{s.Label}': calculation '{c.Label}' is of species '{c.Species}', which is not in this state");
-                        var n = c.Geometry?.AtomCount ?? 0;
-                        foreach (var (a, b) in s.ReactionCoordinate)
-                            if (a < 1 || b < 1 || a > n || b > n || a == b)
-                                plan.Error(primary, $"{where}, state '{s.Label}': reaction-coordinate pair {a}–{b} is not two different atoms between 1 and {n}");
-                    }
-                }
-            }
+                foreach (var t in s.Terms) Lookup(t.Species, primary, $"{where}, state '{s.Label}'");
+            var shape = r.States.Select(s => new RuleState(s.Label, s.Kind, [.. s.Terms.Select(t => (t.Species, t.Coefficient))], s.Calculation,
+                s.Calculation is not null && calcByLabel.TryGetValue(s.Calculation, out var c) ? new RuleCalculation(c.Label, c.Kind, c.Species, c.Geometry?.AtomCount ?? 0) : null,
+                s.ReactionCoordinate)).ToList();
+            foreach (var (_, message) in ReactionRules.Check(where, shape, "which is not in this upload")) plan.Error(primary, message);
             var live = liveReactions.FirstOrDefault(x => x.Label == r.Label);
             if (live is null) { plan.NewReactions.Add(r); continue; }
             // An existing reaction: the upload may bring new saddle-point calculations for its states, nothing else.

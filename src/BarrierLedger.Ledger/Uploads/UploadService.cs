@@ -120,8 +120,6 @@ public sealed class UploadService(
             var rec = new Calculation
             {
                 Species = species, UploadId = upload.Id, Label = c.Draft.Label, Kind = c.Draft.Kind,
-                LevelOfTheory = level.ToString(), Method = level.Method, Basis = level.Basis, Solvation = level.Solvation,
-                GeometryLevel = level.GeometryLevel?.EnergyPart ?? "", EnergyLevelKey = EnergyLevels.Key(level.EnergyPart),
                 EnergyHartree = c.Draft.EnergyHartree,
                 AtomCount = c.Draft.Geometry?.AtomCount ?? 0,
                 AtomicNumbers = c.Draft.Geometry is { } g ? Blobs.FromElements(g.Elements) : null,
@@ -134,6 +132,7 @@ public sealed class UploadService(
                 StoredFileId = sourceFile is not null && fileIds.TryGetValue(sourceFile, out var fid) ? fid : null,
                 SourceSha256 = c.SourceSha, Note = c.Draft.Note, UploadedByUserId = user, UploadedAt = now,
             };
+            rec.SetLevel(level);
             db.Calculations.Add(rec);
             calcByLabel[c.Draft.Label] = rec;
         }

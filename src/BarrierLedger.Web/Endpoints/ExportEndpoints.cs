@@ -1,6 +1,7 @@
 using System.Globalization;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Export;
+using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Web.Components.Account;
 using Microsoft.AspNetCore.Authorization;
@@ -10,7 +11,7 @@ namespace BarrierLedger.Web.Endpoints;
 
 /// <summary>
 /// Downloads behind the Export screen (and for scripts with an access token): barrier tables, diagrams, supporting-information
-/// coordinates, and for admins the whole-ledger backup. Bad choices give 400 with the reason; unknown ids 404.
+/// coordinates, original uploaded files byte for byte, and for admins the whole-ledger backup. Bad choices give 400 with the reason; unknown ids 404.
 /// </summary>
 public static class ExportEndpoints
 {
@@ -30,6 +31,10 @@ public static class ExportEndpoints
             var file = format == "zip" ? await export.SupportingInfoZipAsync(study, ct) : await export.SupportingInfoTextAsync(study, ct);
             return File(file);
         }));
+        group.MapGet("/file/{fileId:int}", async (int fileId, WorkspaceQueryService files, CancellationToken ct) =>
+            await files.GetStoredFileAsync(fileId, ct) is { } f
+                ? Results.File(f.Content, "application/octet-stream", Path.GetFileName(f.FileName.Replace('!', '/')))
+                : ApiProblems.NotFound($"There is no stored file {fileId}."));
         group.MapGet("/isotope-effects/{reactionId:int}", (int reactionId, string? format, BarrierLedger.Ledger.IsotopeEffects.IsotopeEffectService service, CancellationToken ct) =>
             IsotopeEffectEndpoints.GetAsync(reactionId, format ?? "csv", service, ct));
         endpoints.MapGet(Prefix + "/backup", BackupAsync).RequireAuthorization(Policies.Admin).ExcludeFromDescription();

@@ -111,6 +111,27 @@ public class Rodas4Tests
         Close.Relative(1.0, atEnd.Sum(), 1e-12, "y1 + y2 + y3 (mass balance)", "conservation of the network");
     }
 
+    // y′ = −1 from y = 10⁻³ over h = 1: every consistent method is exact for a linear solution, so the embedded error estimate is
+    // zero and the step to y = −0.999 would be accepted. With NonNegative the negative component counts as an error of its size
+    // (L. F. Shampine, S. Thompson, J. A. Kierzenka and G. D. Byrne, Appl. Math. Comput. 170 (2005) 556, from memory) and the
+    // step is refused; a step that stays above zero is unaffected.
+    [Fact]
+    public void NonNegative_StepBelowZero_CountsAsError()
+    {
+        var system = new Scalar((t, y) => -1.0, (t, y) => 0.0, (t, y) => 0.0);
+        double[] y = [1e-3];
+        var yNew = new double[1];
+        new Rodas4(system, new StiffOptions(1e-6, 1e-12)).TryStep(0, y, 1.0, yNew, out var plain);
+        Close.Absolute(-0.999, yNew[0], 1e-15, "y(1)", "exact solution y = 10⁻³ − t");
+        Assert.True(plain < 1e-6, $"error estimate {plain}");
+        var guarded = new Rodas4(system, new StiffOptions(1e-6, 1e-12, NonNegative: true));
+        guarded.TryStep(0, y, 1.0, yNew, out var refused);
+        Assert.True(refused > 1.0, $"error estimate {refused}");
+        guarded.TryStep(0, y, 5e-4, yNew, out var accepted);
+        Close.Absolute(5e-4, yNew[0], 1e-15, "y(5e-4)", "exact solution y = 10⁻³ − t");
+        Assert.True(accepted < 1e-6, $"error estimate {accepted}");
+    }
+
     private sealed class Scalar(Func<double, double, double> f, Func<double, double, double> dfdy, Func<double, double, double> dfdt) : IStiffSystem
     {
         public int Dimension => 1;

@@ -52,7 +52,7 @@ public sealed class StoreTransferTests
         await using (var db = await target.DbAsync())
         {
             var maxId = await db.AuditEvents.MaxAsync(e => e.Id);
-            db.AuditEvents.Add(new Records.AuditEvent { At = DateTimeOffset.UtcNow, UserId = "u", Action = "test.after-copy", EntityType = "Study", EntityId = "1", Summary = "after the copy" });
+            db.AuditEvents.Add(new BarrierLedger.Ledger.Records.AuditEvent { At = DateTimeOffset.UtcNow, UserId = "u", Action = "test.after-copy", EntityType = "Study", EntityId = "1", Summary = "after the copy" });
             await db.SaveChangesAsync();
             Assert.True(await db.AuditEvents.MaxAsync(e => e.Id) > maxId);
         }

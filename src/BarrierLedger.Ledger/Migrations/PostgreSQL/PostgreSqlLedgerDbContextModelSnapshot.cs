@@ -915,6 +915,12 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<int>("Charge")
                         .HasColumnType("integer");
 
+                    b.Property<string>("Description")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("character varying(4000)")
+                        .UseCollation("C");
+
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)

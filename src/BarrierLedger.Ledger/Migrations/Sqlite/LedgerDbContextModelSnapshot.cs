@@ -820,6 +820,11 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<int>("Charge")
                         .HasColumnType("INTEGER");
 
+                    b.Property<string>("Description")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)

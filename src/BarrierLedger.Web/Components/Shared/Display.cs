@@ -52,4 +52,27 @@ public static class Display
     }
 
     public static string Kelvin(double? t) => t is { } v ? $"{v:F2} K" : "—";
+
+    /// <summary>A calculation kind in words: "saddle point", "relaxed scan".</summary>
+    public static string Kind(BarrierLedger.Core.Chemistry.CalculationKind kind) => kind switch
+    {
+        BarrierLedger.Core.Chemistry.CalculationKind.Minimum => "minimum",
+        BarrierLedger.Core.Chemistry.CalculationKind.SaddlePoint => "saddle point",
+        BarrierLedger.Core.Chemistry.CalculationKind.SinglePoint => "single point",
+        BarrierLedger.Core.Chemistry.CalculationKind.Frequencies => "frequencies",
+        BarrierLedger.Core.Chemistry.CalculationKind.RelaxedScan => "relaxed scan",
+        BarrierLedger.Core.Chemistry.CalculationKind.Endpoint => "IRC / endpoint",
+        _ => kind.ToString(),
+    };
+
+    /// <summary>Imaginary wavenumbers as written on screen ("512i, 38i cm⁻¹"), or what is missing.</summary>
+    public static string Imaginary(IReadOnlyList<double> imaginaryCm1, int frequencyCount, bool hasHessian)
+    {
+        if (frequencyCount == 0) return hasHessian ? "Hessian stored" : "no frequencies";
+        if (imaginaryCm1.Count == 0) return "none";
+        return string.Join(", ", imaginaryCm1.Select(f => $"{-f:F0}i")) + " cm⁻¹";
+    }
+
+    /// <summary>A stored time in UTC, to the minute.</summary>
+    public static string When(DateTimeOffset at) => at.UtcDateTime.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture) + " UTC";
 }

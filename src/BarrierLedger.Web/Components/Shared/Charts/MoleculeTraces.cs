@@ -20,8 +20,9 @@ public static class MoleculeTraces
     public static IReadOnlyList<(int A, int B)> Bonds(Molecule m) =>
         Connectivity.Of(m).Bonds.Select(b => (b.A, b.B)).ToList();
 
-    public static IList<ITrace> Build(Molecule m, IReadOnlyList<(int A, int B)> bonds)
+    public static IList<ITrace> Build(Molecule m, IReadOnlyList<(int A, int B)> bonds, IReadOnlyCollection<int>? selected = null)
     {
+        selected ??= [];
         var p = m.PositionsAngstrom;
         var atoms = new Scatter3D
         {
@@ -46,6 +47,15 @@ public static class MoleculeTraces
             Name = "bonds", Mode = ModeFlag.Lines, ShowLegend = false, HoverInfo = Plotly.Blazor.Traces.Scatter3DLib.HoverInfoFlag.Skip,
             X = bx!, Y = by!, Z = bz!, Line = new Line { Color = "#7b8794", Width = 6 },
         };
-        return [atoms, sticks];
+        if (selected.Count == 0) return [atoms, sticks];
+        // Picked atoms: a ring (an open marker) around each, labelled, so the choice is seen without relying on colour.
+        var ring = new Scatter3D
+        {
+            Name = "selected", Mode = ModeFlag.Markers | ModeFlag.Text, ShowLegend = false, HoverInfo = Plotly.Blazor.Traces.Scatter3DLib.HoverInfoFlag.Skip,
+            X = selected.Select(i => (object)p[i].X).ToList(), Y = selected.Select(i => (object)p[i].Y).ToList(), Z = selected.Select(i => (object)p[i].Z).ToList(),
+            TextArray = selected.Select(i => m.AtomLabel(i)).ToList(), TextPosition = Plotly.Blazor.Traces.Scatter3DLib.TextPositionEnum.TopCenter,
+            Marker = new Marker { Size = 18, Symbol = Plotly.Blazor.Traces.Scatter3DLib.MarkerLib.SymbolEnum.CircleOpen, Color = "#c2410c" },
+        };
+        return [atoms, sticks, ring];
     }
 }
