@@ -64,6 +64,11 @@ public sealed class WorkflowTests
         Assert.Contains(queued.Reasons, r => r.Code == "saddle.no-modes");
         var history = await reviews.HistoryAsync(stateId);
         Assert.Equal([ReviewOutcome.Reopened, ReviewOutcome.Verified], history.Select(h => h.Outcome));
+        // A saddle point that failed its check is verified only with a comment that says why it is accepted anyway
+        // (common practice, no source: a sign-off against the evidence must carry its reason).
+        var refused = await Assert.ThrowsAsync<ArgumentException>(() => reviews.VerifyAsync(queued.CalculationId, reviewer, " "));
+        Assert.Contains("failed its frequency check", refused.Message);
+        Assert.Single(await reviews.QueueAsync(studyId));
         // ΔE‡ follows the new saddle-point energy: −1.6552 − (−1.17 − 0.5) = 0.0148 Eh.
         Assert.Equal(0.0148, after.BarrierElectronic!.Value.Hartree, 9);
         await using var db = await ledger.DbAsync();
