@@ -35,6 +35,8 @@ public static class ExportEndpoints
             await files.GetStoredFileAsync(fileId, ct) is { } f
                 ? Results.File(f.Content, "application/octet-stream", Path.GetFileName(f.FileName.Replace('!', '/')))
                 : ApiProblems.NotFound($"There is no stored file {fileId}."));
+        group.MapGet("/bundle/{reactionId:int}", (int reactionId, BarrierLedger.Ledger.Reactions.ReactionBundleService bundles, HttpContext http, CancellationToken ct) =>
+            ReactionEndpoints.BundleAsync(reactionId, bundles, http, ct));
         group.MapGet("/isotope-effects/{reactionId:int}", (int reactionId, string? format, BarrierLedger.Ledger.IsotopeEffects.IsotopeEffectService service, CancellationToken ct) =>
             IsotopeEffectEndpoints.GetAsync(reactionId, format ?? "csv", service, ct));
         endpoints.MapGet(Prefix + "/backup", BackupAsync).RequireAuthorization(Policies.Admin).ExcludeFromDescription();
