@@ -14,10 +14,11 @@ public sealed record ApiFileReceipt(string Name, long SizeBytes, string Sha256);
 /// <summary>
 /// A stored upload. <see cref="AlreadyStored"/>: an upload with the same key was stored before and nothing new was written.
 /// <see cref="Duplicates"/>: records that were already in the ledger from the same file and were not stored again.
+/// <see cref="Conformers"/>: for each species the upload gave conformers to, their count, duplicates and mirror images.
 /// </summary>
 public sealed record UploadResponse(bool Stored, bool AlreadyStored, int? UploadId, int? StudyId, IReadOnlyList<int> CalculationIds,
     IReadOnlyList<int> ReactionIds, IReadOnlyList<int> ScanIds, IReadOnlyList<string> Duplicates, IReadOnlyList<ApiIssue> Warnings,
-    IReadOnlyList<ApiFileReceipt> Files);
+    IReadOnlyList<ApiFileReceipt> Files, IReadOnlyList<string> Conformers);
 
 /// <summary>POST /api/v1/uploads (store) and POST /api/v1/uploads/preview (check only): the browser upload's workflow over HTTP.</summary>
 internal static class UploadEndpoints
@@ -66,7 +67,7 @@ internal static class UploadEndpoints
         if (!outcome.Stored) return ApiProblems.UploadRejected(outcome.Issues);
         var again = outcome.AlreadyStored;
         var body = new UploadResponse(true, again, outcome.UploadId, outcome.StudyId, outcome.CalculationIds, outcome.ReactionIds, outcome.ScanIds,
-            outcome.Duplicates, [.. outcome.Issues.Where(i => !i.IsError).Select(ApiIssue.From)], received.Receipts);
+            outcome.Duplicates, [.. outcome.Issues.Where(i => !i.IsError).Select(ApiIssue.From)], received.Receipts, outcome.ConformerNotes);
         return Results.Json(body, statusCode: again ? StatusCodes.Status200OK : StatusCodes.Status201Created);
     }
 
@@ -129,6 +130,13 @@ internal static class UploadEndpoints
             errors.Add($"field '{field}': '{v}' is not a whole number");
             return null;
         }
+        bool Bool(string field)
+        {
+            if (Text(field) is not { } v) return false;
+            if (bool.TryParse(v, out var b)) return b;
+            errors.Add($"field '{field}': '{v}' is not true or false");
+            return false;
+        }
         CalculationKind? kind = null;
         if (Text("kind") is { } k)
         {
@@ -149,6 +157,7 @@ internal static class UploadEndpoints
         {
             NewStudyName = Text("study"), StudyId = Int("studyId"), SpeciesLabel = Text("species"), Kind = kind, LevelOfTheory = Text("level"),
             Charge = Int("charge"), Multiplicity = Int("multiplicity"), ScanAtoms = scanAtoms, AttachToStateId = Int("attachToState"), UploadKey = key,
+            Conformer = Text("conformer"), ConformerPerFile = Bool("conformerPerFile"),
         };
         if (errors.Count > 0) return (null, ApiProblems.BadRequest(string.Join("; ", errors) + "."));
         return (new Received(files, choices, receipts), null);
