@@ -48,8 +48,8 @@ public static class UploadReader
                 draft.Issues.Add(new UploadIssue(f.FileName, null, null, "not named by the bundle and not a data file; not read and not stored", IsError: false));
                 continue;
             }
-            if (format == FileFormat.Xyz) ReadXyz(f, choices, limits, draft);
-            else SingleFileFormats.Read(f, format, choices, limits, draft);
+            if (format == FileFormat.Xyz) ReadXyz(f, choices.For(f.FileName), limits, draft);
+            else SingleFileFormats.Read(f, format, choices.For(f.FileName), limits, draft);
         }
         return draft;
     }

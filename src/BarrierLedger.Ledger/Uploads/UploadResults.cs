@@ -46,5 +46,14 @@ public sealed record UploadOutcome(
 {
     public IEnumerable<UploadIssue> Errors => Issues.Where(i => i.IsError);
 
+    /// <summary>This uploader stored the same content under the same key before; nothing new was written.</summary>
+    public bool AlreadyStored { get; init; }
+
+    /// <summary>
+    /// Set (with <see cref="Stored"/> false) when this uploader's key already names an upload with other content: a key
+    /// re-used by mistake, not a retry. Nothing was written.
+    /// </summary>
+    public string? KeyConflict { get; init; }
+
     internal static UploadOutcome Failed(IEnumerable<UploadIssue> issues) => new(false, null, null, [], [], [], [], [.. issues]);
 }

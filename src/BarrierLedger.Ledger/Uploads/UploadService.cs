@@ -57,21 +57,31 @@ public sealed class UploadService(
         ArgumentException.ThrowIfNullOrWhiteSpace(uploaderUserId);
         if (draft.Issues.Any(i => i.IsError)) return UploadOutcome.Failed(draft.Issues);
         var key = choices.UploadKey ?? Guid.NewGuid().ToString("N");
+        var content = UploadFingerprint.Of(draft.Files, choices);
         return await LedgerRetry.RunAsync(async token =>
         {
             await using var db = await factory.CreateDbContextAsync(token);
             await using var tx = await LedgerRetry.BeginWriteAsync(db, token);
-            if (await db.Uploads.AsNoTracking().FirstOrDefaultAsync(u => u.Key == key, token) is { } earlier)
-                return new UploadOutcome(true, earlier.Id, earlier.StudyId, [], [], [], [$"upload {key} was already stored"], draft.Issues);
+            // A key is the uploader's own: another user's upload under the same key is no concern of this one.
+            if (await db.Uploads.AsNoTracking().FirstOrDefaultAsync(u => u.UploaderUserId == uploaderUserId && u.Key == key, token) is { } earlier)
+            {
+                if (earlier.ContentSha256 is { } was && was != content)
+                    return UploadOutcome.Failed([]) with
+                    {
+                        KeyConflict = $"Upload key '{key}' was used by you on {earlier.At:u} for other files or choices (upload {earlier.Id}); " +
+                            "nothing was stored. Send a new key for new content; the same key only repeats the same upload.",
+                    };
+                return new UploadOutcome(true, earlier.Id, earlier.StudyId, [], [], [], [$"upload {key} was already stored"], draft.Issues) { AlreadyStored = true };
+            }
             var plan = await UploadPlan.ResolveAsync(db, draft, choices, token);
             if (plan.Issues.Any(i => i.IsError)) return UploadOutcome.Failed(plan.Issues);
-            var outcome = await WriteAsync(db, plan, key, uploaderUserId, token);
+            var outcome = await WriteAsync(db, plan, key, content, uploaderUserId, token);
             await tx.CommitAsync(token);
             return outcome;
         }, ct);
     }
 
-    private async Task<UploadOutcome> WriteAsync(LedgerDbContext db, UploadPlan plan, string key, string user, CancellationToken ct)
+    private async Task<UploadOutcome> WriteAsync(LedgerDbContext db, UploadPlan plan, string key, string content, string user, CancellationToken ct)
     {
         var now = time.GetUtcNow();
         var draft = plan.Draft;
@@ -104,7 +114,7 @@ public sealed class UploadService(
             newFiles[sha] = f;
             db.StoredFiles.Add(f);
         }
-        var upload = new Upload { Key = key, StudyId = study.Id, UploaderUserId = user, At = now, Summary = plan.Summary() };
+        var upload = new Upload { Key = key, ContentSha256 = content, StudyId = study.Id, UploaderUserId = user, At = now, Summary = plan.Summary() };
         db.Uploads.Add(upload);
         await db.SaveChangesAsync(ct);
         foreach (var f in newFiles.Values) bySha[f.Sha256] = f.Id;

@@ -34,13 +34,15 @@ internal static class UploadEndpoints
             .Produces<UploadResponse>(StatusCodes.Status201Created)
             .Produces<UploadResponse>(StatusCodes.Status200OK)
             .ProducesProblem(StatusCodes.Status400BadRequest)
+            .ProducesProblem(StatusCodes.Status409Conflict)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
             .ProducesProblem(StatusCodes.Status422UnprocessableEntity)
             .WithName("StoreUpload")
             .WithSummary("Store files as one upload (all or nothing)")
             .WithDescription("multipart/form-data: one or more file parts (any field name; a bundle manifest may be sent as field 'manifest'), " +
                 "and optional fields study, studyId, species, kind, level, charge, multiplicity, scanAtoms (e.g. '2,3'), attachToState, uploadKey. " +
-                "The Idempotency-Key header (or uploadKey) makes a retried upload store nothing twice.");
+                "The Idempotency-Key header (or uploadKey) makes a retried upload store nothing twice; a key belongs to its user, and the same key " +
+                "with other files or choices is refused with 409 (idempotency-key-reused).");
 
         api.MapPost("/uploads/preview", PreviewAsync)
             .RequireApi(ApiPolicies.Read)
@@ -59,9 +61,10 @@ internal static class UploadEndpoints
         if (problem is not null) return problem;
         var userId = user.FindFirstValue(ClaimTypes.NameIdentifier)!;
         var outcome = await uploads.StoreAsync(received!.Files, received.Choices, userId, ct);
+        if (outcome.KeyConflict is { } clash)
+            return ApiProblems.Problem(StatusCodes.Status409Conflict, "idempotency-key-reused", "Upload key already used for other content", clash);
         if (!outcome.Stored) return ApiProblems.UploadRejected(outcome.Issues);
-        var key = received.Choices.UploadKey;
-        var again = key is not null && outcome.Duplicates.Contains($"upload {key} was already stored");
+        var again = outcome.AlreadyStored;
         var body = new UploadResponse(true, again, outcome.UploadId, outcome.StudyId, outcome.CalculationIds, outcome.ReactionIds, outcome.ScanIds,
             outcome.Duplicates, [.. outcome.Issues.Where(i => !i.IsError).Select(ApiIssue.From)], received.Receipts);
         return Results.Json(body, statusCode: again ? StatusCodes.Status200OK : StatusCodes.Status201Created);

@@ -264,4 +264,30 @@ public class BundleReaderTests
         Assert.Equal("$.calculations[0].modes[0].force_constant_mdyn_per_angstrom", e.JsonPath);
         Assert.Contains("give only 'force_constant_n_per_m'", e.Message);
     }
+
+    // The forming/breaking bonds are written as "reacting_bonds"; the sample keeps their first name "reaction_coordinate",
+    // which format_version 1 bundles still use (docs/formats.md).
+    [Fact]
+    public void Reacting_bonds_read_the_same_pairs_as_their_older_name()
+    {
+        var node = JsonNode.Parse(SampleText())!;
+        var ts = node["reactions"]![0]!["states"]![1]!.AsObject();
+        var pairs = ts["reaction_coordinate"]!.DeepClone();
+        ts.Remove("reaction_coordinate");
+        ts["reacting_bonds"] = pairs;
+        var b = ReadJson(node.ToJsonString()).GetValueOrThrow();
+        var state = b.Reactions[0].States[1];
+        Assert.Equal([new BundleAtomPair(1, 5), new BundleAtomPair(5, 6)], state.ReactionCoordinate.ToArray());
+    }
+
+    [Fact]
+    public void Reacting_bonds_given_under_both_names_is_an_error_at_the_older_name()
+    {
+        var node = JsonNode.Parse(SampleText())!;
+        var ts = node["reactions"]![0]!["states"]![1]!.AsObject();
+        ts["reacting_bonds"] = ts["reaction_coordinate"]!.DeepClone();
+        var r = ReadJson(node.ToJsonString());
+        Assert.False(r.Succeeded);
+        Assert.Contains(r.Errors, e => e.JsonPath == "$.reactions[0].states[1].reaction_coordinate" && e.Message.Contains("keep one"));
+    }
 }

@@ -1066,6 +1066,11 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<DateTimeOffset>("At")
                         .HasColumnType("timestamp with time zone");
 
+                    b.Property<string>("ContentSha256")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .UseCollation("C");
+
                     b.Property<string>("Key")
                         .IsRequired()
                         .HasMaxLength(100)
@@ -1087,10 +1092,10 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     b.HasKey("Id");
 
-                    b.HasIndex("Key")
-                        .IsUnique();
-
                     b.HasIndex("StudyId");
+
+                    b.HasIndex("UploaderUserId", "Key")
+                        .IsUnique();
 
                     b.ToTable("Uploads", (string)null);
                 });

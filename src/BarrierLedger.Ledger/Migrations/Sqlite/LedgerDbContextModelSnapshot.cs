@@ -954,6 +954,10 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<DateTimeOffset>("At")
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("ContentSha256")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("Key")
                         .IsRequired()
                         .HasMaxLength(100)
@@ -972,10 +976,10 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
 
                     b.HasKey("Id");
 
-                    b.HasIndex("Key")
-                        .IsUnique();
-
                     b.HasIndex("StudyId");
+
+                    b.HasIndex("UploaderUserId", "Key")
+                        .IsUnique();
 
                     b.ToTable("Uploads", (string)null);
                 });
