@@ -401,14 +401,6 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasMaxLength(20)
                         .HasColumnType("character varying(20)");
 
-                    b.Property<string>("UncertaintyByLevel")
-                        .IsRequired()
-                        .HasColumnType("text")
-                        .UseCollation("C");
-
-                    b.Property<double?>("UncertaintyKcalPerMol")
-                        .HasColumnType("double precision");
-
                     b.Property<DateTimeOffset>("UpdatedAt")
                         .HasColumnType("timestamp with time zone");
 
@@ -1126,7 +1118,7 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     b.HasKey("Id");
 
-                    b.ToTable("DataProtectionKeys");
+                    b.ToTable("DataProtectionKeys", (string)null);
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>

@@ -356,13 +356,6 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                         .HasMaxLength(20)
                         .HasColumnType("TEXT");
 
-                    b.Property<string>("UncertaintyByLevel")
-                        .IsRequired()
-                        .HasColumnType("TEXT");
-
-                    b.Property<double?>("UncertaintyKcalPerMol")
-                        .HasColumnType("REAL");
-
                     b.Property<DateTimeOffset>("UpdatedAt")
                         .HasColumnType("TEXT");
 
@@ -1005,7 +998,7 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
 
                     b.HasKey("Id");
 
-                    b.ToTable("DataProtectionKeys");
+                    b.ToTable("DataProtectionKeys", (string)null);
                 });
 
             modelBuilder.Entity("Microsoft.AspNetCore.Identity.IdentityRole", b =>
