@@ -34,6 +34,7 @@ public static class LedgerServiceCollectionExtensions
         services.TryAddSingleton(new WorkLeaseOptions());
         services.AddSingleton<WorkLeaseStore>();
         services.AddSingleton<AuditService>();
+        services.AddSingleton<Accounts.AccountAccess>();
         services.AddSingleton<DerivationService>();
         services.AddSingleton<UploadService>();
         services.AddSingleton<RecomputeService>();
