@@ -34,7 +34,26 @@ public sealed record UploadChoices
     public string? IrcOf { get; init; }
     /// <summary>A key the caller chooses so that a retried store cannot write twice; generated when null.</summary>
     public string? UploadKey { get; init; }
+    /// <summary>Per-file choices by file name (the upload page's one row per file); what a row leaves empty falls back to the fields above.</summary>
+    public IReadOnlyDictionary<string, FileChoices>? Files { get; init; }
+
+    /// <summary>The choices that apply to one single file: its row's values over the upload-wide ones.</summary>
+    public UploadChoices For(string fileName) => Files is not null && Files.TryGetValue(fileName, out var f)
+        ? this with
+        {
+            SpeciesLabel = string.IsNullOrWhiteSpace(f.SpeciesLabel) ? SpeciesLabel : f.SpeciesLabel,
+            Kind = f.Kind ?? Kind,
+            LevelOfTheory = string.IsNullOrWhiteSpace(f.LevelOfTheory) ? LevelOfTheory : f.LevelOfTheory,
+            Charge = f.Charge ?? Charge,
+            Multiplicity = f.Multiplicity ?? Multiplicity,
+            ScanAtoms = f.ScanAtoms is { Count: > 0 } ? f.ScanAtoms : ScanAtoms,
+        }
+        : this;
 }
+
+/// <summary>What one single file is: its species, kind, level of theory, charge, multiplicity and, for a scan, its coordinate's 1-based atoms.</summary>
+public sealed record FileChoices(string? SpeciesLabel = null, CalculationKind? Kind = null, string? LevelOfTheory = null, int? Charge = null,
+    int? Multiplicity = null, IReadOnlyList<int>? ScanAtoms = null);
 
 /// <summary>Where an issue was found: file, 1-based line or JSON path (any may be absent), and what is wrong.</summary>
 public sealed record UploadIssue(string FileName, int? Line, string? JsonPath, string Message, bool IsError = true)

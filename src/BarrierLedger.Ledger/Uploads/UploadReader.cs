@@ -50,8 +50,8 @@ public static class UploadReader
                 draft.Issues.Add(new UploadIssue(f.FileName, null, null, "not named by the bundle and not a data file; not read and not stored", IsError: false));
                 continue;
             }
-            if (format == FileFormat.Xyz) ReadXyz(f, choices, limits, draft);
-            else SingleFileFormats.Read(f, format, choices, limits, draft);
+            if (format == FileFormat.Xyz) ReadXyz(f, choices.For(f.FileName), limits, draft);
+            else SingleFileFormats.Read(f, format, choices.For(f.FileName), limits, draft);
         }
         return draft;
     }
@@ -129,9 +129,10 @@ public static class UploadReader
     {
         var saddle = choices.IrcOf!.Trim();
         string? level = null;
-        if (!string.IsNullOrWhiteSpace(choices.LevelOfTheory))
+        var levelText = xyz.Count > 0 ? choices.For(xyz[0].FileName).LevelOfTheory : choices.LevelOfTheory;
+        if (!string.IsNullOrWhiteSpace(levelText))
         {
-            if (LevelOfTheory.TryParse(choices.LevelOfTheory, out var lt, out var error)) level = lt.ToString();
+            if (LevelOfTheory.TryParse(levelText, out var lt, out var error)) level = lt.ToString();
             else
             {
                 draft.Issues.Add(new UploadIssue(xyz.FirstOrDefault()?.FileName ?? "(upload)", null, null, $"level of theory: {error}"));
