@@ -5,26 +5,35 @@
 namespace BarrierLedger.Ledger.Migrations.Sqlite
 {
     /// <inheritdoc />
-    public partial class CalculationConformer : Migration
+    public partial class EnergyUncertainty : Migration
     {
         /// <inheritdoc />
         protected override void Up(MigrationBuilder migrationBuilder)
         {
             migrationBuilder.AddColumn<string>(
-                name: "Conformer",
-                table: "Calculations",
+                name: "UncertaintyByLevel",
+                table: "EnergyModels",
                 type: "TEXT",
-                maxLength: 100,
                 nullable: false,
                 defaultValue: "");
+
+            migrationBuilder.AddColumn<double>(
+                name: "UncertaintyKcalPerMol",
+                table: "EnergyModels",
+                type: "REAL",
+                nullable: true);
         }
 
         /// <inheritdoc />
         protected override void Down(MigrationBuilder migrationBuilder)
         {
             migrationBuilder.DropColumn(
-                name: "Conformer",
-                table: "Calculations");
+                name: "UncertaintyByLevel",
+                table: "EnergyModels");
+
+            migrationBuilder.DropColumn(
+                name: "UncertaintyKcalPerMol",
+                table: "EnergyModels");
         }
     }
 }
