@@ -93,15 +93,15 @@ internal static class LedgerEndpoints
         return Results.Text(Csv(rows), "text/csv; charset=utf-8", Encoding.UTF8);
     }
 
-    /// <summary>RFC 4180 CSV, invariant culture, energies in kcal/mol; a stale or inconsistent row says so in its own columns.</summary>
+    /// <summary>RFC 4180 CSV, invariant culture, energies in kcal/mol; a stale or inconsistent row says so in its own columns; text cells neutralised (<see cref="BarrierLedger.Ledger.Export.CsvCells"/>).</summary>
     internal static string Csv(IReadOnlyList<ApiLedgerRow> rows)
     {
         static string F(double? v) => v?.ToString("R", CultureInfo.InvariantCulture) ?? "";
-        static string Q(string s) => s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"") + "\"" : s;
+        static string Q(string s) => BarrierLedger.Ledger.Export.CsvCells.Field(s);
         var sb = new StringBuilder("reaction_id,label,barrier_gibbs_kcal_mol,reaction_gibbs_kcal_mol,barrier_electronic_kcal_mol,rate_constant_per_s,half_life_s,temperature_k,verdict,review_status,level_of_theory,consistent,stale,reasons\r\n");
         foreach (var r in rows)
             sb.Append(string.Join(',', r.ReactionId.ToString(CultureInfo.InvariantCulture), Q(r.Label), F(r.BarrierGibbsKcalPerMol), F(r.ReactionGibbsKcalPerMol),
-                F(r.BarrierElectronicKcalPerMol), F(r.RateConstantPerSecond), F(r.HalfLifeSeconds), F(r.TemperatureKelvin), r.Verdict ?? "", r.ReviewStatus ?? "",
+                F(r.BarrierElectronicKcalPerMol), F(r.RateConstantPerSecond), F(r.HalfLifeSeconds), F(r.TemperatureKelvin), Q(r.Verdict ?? ""), Q(r.ReviewStatus ?? ""),
                 Q(r.LevelOfTheory), r.Consistent ? "yes" : "no", r.Stale ? "yes" : "no", Q(string.Join("; ", r.ConsistencyReasons.Select(c => c.Message))))).Append("\r\n");
         return sb.ToString();
     }
