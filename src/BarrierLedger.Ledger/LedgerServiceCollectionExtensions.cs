@@ -46,6 +46,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<IsotopeEffects.IsotopeEffectService>();
         services.AddSingleton<RecordService>();
         services.AddSingleton<Reactions.ReactionBuilderService>();
+        services.AddSingleton<Reactions.ReactionBundleService>();
         services.AddSingleton<BackupService>();
         return services;
     }
