@@ -72,8 +72,10 @@ public sealed class DerivationService(TimeProvider time)
         var q = db.ReactionStates.AsNoTracking().Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired
                                                              && studyIds.Contains(s.Reaction.StudyId));
         if (reactionIds is not null) q = q.Where(s => EF.Parameter(reactionIds).Contains(s.ReactionId));
-        var states = await q.Select(s => new
+        var states = await q.OrderBy(s => s.Id).Select(s => new
         {
+            StateId = s.Id,
+            s.Reaction!.StudyId,
             CalcId = s.SaddleCalculationId!.Value,
             SpeciesId = s.SaddleCalculation!.SpeciesId,
             Pairs = s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new { p.AtomA, p.AtomB }).ToList(),
@@ -90,11 +92,14 @@ public sealed class DerivationService(TimeProvider time)
             .Select(c => new { c.Id, c.CalculationId, c.InputFingerprint }).ToDictionaryAsync(c => c.CalculationId, ct);
 
         var rerun = new List<int>();
+        var minima = new Dictionary<int, StudyMinima>();
         foreach (var s in byCalc)
         {
             var pairs = s.Pairs.Select(p => (p.AtomA, p.AtomB)).ToArray();
             scans.TryGetValue(s.SpeciesId, out var scanInfo);
-            var fingerprint = CheckRunner.Fingerprint(s.CalcId, pairs, scanInfo?.Id, scanInfo?.Count, model);
+            if (!minima.TryGetValue(s.StudyId, out var study)) minima[s.StudyId] = study = await StudyMinima.LoadAsync(db, s.StudyId, ct);
+            var connection = await ConnectionInputs.LoadAsync(db, study, s.StateId, s.CalcId, ct);
+            var fingerprint = CheckRunner.Fingerprint(s.CalcId, pairs, scanInfo?.Id, scanInfo?.Count, model, connection.Fingerprint);
             stored.TryGetValue(s.CalcId, out var current);
             if (!force && current is not null && current.InputFingerprint == fingerprint) continue;
 
@@ -108,7 +113,7 @@ public sealed class DerivationService(TimeProvider time)
                     .Select(p => new ScanPointRecord { Index = p.Index, Coordinate = p.Coordinate, EnergyHartree = p.EnergyHartree, Converged = p.Converged })
                     .ToListAsync(ct);
             }
-            var input = CheckRunner.FromStored(calc, calc.Species!, pairs, scan, points);
+            var input = CheckRunner.FromStored(calc, calc.Species!, pairs, scan, points) with { Connection = connection };
             var (verdict, reasons, evidence) = CheckRunner.Run(input, model);
             var check = new FrequencyCheck
             {
