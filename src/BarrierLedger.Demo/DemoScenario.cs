@@ -16,7 +16,7 @@ namespace BarrierLedger.Demo;
 /// imaginary frequencies: needs attention.</item>
 /// <item>IX: iodide-catalysed exchange of chloride for fluoride on a methyl group: two saddle points through iodomethane, the
 /// iodide catalyst appearing in several states.</item>
-/// <item>HF: HF elimination from fluoroethane, where the stored "saddle point" is the eclipsed rotamer: its imaginary mode is a
+/// <item>EL: elimination of hydrogen fluoride from fluoroethane, where the stored "saddle point" is the eclipsed rotamer: its imaginary mode is a
 /// methyl turn that moves none of the declared bonds. Fails.</item>
 /// <item>CB: conrotatory ring opening of cyclobutene; its relaxed scan has a jump where a CH2 group flips.</item>
 /// <item>KE: 1,3-hydrogen shift from acetaldehyde to vinyl alcohol; vinyl alcohol comes from another protocol (def2-TZVP
@@ -40,7 +40,7 @@ public static class DemoScenario
         "Protocol as written on the calculations: geometries and Hessians at wB97X-D/def2-SVP in the gas phase; electronic energies " +
         "from single points at revDSD-PBEP86-D4/def2-QZVPP with a continuum model of acetonitrile. " +
         "The six reactions are chosen to show every check: DA passes and can be verified; MT needs attention (two soft methyl " +
-        "rotations); IX is a two-step pathway with a catalyst; HF fails (the stored saddle point is a rotamer); CB has a relaxed " +
+        "rotations); IX is a two-step pathway with a catalyst; EL fails (the stored saddle point is a rotamer); CB has a relaxed " +
         "scan with a jump; KE mixes levels of theory (vinyl alcohol was computed with def2-TZVP geometries).";
 
     private static double Kcal(double x) => Energy.FromKcalPerMol(x).Hartree;
@@ -122,9 +122,9 @@ public static class DemoScenario
             iodomethane + fluoride + Kcal(16.4), 70.0);
         Add("fluoromethane", "fluoromethane", DemoStructures.Fluoromethane, min, plain, chloromethane + fluoride + Kcal(-24.8) - chloride, 2.6);
 
-        // HF: fluoroethane → ethylene + HF; the stored saddle point is the eclipsed rotamer.
+        // EL: fluoroethane → ethylene + hydrogen fluoride; the stored saddle point is the eclipsed rotamer.
         Add("fluoroethane", "fluoroethane", DemoStructures.Fluoroethane(180), min, plain, fluoroethane, 2.3);
-        Add("TS-HF", "ts-hf", DemoStructures.Fluoroethane(0), ts,
+        Add("TS-EL", "ts-el", DemoStructures.Fluoroethane(0), ts,
             new ForceFieldSpec(Torsions: [new TorsionCurvature(0, 1, -0.105)]),
             fluoroethane + Kcal(3.2), 2.3,
             note: "Optimised from a guess with the methyl hydrogen eclipsing fluorine.");
@@ -172,11 +172,11 @@ public static class DemoScenario
                 DemoState.Saddle("TS2", "TS-IX2", ["chloride"], (1, 3), (1, 2)),
                 DemoState.Minimum("fluoromethane + chloride + iodide", "fluoromethane", "chloride", "iodide"),
             ]),
-            new("HF", "HF elimination from fluoroethane through a four-membered ring. The stored saddle point is the eclipsed " +
+            new("EL", "Elimination of hydrogen fluoride from fluoroethane through a four-membered ring. The stored saddle point is the eclipsed " +
                       "rotamer: its imaginary mode turns the methyl group and moves none of the declared bonds, so the check fails.",
             [
                 DemoState.Minimum("fluoroethane", "fluoroethane"),
-                DemoState.Saddle("TS", "TS-HF", [], (1, 3), (2, 6), (3, 6)),
+                DemoState.Saddle("TS", "TS-EL", [], (1, 3), (2, 6), (3, 6)),
                 DemoState.Minimum("ethylene + hydrogen fluoride", "ethylene", "hydrogen fluoride"),
             ]),
             new("CB", "Conrotatory ring opening of cyclobutene to butadiene. The relaxed scan along C3–C4 jumps between two points " +
@@ -210,7 +210,7 @@ public static class DemoScenario
         ("DA", "clean saddle point with a clean relaxed scan (C1–C6, 3.2 → 1.9 Å)", "Passed: one imaginary mode on C1–C6 and C4–C5, at the scan maximum", "Passed"),
         ("MT", "soft imaginary modes from methyl rotors", "Needs attention: reaction mode on N1–C2/C2–Cl3 plus two small imaginary N-methyl turns", "Passed"),
         ("IX", "two-step pathway with a catalyst (iodide) in several states", "Passed for TS1 and TS2", "Passed"),
-        ("HF", "a saddle point that is not the reaction", "Failed: the significant mode turns the methyl group; C1–F3, C2–H6, F3–H6 do not move", "Passed"),
+        ("EL", "a saddle point that is not the reaction", "Failed: the significant mode turns the methyl group; C1–F3, C2–H6, F3–H6 do not move", "Passed"),
         ("CB", "relaxed scan with a jump (C3–C4, between 2.6 and 2.7 Å a CH2 group flips)", "Passed (the scan is flagged, not the saddle point)", "Passed"),
         ("KE", "barrier mixing levels of theory (one state at another level)", "Passed", "Failed: vinyl alcohol was optimised and single-pointed on def2-TZVP geometries"),
     ];

@@ -97,7 +97,7 @@ public static class DemoWriter
                 {
                     var saddle = study.Species.Single(x => x.Label == st.Terms[0].Species);
                     state["calculation"] = OptLabel(saddle);
-                    state["reaction_coordinate"] = new JsonArray([.. st.ReactionCoordinate.Select(p => (JsonNode)new JsonArray(p.First, p.Second))]);
+                    state["reacting_bonds"] = new JsonArray([.. st.ReactionCoordinate.Select(p => (JsonNode)new JsonArray(p.First, p.Second))]);
                 }
                 states.Add(state);
             }

@@ -34,6 +34,7 @@ public static class LedgerServiceCollectionExtensions
         services.TryAddSingleton(new WorkLeaseOptions());
         services.AddSingleton<WorkLeaseStore>();
         services.AddSingleton<AuditService>();
+        services.AddSingleton<Accounts.AccountAccess>();
         services.AddSingleton<DerivationService>();
         services.AddSingleton<UploadService>();
         services.AddSingleton<RecomputeService>();
@@ -45,6 +46,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<IsotopeEffects.IsotopeEffectService>();
         services.AddSingleton<RecordService>();
         services.AddSingleton<Reactions.ReactionBuilderService>();
+        services.AddSingleton<Reactions.ReactionBundleService>();
         services.AddSingleton<BackupService>();
         return services;
     }

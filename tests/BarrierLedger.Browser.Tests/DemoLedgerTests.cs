@@ -75,10 +75,10 @@ public class DemoLedgerTests
         await File.WriteAllTextAsync(broken, "3\nenergy=-76.4\nO 0.0 0.0 0.0\nH 0.0 0.76\nH 0.0 -0.76 0.59\n");
         await Flows.OpenAsync(page, app.BaseUrl + "/upload");
         await page.GetByLabel("Study").FillAsync("Broken upload study");
-        await page.GetByLabel("Species label").FillAsync("water");
-        await page.GetByLabel("Kind").SelectOptionAsync("Minimum");
-        await page.GetByLabel("Level of theory").FillAsync("wB97X-D/def2-SVP");
         await page.Locator("#files").SetInputFilesAsync(broken);
+        await page.GetByLabel("Kind of broken.xyz").SelectOptionAsync("Minimum");
+        await page.GetByLabel("Level of theory of broken.xyz").FillAsync("wB97X-D/def2-SVP");
+        await page.GetByLabel("Species label for broken.xyz").FillAsync("water");
         var errors = page.GetByTestId("upload-errors");
         await Assertions.Expect(errors).ToContainTextAsync("broken.xyz, line 4");
         await Assertions.Expect(page.GetByRole(AriaRole.Button, new() { Name = "Store" })).ToBeDisabledAsync();

@@ -44,7 +44,7 @@ public class ExportCommandTests
     {
         using var temp = new TempDir();
         var path = Path.Combine(temp.Path, "t.csv");
-        var (code, output, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--format", "csv", "--columns", "reaction,step,dG,review", "--out", path);
+        var (code, output, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--format", "csv", "--columns", "reaction,step,barrier-dG,review", "--out", path);
         Assert.True(code == 0, err);
         Assert.Contains("wrote", output);
         using var reader = CsvReader.FromFile(path, new CsvReaderOptions { CommentPrefix = '#' });
@@ -68,6 +68,20 @@ public class ExportCommandTests
         foreach (var f in new[] { "barriers.csv", "barriers.xlsx", "barriers.tex", "barriers.md", "diagram.svg", "diagram.png", "coordinates.txt" })
             Assert.True(new FileInfo(Path.Combine(temp.Path, f)).Length > 500, f);
         System.Xml.Linq.XDocument.Load(Path.Combine(temp.Path, "diagram.svg"));
+    }
+
+    // "dG" (a barrier) beside "dGr" (a reaction energy) read alike; the first names still work for one release.
+    [Fact]
+    public void ExportTable_DeprecatedColumnName_StillWorks_WithADeprecationLine()
+    {
+        using var temp = new TempDir();
+        var path = Path.Combine(temp.Path, "t.csv");
+        var (code, _, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--format", "csv", "--columns", "reaction,dGr", "--out", path);
+        Assert.True(code == 0, err);
+        Assert.Contains("--columns 'dGr' is deprecated", err);
+        Assert.Contains("use 'reaction-dG'", err);
+        using var reader = CsvReader.FromFile(path, new CsvReaderOptions { CommentPrefix = '#' });
+        Assert.Equal(["Reaction", "ΔG_r (kcal/mol)", "Note", "Note text"], reader.Headers);
     }
 
     [Fact]

@@ -66,7 +66,7 @@ public class DemoShowcaseTests
         { "IX", "TS1", Verdict.Passed, SaddleCheckCodes.ReactionMode },
         { "IX", "TS2", Verdict.Passed, SaddleCheckCodes.ReactionMode },
         // The stored structure is the eclipsed rotamer: its one significant mode is a methyl turn, not C–F/H–F.
-        { "HF", "TS", Verdict.Failed, SaddleCheckCodes.ModeMissesReactionBond },
+        { "EL", "TS", Verdict.Failed, SaddleCheckCodes.ModeMissesReactionBond },
         // The saddle point itself is fine (the jump is in the scan, on the product side of the maximum).
         { "CB", "TS", Verdict.Passed, SaddleCheckCodes.NearScanMaximum },
         // A clean hydrogen-transfer mode; what is wrong in KE is the levels of theory, not the saddle point.
@@ -96,7 +96,7 @@ public class DemoShowcaseTests
     public void The_failing_saddle_point_turns_the_methyl_group_about_C1_C2()
     {
         // Not reported as rotor-like: the declared F3–H6 pair closes a ring through the methyl hydrogen H6.
-        var result = Check("HF", "TS");
+        var result = Check("EL", "TS");
         Assert.Equal(ModeClass.Torsion, result.SignificantCharacter!.Class);
         Assert.Equal("torsion about C1–C2", result.SignificantCharacter.Components[0].Label);
         Assert.True(Math.Abs(result.SignificantMode!.FrequencyCm1) >= 100);
@@ -122,7 +122,7 @@ public class DemoShowcaseTests
         { "DA", Verdict.Passed },
         { "MT", Verdict.Passed },
         { "IX", Verdict.Passed },     // CH3ClFI, charge −2 in every state, although the species differ
-        { "HF", Verdict.Passed },     // the frequency check fails, the energies are still consistent
+        { "EL", Verdict.Passed },     // the frequency check fails, the energies are still consistent
         { "CB", Verdict.Passed },
         { "KE", Verdict.Failed },     // vinyl alcohol's single point sits on a def2-TZVP geometry: two electronic levels
     };
@@ -211,7 +211,7 @@ public class DemoShowcaseTests
     {
         // Invented energies, but within the usual range for such reactions (common practice, no source): 10–70 kcal/mol
         // above the preceding minimum, and every saddle point above both neighbours.
-        foreach (var r in Bundle.Reactions.Where(r => r.Label != "HF"))
+        foreach (var r in Bundle.Reactions.Where(r => r.Label != "EL"))
         {
             var p = PathwayOf(r.Label);
             for (var i = 1; i < p.States.Count - 1; i++)

@@ -49,7 +49,7 @@ internal static class ExportCommand
         {
             var studyId = await ResolveStudyAsync(services, pr.GetValue(study), ct);
             var ids = await ResolveReactionsAsync(services, studyId, pr.GetValue(reactions), ct);
-            var options = new TableOptions(ParseColumns(pr.GetValue(columns)), ParseUnit(pr.GetValue(unit)), pr.GetValue(decimals));
+            var options = new TableOptions(ParseColumns(pr.GetValue(columns), ctx.Err), ParseUnit(pr.GetValue(unit)), pr.GetValue(decimals));
             var file = await services.GetRequiredService<ExportService>().TableAsync(studyId, ids, ParseFormat(pr.GetValue(format)!), options, ct);
             Write(ctx, pr.GetValue(output)!, file.Content);
             return ExitCodes.Ok;
@@ -149,10 +149,10 @@ internal static class ExportCommand
     {
         ["reaction"] = ExportColumn.Reaction,
         ["step"] = ExportColumn.Step,
-        ["dE"] = ExportColumn.BarrierElectronic,
-        ["dH"] = ExportColumn.BarrierEnthalpy,
-        ["dG"] = ExportColumn.BarrierGibbs,
-        ["dGr"] = ExportColumn.ReactionGibbs,
+        ["barrier-dE"] = ExportColumn.BarrierElectronic,
+        ["barrier-dH"] = ExportColumn.BarrierEnthalpy,
+        ["barrier-dG"] = ExportColumn.BarrierGibbs,
+        ["reaction-dG"] = ExportColumn.ReactionGibbs,
         ["k"] = ExportColumn.RateConstant,
         ["half-life"] = ExportColumn.HalfLife,
         ["imaginary"] = ExportColumn.ImaginaryFrequency,
@@ -161,14 +161,32 @@ internal static class ExportCommand
         ["level"] = ExportColumn.LevelOfTheory,
     };
 
+    /// <summary>
+    /// The first column names, where "dG" (a barrier) beside "dGr" (a reaction energy) read alike: still accepted for one
+    /// release, with a deprecation line on stderr.
+    /// </summary>
+    internal static readonly IReadOnlyDictionary<string, string> DeprecatedColumnNames = new Dictionary<string, string>(StringComparer.OrdinalIgnoreCase)
+    {
+        ["dE"] = "barrier-dE",
+        ["dH"] = "barrier-dH",
+        ["dG"] = "barrier-dG",
+        ["dGr"] = "reaction-dG",
+    };
+
     private static string ColumnName(ExportColumn c) => ColumnNames.First(kv => kv.Value == c).Key;
 
-    private static IReadOnlyList<ExportColumn> ParseColumns(string? text)
+    private static IReadOnlyList<ExportColumn> ParseColumns(string? text, TextWriter err)
     {
         if (string.IsNullOrWhiteSpace(text)) return TableOptions.DefaultColumns;
         var list = new List<ExportColumn>();
-        foreach (var t in text.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries))
+        foreach (var given in text.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries))
         {
+            var t = given;
+            if (DeprecatedColumnNames.TryGetValue(t, out var renamed))
+            {
+                err.WriteLine($"barrierledger: --columns '{t}' is deprecated and will be removed in the next release; use '{renamed}'");
+                t = renamed;
+            }
             if (!ColumnNames.TryGetValue(t, out var c)) throw new UsageException($"--columns: unknown column '{t}'; choose from {string.Join(", ", ColumnNames.Keys)}");
             if (list.Contains(c)) throw new UsageException($"--columns: '{t}' is listed twice");
             list.Add(c);

@@ -23,7 +23,7 @@ internal static class ThermoCommand
         standardState.AcceptOnlyFromAmong("1atm", "1bar", "1M");
         var lowModes = new Option<string>("--low-modes")
         {
-            Description = "Treatment of low vibrational modes: harmonic (RRHO), entropy (quasi-RRHO entropy, Grimme 2012) or entropy-enthalpy (also the quasi-RRHO enthalpy of Li, Head-Gordon et al. 2015), the energy model's choices",
+            Description = "Treatment of low vibrational modes, the energy model's choices: harmonic (RRHO), entropy (low-mode entropy interpolated towards a free rotor; Grimme 2012) or entropy-enthalpy (low-mode entropy and enthalpy interpolated; Grimme 2012; Li et al. 2015)",
             DefaultValueFactory = _ => "harmonic",
         };
         lowModes.AcceptOnlyFromAmong([.. LowModeNames.All]);

@@ -183,8 +183,8 @@ public static class SaddleCheck
                     var declared = string.Join(", ", bonds.Select(b => new Bond(b.A, b.B).Label(mol)));
                     reasons.Add(new(SaddleCheckCodes.ModeMissesReactionBond, CheckSeverity.Failure,
                         $"The imaginary mode {Wave(significant[0].Mode)} mainly moves {string.Join(", ", leading.Select(c => c.Label))}; " +
-                        $"none of the declared reaction bonds ({declared}) is among its leading motions. This saddle point belongs to a different " +
-                        "motion than the reaction, or the reaction bonds are declared wrongly." + DistanceSentence(character)));
+                        $"none of the declared forming/breaking bonds ({declared}) is among its leading motions. This saddle point belongs to a different " +
+                        "motion than the reaction, or the forming/breaking bonds are declared wrongly." + DistanceSentence(character)));
                 }
             }
         }

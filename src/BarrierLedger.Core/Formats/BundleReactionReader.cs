@@ -87,10 +87,18 @@ internal static class BundleReactionReader
         if (calc is not null && kind == BundleStateKind.SaddlePoint && calc.Kind is not (CalculationKind.SaddlePoint or CalculationKind.Frequencies or CalculationKind.SinglePoint))
             issues.WarningAt(JsonInput.Child(p, "calculation"), $"calculation '{calc.Label}' is of kind {calc.Kind}, not a saddle point");
         var pairs = new List<BundleAtomPair>();
-        if (j.Array(s, p, "reaction_coordinate", required: false) is { } rc)
+        // "reacting_bonds" (the forming and breaking atom pairs); "reaction_coordinate" is the name format_version 1 bundles were
+        // first written with: still read, never written, and not both at once.
+        var bondsKey = s.TryGetProperty("reacting_bonds", out _) ? "reacting_bonds" : "reaction_coordinate";
+        if (bondsKey == "reacting_bonds" && s.TryGetProperty("reaction_coordinate", out _))
         {
-            var rcp = JsonInput.Child(p, "reaction_coordinate");
-            if (kind != BundleStateKind.SaddlePoint) { issues.ErrorAt(rcp, "only a saddle_point state has a reaction coordinate"); ok = false; }
+            issues.ErrorAt(JsonInput.Child(p, "reaction_coordinate"), "gives the reacting bonds a second time beside 'reacting_bonds' (its older name); keep one");
+            ok = false;
+        }
+        if (j.Array(s, p, bondsKey, required: false) is { } rc)
+        {
+            var rcp = JsonInput.Child(p, bondsKey);
+            if (kind != BundleStateKind.SaddlePoint) { issues.ErrorAt(rcp, "only a saddle_point state has forming/breaking bonds"); ok = false; }
             var atoms = calc?.Geometry?.AtomCount;
             var k = 0;
             foreach (var pair in rc.EnumerateArray())

@@ -22,7 +22,7 @@ public static class BundleSchema
     /// <summary>Keys the reader knows for each object of the manifest, by the schema's $defs name ("bundle" is the root). Unknown keys get a warning.</summary>
     public static readonly ImmutableDictionary<string, ImmutableArray<string>> KnownKeys = new Dictionary<string, ImmutableArray<string>>
     {
-        ["bundle"] = ["format", "format_version", "study", "species", "calculations", "reactions", "scans"],
+        ["bundle"] = ["format", "format_version", "study", "species", "calculations", "reactions", "scans", "ircs"],
         ["study"] = ["name", "description"],
         ["species"] = ["label", "charge", "multiplicity", "symmetry_number"],
         ["calculation"] = ["label", "species", "kind", "level_of_theory", "energy_hartree", "file", "geometry", "frequencies_cm1", "modes",
@@ -33,11 +33,13 @@ public static class BundleSchema
         ["mode"] = ["frequency_cm1", "displacements", "reduced_mass_da", "force_constant_n_per_m", "reduced_mass_amu", "force_constant_mdyn_per_angstrom"],
         ["thermal_corrections"] = ["temperature_kelvin", "zero_point_hartree", "enthalpy_hartree", "gibbs_hartree"],
         ["reaction"] = ["label", "description", "states"],
-        ["state"] = ["label", "kind", "terms", "calculation", "reaction_coordinate"],
+        // reaction_coordinate is the first name of reacting_bonds: still read, never written.
+        ["state"] = ["label", "kind", "terms", "calculation", "reacting_bonds", "reaction_coordinate"],
         ["term"] = ["species", "coefficient"],
         ["scan"] = ["label", "species", "level_of_theory", "coordinate", "points", "points_file", "energy_unit", "geometries_file"],
         ["coordinate"] = ["kind", "atoms"],
         ["point"] = ["coordinate", "energy_hartree", "converged"],
+        ["irc"] = ["label", "saddle_point", "level_of_theory", "path_file", "forward_file", "backward_file"],
     }.ToImmutableDictionary();
 
     /// <summary>Calculation kinds as written in the manifest.</summary>

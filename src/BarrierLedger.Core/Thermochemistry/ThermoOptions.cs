@@ -81,6 +81,38 @@ public static class LowModeNames
         return ok;
     }
 
+    /// <summary>
+    /// What the treatment does, in words of our own, for banners, headers, the supporting information and the command line:
+    /// "harmonic (RRHO)", "low-mode entropy interpolated (ω₀ = 100 cm⁻¹)", "low-mode entropy and enthalpy interpolated
+    /// (ω₀ = 100 cm⁻¹)". The published methods are named by <see cref="Reference"/>.
+    /// </summary>
+    public static string Describe(ThermoTreatment treatment, double cutoffCm1) => treatment switch
+    {
+        ThermoTreatment.Rrho => "harmonic (RRHO)",
+        ThermoTreatment.QuasiRrhoEntropy => $"low-mode entropy interpolated (ω₀ = {Cutoff(cutoffCm1)} cm⁻¹)",
+        ThermoTreatment.QuasiRrhoEntropyAndEnthalpy => $"low-mode entropy and enthalpy interpolated (ω₀ = {Cutoff(cutoffCm1)} cm⁻¹)",
+        _ => throw new ArgumentOutOfRangeException(nameof(treatment), treatment, "Unknown treatment."),
+    };
+
+    /// <summary>Short citation for a tooltip or a column note: "", "Grimme 2012", "Grimme 2012; Li et al. 2015".</summary>
+    public static string ShortReference(ThermoTreatment treatment) => treatment switch
+    {
+        ThermoTreatment.Rrho => "",
+        ThermoTreatment.QuasiRrhoEntropy => "Grimme 2012",
+        _ => "Grimme 2012; Li et al. 2015",
+    };
+
+    /// <summary>The published method with all authors, for an export footnote; empty for the harmonic treatment.</summary>
+    public static string Reference(ThermoTreatment treatment) => treatment switch
+    {
+        ThermoTreatment.Rrho => "",
+        ThermoTreatment.QuasiRrhoEntropy => "Low-mode entropy: S. Grimme, Chem. Eur. J. 2012, 18, 9955.",
+        _ => "Low-mode entropy: S. Grimme, Chem. Eur. J. 2012, 18, 9955. Low-mode enthalpy: Y.-P. Li, J. Gomes, S. M. Sharada, " +
+             "A. T. Bell and M. Head-Gordon, J. Phys. Chem. C 2015, 119, 1840 (Li et al. 2015).",
+    };
+
+    private static string Cutoff(double cm1) => cm1.ToString("0.#", System.Globalization.CultureInfo.InvariantCulture);
+
     /// <summary>As <see cref="TryParse"/>; throws <see cref="ArgumentException"/> naming the accepted words.</summary>
     public static ThermoTreatment Parse(string name) => TryParse(name, out var t)
         ? t : throw new ArgumentException($"'{name}' is not a low-mode treatment; use {string.Join(", ", All)}.", nameof(name));

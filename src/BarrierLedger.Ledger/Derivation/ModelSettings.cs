@@ -68,7 +68,7 @@ public sealed record ModelSettings(
     public ThermoOptions ThermoOptions(int symmetryNumber) => new(TemperatureKelvin, SymmetryNumber: Math.Max(1, symmetryNumber),
         Treatment: Treatment, QuasiRrhoCutoffCm1: QuasiRrhoCutoffCm1, StandardState: StandardState);
 
-    /// <summary>"ωB97X-D/def2-TZVP, 298.15 K, 1 mol/L, quasi-RRHO (S, 100 cm⁻¹)" for banners and captions.</summary>
+    /// <summary>"Energies: …; 298.15 K; standard state 1 mol/L; low-mode entropy interpolated (ω₀ = 100 cm⁻¹)" for banners and captions.</summary>
     public string Describe()
     {
         var level = EnergyLevel.Length == 0 ? "each state's own calculation" : EnergyLevel;
@@ -79,12 +79,7 @@ public sealed record ModelSettings(
             StandardState.Gas1Bar => "1 bar",
             _ => "1 atm",
         };
-        var treatment = Treatment switch
-        {
-            ThermoTreatment.Rrho => "RRHO",
-            ThermoTreatment.QuasiRrhoEntropy => $"quasi-RRHO entropy (cut-off {Num(QuasiRrhoCutoffCm1)} cm⁻¹)",
-            _ => $"quasi-RRHO entropy and enthalpy (cut-off {Num(QuasiRrhoCutoffCm1)} cm⁻¹)",
-        };
+        var treatment = LowModeNames.Describe(Treatment, QuasiRrhoCutoffCm1);
         var tunnelling = Tunnelling == TunnellingCorrection.Wigner ? ", Wigner tunnelling" : "";
         return $"Energies: {level}{thermal}; {Num(TemperatureKelvin)} K; standard state {state}; {treatment}{tunnelling}";
     }

@@ -30,21 +30,18 @@ public sealed record ExportModel(
         _ => StandardState.ToString(),
     };
 
-    /// <summary>"RRHO", "quasi-RRHO entropy (Grimme, cut-off 100 cm⁻¹)", …</summary>
-    public string TreatmentText => Treatment switch
-    {
-        ThermoTreatment.Rrho => "RRHO (rigid rotor, harmonic oscillator)",
-        ThermoTreatment.QuasiRrhoEntropy => $"quasi-RRHO entropy (Grimme), cut-off {QuasiRrhoCutoffCm1:0.#} cm⁻¹",
-        ThermoTreatment.QuasiRrhoEntropyAndEnthalpy => $"quasi-RRHO entropy and enthalpy (Grimme; Li, Head-Gordon), cut-off {QuasiRrhoCutoffCm1:0.#} cm⁻¹",
-        _ => Treatment.ToString(),
-    };
+    /// <summary>What the low-mode treatment does (<see cref="LowModeNames.Describe"/>); its published source is <see cref="TreatmentReference"/>.</summary>
+    public string TreatmentText => LowModeNames.Describe(Treatment, QuasiRrhoCutoffCm1);
+
+    /// <summary>The published low-mode method with all authors, or empty for the harmonic treatment.</summary>
+    public string TreatmentReference => LowModeNames.Reference(Treatment);
 
     /// <summary>Lines stating the model, in the order every format prints them.</summary>
     public IReadOnlyList<string> Lines(EnergyUnit unit) =>
     [
         $"Level of theory (single point // geometry): {LevelOfTheory}",
         $"Temperature: {TemperatureKelvin:0.##} K; standard state: {StandardStateText}",
-        $"Thermochemistry: {TreatmentText}; tunnelling: {Tunnelling}",
+        $"Thermochemistry: {TreatmentText}; tunnelling: {Tunnelling}" + (TreatmentReference.Length == 0 ? "" : $" ({TreatmentReference})"),
         $"Energies in {Energy.Symbol(unit)}; k in s⁻¹ (first order; a second-order k is marked); t½ in s; imaginary frequency in cm⁻¹",
     ];
 }

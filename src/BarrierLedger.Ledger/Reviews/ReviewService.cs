@@ -110,7 +110,10 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
         return new ReviewQueueSlice(items, total);
     }
 
-    /// <summary>Signs off a saddle-point calculation. Throws <see cref="ReviewerRequiredException"/> for a non-reviewer.</summary>
+    /// <summary>
+    /// Signs off a saddle-point calculation. Throws <see cref="ReviewerRequiredException"/> for a non-reviewer, and
+    /// <see cref="ArgumentException"/> when the saddle point failed its check and no comment says why it is accepted anyway.
+    /// </summary>
     public Task<ReviewEntry> VerifyAsync(int calculationId, string reviewerUserId, string? comment, CancellationToken ct = default) =>
         DecideAsync(calculationId, reviewerUserId, comment ?? "", ReviewOutcome.Verified, ct);
 
@@ -145,6 +148,9 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
             if (calc.Kind != CalculationKind.SaddlePoint)
                 throw new ArgumentException($"Calculation '{calc.Label}' is a {calc.Kind}, not a saddle point; only saddle points are reviewed.", nameof(calculationId));
             if (calc.Retired) throw new ArgumentException($"Calculation '{calc.Label}' is retired; restore it before reviewing it.", nameof(calculationId));
+            if (outcome == ReviewOutcome.Verified && string.IsNullOrWhiteSpace(comment)
+                && await db.FrequencyChecks.AnyAsync(c => c.CalculationId == calculationId && c.Verdict == Verdict.Failed, token))
+                throw new ArgumentException($"Saddle point '{calc.Label}' failed its frequency check; verifying it needs a comment that says why it is accepted anyway.", nameof(comment));
             var previous = await db.Reviews.Where(v => v.CalculationId == calculationId).OrderByDescending(v => v.Id).Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefaultAsync(token);
             var review = new Review { CalculationId = calculationId, Outcome = outcome, Comment = comment.Trim(), ReviewerUserId = reviewerUserId, At = time.GetUtcNow() };
             db.Reviews.Add(review);

@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Vibrations;
@@ -26,9 +27,33 @@ public sealed record UploadChoices
     public int? AttachToStateId { get; init; }
     /// <summary>For a multi-frame XYZ uploaded as a relaxed scan: the scanned coordinate's atoms, 1-based (2, 3 or 4 of them).</summary>
     public IReadOnlyList<int>? ScanAtoms { get; init; }
+    /// <summary>
+    /// The label of the saddle-point calculation (in this upload or stored in the study) that the uploaded XYZ files are an IRC of:
+    /// one file is read as the path, two as the forward and backward ends (by "forward"/"backward" in their names).
+    /// </summary>
+    public string? IrcOf { get; init; }
     /// <summary>A key the caller chooses so that a retried store cannot write twice; generated when null.</summary>
     public string? UploadKey { get; init; }
+    /// <summary>Per-file choices by file name (the upload page's one row per file); what a row leaves empty falls back to the fields above.</summary>
+    public IReadOnlyDictionary<string, FileChoices>? Files { get; init; }
+
+    /// <summary>The choices that apply to one single file: its row's values over the upload-wide ones.</summary>
+    public UploadChoices For(string fileName) => Files is not null && Files.TryGetValue(fileName, out var f)
+        ? this with
+        {
+            SpeciesLabel = string.IsNullOrWhiteSpace(f.SpeciesLabel) ? SpeciesLabel : f.SpeciesLabel,
+            Kind = f.Kind ?? Kind,
+            LevelOfTheory = string.IsNullOrWhiteSpace(f.LevelOfTheory) ? LevelOfTheory : f.LevelOfTheory,
+            Charge = f.Charge ?? Charge,
+            Multiplicity = f.Multiplicity ?? Multiplicity,
+            ScanAtoms = f.ScanAtoms is { Count: > 0 } ? f.ScanAtoms : ScanAtoms,
+        }
+        : this;
 }
+
+/// <summary>What one single file is: its species, kind, level of theory, charge, multiplicity and, for a scan, its coordinate's 1-based atoms.</summary>
+public sealed record FileChoices(string? SpeciesLabel = null, CalculationKind? Kind = null, string? LevelOfTheory = null, int? Charge = null,
+    int? Multiplicity = null, IReadOnlyList<int>? ScanAtoms = null);
 
 /// <summary>Where an issue was found: file, 1-based line or JSON path (any may be absent), and what is wrong.</summary>
 public sealed record UploadIssue(string FileName, int? Line, string? JsonPath, string Message, bool IsError = true)
@@ -51,6 +76,7 @@ public sealed class UploadDraft
     public List<DraftCalculation> Calculations { get; } = [];
     public List<DraftReaction> Reactions { get; } = [];
     public List<DraftScan> Scans { get; } = [];
+    public List<DraftIrc> Ircs { get; } = [];
     /// <summary>Every original file by its key (its name, or its path inside a bundle), bytes as given.</summary>
     public Dictionary<string, byte[]> Files { get; } = new(StringComparer.Ordinal);
     /// <summary>The file a record comes from when it names none (a bundle manifest or zip).</summary>
@@ -85,3 +111,9 @@ public sealed record DraftState(string Label, StateKind Kind, IReadOnlyList<Draf
 public sealed record DraftReaction(string Label, string Description, IReadOnlyList<DraftState> States);
 
 public sealed record DraftScan(string Label, string Species, string LevelOfTheory, ScanCoordinate Coordinate, IReadOnlyList<ScanPoint> Points, string? File);
+
+/// <summary>
+/// An IRC of a saddle-point calculation named by its label (in this upload or stored in the study); <see cref="LevelOfTheory"/> null
+/// means the saddle point's. <see cref="File"/> is the path file or the forward end's, <see cref="BackwardFile"/> the backward end's.
+/// </summary>
+public sealed record DraftIrc(string Label, string SaddleCalculation, string? LevelOfTheory, IrcStructures Structures, string? File, string? BackwardFile);

@@ -57,21 +57,31 @@ public sealed class UploadService(
         ArgumentException.ThrowIfNullOrWhiteSpace(uploaderUserId);
         if (draft.Issues.Any(i => i.IsError)) return UploadOutcome.Failed(draft.Issues);
         var key = choices.UploadKey ?? Guid.NewGuid().ToString("N");
+        var content = UploadFingerprint.Of(draft.Files, choices);
         return await LedgerRetry.RunAsync(async token =>
         {
             await using var db = await factory.CreateDbContextAsync(token);
             await using var tx = await LedgerRetry.BeginWriteAsync(db, token);
-            if (await db.Uploads.AsNoTracking().FirstOrDefaultAsync(u => u.Key == key, token) is { } earlier)
-                return new UploadOutcome(true, earlier.Id, earlier.StudyId, [], [], [], [$"upload {key} was already stored"], draft.Issues);
+            // A key is the uploader's own: another user's upload under the same key is no concern of this one.
+            if (await db.Uploads.AsNoTracking().FirstOrDefaultAsync(u => u.UploaderUserId == uploaderUserId && u.Key == key, token) is { } earlier)
+            {
+                if (earlier.ContentSha256 is { } was && was != content)
+                    return UploadOutcome.Failed([]) with
+                    {
+                        KeyConflict = $"Upload key '{key}' was used by you on {earlier.At:u} for other files or choices (upload {earlier.Id}); " +
+                            "nothing was stored. Send a new key for new content; the same key only repeats the same upload.",
+                    };
+                return new UploadOutcome(true, earlier.Id, earlier.StudyId, [], [], [], [$"upload {key} was already stored"], draft.Issues) { AlreadyStored = true };
+            }
             var plan = await UploadPlan.ResolveAsync(db, draft, choices, token);
             if (plan.Issues.Any(i => i.IsError)) return UploadOutcome.Failed(plan.Issues);
-            var outcome = await WriteAsync(db, plan, key, uploaderUserId, token);
+            var outcome = await WriteAsync(db, plan, key, content, uploaderUserId, token);
             await tx.CommitAsync(token);
             return outcome;
         }, ct);
     }
 
-    private async Task<UploadOutcome> WriteAsync(LedgerDbContext db, UploadPlan plan, string key, string user, CancellationToken ct)
+    private async Task<UploadOutcome> WriteAsync(LedgerDbContext db, UploadPlan plan, string key, string content, string user, CancellationToken ct)
     {
         var now = time.GetUtcNow();
         var draft = plan.Draft;
@@ -110,7 +120,7 @@ public sealed class UploadService(
             newFiles[sha] = f;
             db.StoredFiles.Add(f);
         }
-        var upload = new Upload { Key = key, StudyId = study.Id, UploaderUserId = user, At = now, Summary = plan.Summary() };
+        var upload = new Upload { Key = key, ContentSha256 = content, StudyId = study.Id, UploaderUserId = user, At = now, Summary = plan.Summary() };
         db.Uploads.Add(upload);
         await db.SaveChangesAsync(ct);
         foreach (var f in newFiles.Values) bySha[f.Sha256] = f.Id;
@@ -162,6 +172,28 @@ public sealed class UploadService(
             await db.SaveChangesAsync(ct);
             await InsertScanPointsAsync(db, scan.Id, s.Points, ct);
             scanIds.Add(scan.Id);
+        }
+
+        // IRCs: attached to their saddle-point calculation (of this upload or stored); frames through one prepared statement.
+        var ircIds = new List<int>();
+        var ircSpecies = new List<int>();
+        foreach (var i in plan.NewIrcs)
+        {
+            var saddle = i.SaddleInUpload is { } l ? calcByLabel[l] : await db.Calculations.FirstAsync(c => c.Id == i.StoredSaddleId, ct);
+            var structures = i.Draft.Structures.Structures;
+            var irc = new Irc
+            {
+                SaddleCalculationId = saddle.Id, UploadId = upload.Id, Label = i.Draft.Label, LevelOfTheory = i.LevelOfTheory, Form = i.Draft.Structures.Form,
+                AtomCount = structures[0].Geometry.AtomCount, AtomicNumbers = Blobs.FromElements(structures[0].Geometry.Elements), SaddleFrame = i.Path?.SaddleFrame,
+                StoredFileId = (i.Draft.File ?? draft.PrimaryFile) is { } pf && fileIds.TryGetValue(pf, out var pid) ? pid : null,
+                BackwardStoredFileId = i.Draft.BackwardFile is { } bf && fileIds.TryGetValue(bf, out var bid) ? bid : null,
+                SourceSha256 = i.SourceSha, UploadedByUserId = user, UploadedAt = now,
+            };
+            db.Ircs.Add(irc);
+            await db.SaveChangesAsync(ct);
+            await InsertIrcFramesAsync(db, irc.Id, i, ct);
+            ircIds.Add(irc.Id);
+            ircSpecies.Add(saddle.SpeciesId);
         }
 
         // Reactions: new ones with their states; existing ones get their saddle points re-linked (which reopens reviews).
@@ -225,14 +257,15 @@ public sealed class UploadService(
         // would otherwise make every later save scan all it wrote).
         var newCalcIds = plan.NewCalculations.Select(c => calcByLabel[c.Draft.Label].Id).ToList();
         var touchedSpecies = plan.NewCalculations.Select(c => speciesByLabel[c.Draft.Species].Id)
-            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Concat(plan.SymmetryOverrides.Select(o => o.Species.Id)).Distinct().ToList();
+            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Concat(ircSpecies).Concat(plan.SymmetryOverrides.Select(o => o.Species.Id)).Distinct().ToList();
         db.ChangeTracker.Clear();
         await derivation.AfterInputsChangedAsync(db, study.Id, touchedSpecies, reactionIds, ct);
 
         return new UploadOutcome(true, upload.Id, study.Id, newCalcIds, reactionIds, scanIds,
             [.. plan.DuplicateCalculationIds.Select(d => $"calculation '{d.Label}' of species '{plan.Draft.Calculations.First(c => c.Label == d.Label).Species}' is already stored (same file); not stored again"),
-             .. plan.DuplicateScans.Select(s => $"scan '{s}' is already stored (same file); not stored again")],
-            plan.Issues);
+             .. plan.DuplicateScans.Select(s => $"scan '{s}' is already stored (same file); not stored again"),
+             .. plan.DuplicateIrcs.Select(i => $"IRC '{i}' is already stored for its saddle point (same file); not stored again")],
+            plan.Issues) { IrcIds = ircIds };
     }
 
     internal static async Task InsertScanPointsAsync(LedgerDbContext db, int scanId, IReadOnlyList<Core.Scans.ScanPoint> points, CancellationToken ct)
@@ -258,6 +291,32 @@ public sealed class UploadService(
             pv.Value = p.Converged;
             pp.Value = p.Geometry is { } g ? Blobs.FromPositions(g.PositionsAngstrom) : DBNull.Value;
             if (i == 0) await cmd.PrepareAsync(ct);
+            await cmd.ExecuteNonQueryAsync(ct);
+        }
+    }
+
+    private static async Task InsertIrcFramesAsync(LedgerDbContext db, int ircId, PlannedIrc irc, CancellationToken ct)
+    {
+        var connection = db.Database.GetDbConnection();
+        await using var cmd = connection.CreateCommand();
+        cmd.Transaction = db.Database.CurrentTransaction?.GetDbTransaction();
+        cmd.CommandText = "INSERT INTO \"IrcFrames\" (\"IrcId\", \"Index\", \"Role\", \"PathLengthAngstrom\", \"EnergyHartree\", \"PositionsAngstrom\") VALUES (@i, @k, @r, @l, @e, @p)";
+        var pi = StoreSql.Parameter(cmd, "@i", DbType.Int32);
+        var pk = StoreSql.Parameter(cmd, "@k", DbType.Int32);
+        var pr = StoreSql.Parameter(cmd, "@r", DbType.String);
+        var pl = StoreSql.Parameter(cmd, "@l", DbType.Double);
+        var pe = StoreSql.Parameter(cmd, "@e", DbType.Double);
+        var pp = StoreSql.Parameter(cmd, "@p", DbType.Binary);
+        pi.Value = ircId;
+        var structures = irc.Draft.Structures.Structures;
+        for (var k = 0; k < structures.Length; k++)
+        {
+            pk.Value = k;
+            pr.Value = (irc.Draft.Structures.Form == IrcForm.Path ? IrcFrameRole.Path : k == 0 ? IrcFrameRole.Forward : IrcFrameRole.Backward).ToString();
+            pl.Value = irc.Path is { } path ? path.Frames[k].Coordinate : DBNull.Value;
+            pe.Value = structures[k].EnergyHartree is { } e ? e : DBNull.Value;
+            pp.Value = Blobs.FromPositions(structures[k].Geometry.PositionsAngstrom);
+            if (k == 0) await cmd.PrepareAsync(ct);
             await cmd.ExecuteNonQueryAsync(ct);
         }
     }

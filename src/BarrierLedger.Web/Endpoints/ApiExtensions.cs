@@ -95,6 +95,7 @@ public static class ApiExtensions
             .WithSummary("The account, roles and scope this token acts with");
         UploadEndpoints.Map(api, options);
         LedgerEndpoints.Map(api);
+        ReactionEndpoints.Map(api);
         ExportApiEndpoints.Map(api);
         IsotopeEffectEndpoints.Map(api);
 

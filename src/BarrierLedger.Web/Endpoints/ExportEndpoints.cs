@@ -1,5 +1,6 @@
 using System.Globalization;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Backups;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Storage;
@@ -35,6 +36,8 @@ public static class ExportEndpoints
             await files.GetStoredFileAsync(fileId, ct) is { } f
                 ? Results.File(f.Content, "application/octet-stream", Path.GetFileName(f.FileName.Replace('!', '/')))
                 : ApiProblems.NotFound($"There is no stored file {fileId}."));
+        group.MapGet("/bundle/{reactionId:int}", (int reactionId, BarrierLedger.Ledger.Reactions.ReactionBundleService bundles, HttpContext http, CancellationToken ct) =>
+            ReactionEndpoints.BundleAsync(reactionId, bundles, http, ct));
         group.MapGet("/isotope-effects/{reactionId:int}", (int reactionId, string? format, BarrierLedger.Ledger.IsotopeEffects.IsotopeEffectService service, CancellationToken ct) =>
             IsotopeEffectEndpoints.GetAsync(reactionId, format ?? "csv", service, ct));
         endpoints.MapGet(Prefix + "/backup", BackupAsync).RequireAuthorization(Policies.Admin).ExcludeFromDescription();
@@ -78,12 +81,12 @@ public static class ExportEndpoints
         return File(format == "svg" ? svg : png);
     });
 
-    private static async Task<IResult> BackupAsync(LedgerBackupService backup, HttpContext http, CancellationToken ct)
+    private static async Task<IResult> BackupAsync(BackupService backup, HttpContext http, CancellationToken ct)
     {
         var ms = new MemoryStream();
         try
         {
-            await backup.CreateAsync(ms, ct);
+            await backup.CreateArchiveAsync(ms, ct);
         }
         catch (NotSupportedException ex) // a PostgreSQL ledger: backed up with pg_dump, not as this archive
         {

@@ -18,7 +18,7 @@ public class ModeBondPredictionTests
         { "IX", "TS2", "+1 C–F, −1 C–I" },
         { "CB", "TS", "−1 C–C" },
         { "KE", "TS", "−1 C–H, +1 H–O" },
-        { "HF", "TS", "−1 C–F, −1 C–H, +1 H–F" },
+        { "EL", "TS", "−1 C–F, −1 C–H, +1 H–F" },
     };
 
     [Theory]
@@ -53,8 +53,8 @@ public class ModeBondPredictionTests
     [Fact]
     public void The_rotamer_saddle_point_of_HF_is_caught_its_mode_forms_no_bond()
     {
-        // TS-HF is the eclipsed rotamer of fluoroethane: its imaginary mode turns the methyl group (see DemoShowcaseTests).
-        var (_, _, saddle, before, after) = DemoBundleStates.Saddles().Single(s => s.Reaction == "HF");
+        // TS-EL is the eclipsed rotamer of fluoroethane: its imaginary mode turns the methyl group (see DemoShowcaseTests).
+        var (_, _, saddle, before, after) = DemoBundleStates.Saddles().Single(s => s.Reaction == "EL");
         var p = ModeBondPrediction.Run(saddle.Geometry!, DemoBundleStates.ImaginaryMode(saddle), before, after);
         Assert.Equal(ModePredictionOutcome.Disagrees, p.Outcome);
         Assert.Empty(p.PlusOnly);

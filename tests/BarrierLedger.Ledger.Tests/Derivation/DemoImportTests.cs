@@ -40,7 +40,7 @@ public sealed class DemoImportTests
         // A two-step pathway whose spectator species (fluoride, iodide, chloride) must each keep their own energy:
         // before the fix the saddle point's energy was used for every species of its state (a barrier of −697 Eh).
         Assert.True(rows["IX"].Consistent, string.Join(" ", rows["IX"].ConsistencyReasons.Select(r => r.Message)));
-        foreach (var label in new[] { "DA", "MT", "IX", "HF", "CB" })
+        foreach (var label in new[] { "DA", "MT", "IX", "EL", "CB" })
         {
             var row = rows[label];
             Assert.True(row.Consistent, $"{label}: {string.Join(" ", row.ConsistencyReasons.Select(r => r.Message))}");

@@ -64,6 +64,11 @@ public sealed class WorkflowTests
         Assert.Contains(queued.Reasons, r => r.Code == "saddle.no-modes");
         var history = await reviews.HistoryAsync(stateId);
         Assert.Equal([ReviewOutcome.Reopened, ReviewOutcome.Verified], history.Select(h => h.Outcome));
+        // A saddle point that failed its check is verified only with a comment that says why it is accepted anyway
+        // (common practice, no source: a sign-off against the evidence must carry its reason).
+        var refused = await Assert.ThrowsAsync<ArgumentException>(() => reviews.VerifyAsync(queued.CalculationId, reviewer, " "));
+        Assert.Contains("failed its frequency check", refused.Message);
+        Assert.Single(await reviews.QueueAsync(studyId));
         // ΔE‡ follows the new saddle-point energy: −1.6552 − (−1.17 − 0.5) = 0.0148 Eh.
         Assert.Equal(0.0148, after.BarrierElectronic!.Value.Hartree, 9);
         await using var db = await ledger.DbAsync();
@@ -203,6 +208,12 @@ public sealed class WorkflowTests
         Assert.False(row.Consistent);
         Assert.Contains(row.ConsistencyReasons, r => r.Code == Core.Pathways.ConsistencyCodes.MixedElectronicLevels && r.Blocking);
         Assert.NotNull(row.BarrierElectronic);
+        // The ledger screen's "only inconsistent barriers" filter is applied by the query, in the store.
+        var query = ledger.Get<LedgerQueryService>();
+        Assert.Single((await query.GetLedgerRowsAsync(stored.StudyId!.Value, new LedgerFilter { OnlyInconsistent = true })).Rows);
+        var clean = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(study: "Hydrogen exchange, one level (test)"), new UploadChoices(), "member");
+        Assert.True(Assert.Single((await query.GetLedgerRowsAsync(clean.StudyId!.Value)).Rows).Consistent);
+        Assert.Empty((await query.GetLedgerRowsAsync(clean.StudyId!.Value, new LedgerFilter { OnlyInconsistent = true })).Rows);
     }
 
     [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]

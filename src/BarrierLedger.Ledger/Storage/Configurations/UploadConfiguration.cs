@@ -10,7 +10,8 @@ internal sealed class UploadConfiguration : IEntityTypeConfiguration<Upload>
     {
         b.ToTable("Uploads");
         b.Property(e => e.Key).HasMaxLength(100).IsRequired();
-        b.HasIndex(e => e.Key).IsUnique();
+        b.Property(e => e.ContentSha256).HasMaxLength(64);
+        b.HasIndex(e => new { e.UploaderUserId, e.Key }).IsUnique();
         b.HasOne<Study>().WithMany().HasForeignKey(e => e.StudyId).OnDelete(DeleteBehavior.Restrict);
     }
 }

@@ -48,14 +48,17 @@ public static class AuthExtensions
             })
             .AddRoles<IdentityRole>()
             .AddEntityFrameworkStores<LedgerDbContext>()
-            .AddSignInManager()
+            .AddSignInManager<LedgerSignInManager>()
             .AddClaimsPrincipalFactory<LedgerClaimsFactory>()
             .AddDefaultTokenProviders();
+        // Every request with a sign-in cookie checks the account in the store (security stamp, lockout) and rebuilds its roles
+        // from the store: a removed role, a locked account, a password change or a sign-out elsewhere takes effect at once.
+        services.Configure<SecurityStampValidatorOptions>(o => o.ValidationInterval = TimeSpan.Zero);
 
         services.AddAuthorizationBuilder()
             .SetFallbackPolicy(new AuthorizationPolicyBuilder().RequireAuthenticatedUser().Build())
-            .AddPolicy(Policies.Reviewer, p => p.RequireRole(Roles.Reviewer, Roles.Admin))
-            .AddPolicy(Policies.Admin, p => p.RequireRole(Roles.Admin));
+            .AddPolicy(Policies.Reviewer, p => p.RequireRole(Policies.RolesFor(Policies.Reviewer)))
+            .AddPolicy(Policies.Admin, p => p.RequireRole(Policies.RolesFor(Policies.Admin)));
         return services;
     }
 
@@ -80,8 +83,10 @@ public static class AuthExtensions
     public static IEndpointConventionBuilder MapAccountEndpoints(this IEndpointRouteBuilder endpoints)
     {
         var group = endpoints.MapGroup("/Account");
-        group.MapPost("/Logout", async ([FromServices] SignInManager<LedgerUser> signIn) =>
+        group.MapPost("/Logout", async (ClaimsPrincipal principal, [FromServices] SignInManager<LedgerUser> signIn) =>
         {
+            // A new security stamp makes the cookie just removed (and any copy of it) worthless on the server, not only in this browser.
+            if (await signIn.UserManager.GetUserAsync(principal) is { } user) await signIn.UserManager.UpdateSecurityStampAsync(user);
             await signIn.SignOutAsync();
             return TypedResults.LocalRedirect("~/Account/Login");
         });
@@ -93,6 +98,32 @@ public static class Policies
 {
     public const string Reviewer = "Reviewer";
     public const string Admin = "Admin";
+
+    /// <summary>The roles that satisfy a policy: one rule for the cookie check, the API and the store check of an open page.</summary>
+    public static string[] RolesFor(string policy) => policy switch
+    {
+        Reviewer => [Roles.Reviewer, Roles.Admin],
+        Admin => [Roles.Admin],
+        _ => throw new ArgumentException($"Unknown policy '{policy}'.", nameof(policy)),
+    };
+}
+
+/// <summary>
+/// A session stays valid only while its account does: the security stamp matches (no sign-out, password or role change since)
+/// and the account is not locked out. Used by the cookie check on every request and by the open-page revalidation.
+/// </summary>
+internal sealed class LedgerSignInManager(
+    UserManager<LedgerUser> users,
+    IHttpContextAccessor contextAccessor,
+    IUserClaimsPrincipalFactory<LedgerUser> claimsFactory,
+    Microsoft.Extensions.Options.IOptions<IdentityOptions> optionsAccessor,
+    ILogger<SignInManager<LedgerUser>> logger,
+    Microsoft.AspNetCore.Authentication.IAuthenticationSchemeProvider schemes,
+    IUserConfirmation<LedgerUser> confirmation)
+    : SignInManager<LedgerUser>(users, contextAccessor, claimsFactory, optionsAccessor, logger, schemes, confirmation)
+{
+    public override async Task<bool> ValidateSecurityStampAsync(LedgerUser? user, string? securityStamp) =>
+        user is not null && !await UserManager.IsLockedOutAsync(user) && await base.ValidateSecurityStampAsync(user, securityStamp);
 }
 
 /// <summary>Adds the must-change-password flag to the sign-in cookie so the middleware needs no database call.</summary>

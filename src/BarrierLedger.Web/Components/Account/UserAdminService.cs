@@ -7,9 +7,16 @@ namespace BarrierLedger.Web.Components.Account;
 /// <summary>One row of the account list.</summary>
 public sealed record UserRow(string Id, string UserName, string DisplayName, IReadOnlyList<string> Roles, bool LockedOut, bool MustChangePassword);
 
-/// <summary>Account administration for the Admin page. Each call uses its own scope (and so its own DbContext).</summary>
-public sealed class UserAdminService(IServiceScopeFactory scopes)
+/// <summary>
+/// Account administration for the Admin page. Each call uses its own scope (and so its own DbContext). Every change names the
+/// acting user and is refused unless the store says that user is an active Admin now (an open page may have outlived the role).
+/// </summary>
+public sealed class UserAdminService(IServiceScopeFactory scopes, AccountAccess access)
 {
+    public const string NotAdminMessage = "Not changed: your account is no longer an active Admin (the store says so; reload the page).";
+
+    private Task<bool> ActorIsAdminAsync(string actorUserId) => access.HoldsAsync(actorUserId, Policies.RolesFor(Policies.Admin));
+
     public async Task<IReadOnlyList<UserRow>> ListAsync()
     {
         await using var scope = scopes.CreateAsyncScope();
@@ -25,8 +32,9 @@ public sealed class UserAdminService(IServiceScopeFactory scopes)
     }
 
     /// <summary>Creates an account with a one-time password (returned once) and the Member role.</summary>
-    public async Task<(bool Ok, string Message, string? OneTimePassword)> CreateAsync(string userName, string displayName)
+    public async Task<(bool Ok, string Message, string? OneTimePassword)> CreateAsync(string actorUserId, string userName, string displayName)
     {
+        if (!await ActorIsAdminAsync(actorUserId)) return (false, NotAdminMessage, null);
         userName = userName.Trim();
         if (userName.Length < 2) return (false, "A user name needs at least 2 characters.", null);
         await using var scope = scopes.CreateAsyncScope();
@@ -40,8 +48,9 @@ public sealed class UserAdminService(IServiceScopeFactory scopes)
     }
 
     /// <summary>Adds or removes one role. Refuses to remove the last Admin's Admin role.</summary>
-    public async Task<(bool Ok, string Message)> SetRoleAsync(string userId, string role, bool member)
+    public async Task<(bool Ok, string Message)> SetRoleAsync(string actorUserId, string userId, string role, bool member)
     {
+        if (!await ActorIsAdminAsync(actorUserId)) return (false, NotAdminMessage);
         if (!Roles.All.Contains(role)) return (false, $"Unknown role '{role}'.");
         await using var scope = scopes.CreateAsyncScope();
         var users = scope.ServiceProvider.GetRequiredService<UserManager<LedgerUser>>();

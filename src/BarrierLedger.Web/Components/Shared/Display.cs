@@ -61,7 +61,7 @@ public static class Display
         BarrierLedger.Core.Chemistry.CalculationKind.SinglePoint => "single point",
         BarrierLedger.Core.Chemistry.CalculationKind.Frequencies => "frequencies",
         BarrierLedger.Core.Chemistry.CalculationKind.RelaxedScan => "relaxed scan",
-        BarrierLedger.Core.Chemistry.CalculationKind.Endpoint => "IRC / endpoint",
+        BarrierLedger.Core.Chemistry.CalculationKind.Endpoint => "IRC endpoint",
         _ => kind.ToString(),
     };
 

@@ -58,4 +58,25 @@ public static class MoleculeTraces
         };
         return [atoms, sticks, ring];
     }
+
+    /// <summary>
+    /// A 3D scene that holds the whole molecule in every orientation: one cube centred on the molecule's bounding box, its side the
+    /// box's longest edge plus <paramref name="padAngstrom"/> on each side (for the atom markers and, when animated, the largest
+    /// displacement), with equal scales on the three axes. Left to Plotly's autorange the box follows the data of each frame and
+    /// long bonds or displaced atoms can leave the frame.
+    /// </summary>
+    public static Plotly.Blazor.LayoutLib.Scene Scene(Molecule m, double padAngstrom)
+    {
+        var p = m.PositionsAngstrom;
+        double Mid(Func<Vec3, double> f) => (p.Max(f) + p.Min(f)) / 2;
+        var half = Math.Max(new[] { p.Max(v => v.X) - p.Min(v => v.X), p.Max(v => v.Y) - p.Min(v => v.Y), p.Max(v => v.Z) - p.Min(v => v.Z) }.Max() / 2, 0.5) + padAngstrom;
+        List<object> Range(double c) => [c - half, c + half];
+        return new Plotly.Blazor.LayoutLib.Scene
+        {
+            AspectMode = Plotly.Blazor.LayoutLib.SceneLib.AspectModeEnum.Cube,
+            XAxis = new Plotly.Blazor.LayoutLib.SceneLib.XAxis { Visible = false, Range = Range(Mid(v => v.X)) },
+            YAxis = new Plotly.Blazor.LayoutLib.SceneLib.YAxis { Visible = false, Range = Range(Mid(v => v.Y)) },
+            ZAxis = new Plotly.Blazor.LayoutLib.SceneLib.ZAxis { Visible = false, Range = Range(Mid(v => v.Z)) },
+        };
+    }
 }
