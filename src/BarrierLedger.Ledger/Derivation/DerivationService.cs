@@ -30,11 +30,18 @@ public sealed class DerivationService(TimeProvider time)
         var affected = await db.Reactions.Where(r => r.StudyId == studyId && !r.Retired &&
                 (EF.Parameter(reactionIds).Contains(r.Id) || r.States.Any(s => s.Terms.Any(t => EF.Parameter(touchedSpeciesIds).Contains(t.SpeciesId)))))
             .Select(r => r.Id).ToListAsync(ct);
-        if (affected.Count == 0) return;
-        await BumpRevisionsAsync(db, affected, ct);
         var (model, _) = await EffectiveModelAsync(db, studyId, ct);
+        if (affected.Count == 0)
+        {
+            // A species in no reaction yet still gets its point group.
+            var alone = await DerivationInputs.ForReactionsAsync(db, [], ct, touchedSpeciesIds);
+            await SpeciesSymmetry.WriteAsync(db, SpeciesSymmetry.Refresh(model, alone), ct);
+            return;
+        }
+        await BumpRevisionsAsync(db, affected, ct);
         await RefreshChecksAsync(db, model, [studyId], affected, force: false, ct);
-        var inputs = await DerivationInputs.LoadAsync(db, null, affected, ct);
+        var inputs = await DerivationInputs.LoadAsync(db, null, affected, ct, touchedSpeciesIds);
+        await SpeciesSymmetry.WriteAsync(db, SpeciesSymmetry.Refresh(model, inputs), ct);
         await WriteAsync(db, DeriveAll(model, inputs, null, ct), ct);
         // New reactions and re-linked saddle points (with their reopened reviews) change the ledger status.
         await ReactionStatusSummary.RefreshAsync(db, affected, ct);
@@ -141,6 +148,7 @@ public sealed class DerivationService(TimeProvider time)
         Action<int, int>? progress, CancellationToken ct)
     {
         var inputs = await DerivationInputs.LoadAsync(db, studyIds, reactionIds, ct);
+        await SpeciesSymmetry.WriteAsync(db, SpeciesSymmetry.Refresh(model, inputs), ct);
         var results = DeriveAll(model, inputs, progress, ct);
         await WriteAsync(db, results, ct);
         return results.Length;

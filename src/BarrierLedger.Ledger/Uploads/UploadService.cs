@@ -100,6 +100,12 @@ public sealed class UploadService(
             db.Species.Add(s);
         }
         foreach (var (species, formula) in plan.FormulaUpdates) species.Formula = formula;
+        foreach (var (species, sigma) in plan.SymmetryOverrides)
+        {
+            audit.Record(db, user, "species.symmetry", nameof(Species), species.Id,
+                $"Species '{species.Label}': symmetry number set to {sigma} by an upload (was {species.SymmetryNumber}{(species.SymmetryNumberOverride is null ? ", detected" : "")}).");
+            (species.SymmetryNumberOverride, species.SymmetryNumber) = (sigma, sigma);
+        }
 
         // Original files, content-addressed: bytes stored once however often they are named.
         var fileIds = new Dictionary<string, int>(StringComparer.Ordinal);
@@ -265,7 +271,7 @@ public sealed class UploadService(
         // would otherwise make every later save scan all it wrote).
         var newCalcIds = plan.NewCalculations.Select(c => calcByLabel[c.Draft.Label].Id).ToList();
         var touchedSpecies = plan.NewCalculations.Select(c => speciesByLabel[c.Draft.Species].Id)
-            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Concat(ircSpecies).Distinct().ToList();
+            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Concat(ircSpecies).Concat(plan.SymmetryOverrides.Select(o => o.Species.Id)).Distinct().ToList();
         db.ChangeTracker.Clear();
         await derivation.AfterInputsChangedAsync(db, study.Id, touchedSpecies, reactionIds, ct);
 
