@@ -45,7 +45,7 @@ public class LooseFilesToReactionTests
               "reactions": [ { "label": "Cycloaddition (bundle)", "description": "",
                 "states": [
                   { "label": "butadiene + ethylene", "kind": "minimum", "terms": [ { "species": "butadiene" }, { "species": "ethylene" } ] },
-                  { "label": "TS", "kind": "saddle_point", "terms": [ { "species": "ts-da" } ], "calculation": "ts-da", "reaction_coordinate": [[1, 6], [4, 5]] },
+                  { "label": "TS", "kind": "saddle_point", "terms": [ { "species": "ts-da" } ], "calculation": "ts-da", "reacting_bonds": [[1, 6], [4, 5]] },
                   { "label": "cyclohexene", "kind": "minimum", "terms": [ { "species": "cyclohexene" } ] } ] } ],
               "scans": [ { "label": "ts-da-scan", "species": "ts-da", "level_of_theory": "{{level}}", "coordinate": { "kind": "distance", "atoms": [1, 6] },
                            "points_file": "scans/ts-da-scan.csv" } ]
@@ -105,7 +105,7 @@ public class LooseFilesToReactionTests
         await Assertions.Expect(page.GetByTestId("upload-errors")).ToHaveCountAsync(0);
         await Flows.ScreenshotAsync(page, "loose-upload-rows");
         await page.GetByRole(AriaRole.Button, new() { Name = "Store" }).ClickAsync();
-        await Assertions.Expect(page.GetByTestId("upload-message")).ToContainTextAsync("Stored 4 calculations, 0 reactions and 1 scans.");
+        await Assertions.Expect(page.GetByTestId("upload-message")).ToContainTextAsync("Stored 4 calculations, 0 reactions, 1 scans and 0 IRCs.");
 
         // The workspace lists what is in no reaction yet.
         await page.GetByRole(AriaRole.Link, new() { Name = "Open the study's workspace" }).ClickAsync();
@@ -152,7 +152,7 @@ public class LooseFilesToReactionTests
         var store = page.GetByRole(AriaRole.Button, new() { Name = "Store" });
         await Assertions.Expect(store).ToBeEnabledAsync();
         await store.ClickAsync();
-        await Assertions.Expect(page.GetByTestId("upload-message")).ToContainTextAsync("Stored 4 calculations, 1 reactions and 1 scans.");
+        await Assertions.Expect(page.GetByTestId("upload-message")).ToContainTextAsync("Stored 4 calculations, 1 reactions, 1 scans and 0 IRCs.");
 
         var fromBundle = await BarrierOnLedgerAsync(page, app.BaseUrl, BundleStudy, "Cycloaddition (bundle)");
         var built = await BarrierOnLedgerAsync(page, app.BaseUrl, Study, "Cycloaddition (built)");

@@ -1,6 +1,5 @@
 using System.CommandLine;
 using BarrierLedger.Ledger.Backups;
-using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Storage;
 
 namespace BarrierLedger.Cli.Commands;
@@ -50,7 +49,7 @@ internal static class BackupCommand
             try
             {
                 using var stream = new FileStream(path, FileMode.CreateNew, FileAccess.Write);
-                manifest = new LedgerBackupService(options).CreateAsync(stream).GetAwaiter().GetResult();
+                manifest = new BackupService(options).CreateArchiveAsync(stream).GetAwaiter().GetResult();
             }
             catch
             {

@@ -1,5 +1,5 @@
 using System.CommandLine;
-using BarrierLedger.Ledger.Export;
+using BarrierLedger.Ledger.Backups;
 using BarrierLedger.Ledger.Storage;
 
 namespace BarrierLedger.Cli.Commands;
@@ -28,7 +28,7 @@ internal static class RestoreCommand
             try
             {
                 using var stream = File.OpenRead(path);
-                var report = LedgerBackupService.RestoreAsync(stream, pr.GetValue(dataDir)!, new LedgerOptions().DatabaseFileName, pr.GetValue(force)).GetAwaiter().GetResult();
+                var report = BackupService.RestoreArchiveAsync(stream, pr.GetValue(dataDir)!, new LedgerOptions().DatabaseFileName, pr.GetValue(force)).GetAwaiter().GetResult();
                 ctx.Out.WriteLine($"restored {report.DatabasePath} (SHA-256 {report.DatabaseSha256}) with {report.StoredFiles} stored original file(s); every hash checked");
                 return ExitCodes.Ok;
             }

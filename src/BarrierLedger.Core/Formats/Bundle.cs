@@ -7,9 +7,10 @@ using BarrierLedger.Core.Vibrations;
 namespace BarrierLedger.Core.Formats;
 
 /// <summary>
-/// A BarrierLedger bundle as read: one study with its species, calculations, reactions and scans
+/// A BarrierLedger bundle as read: one study with its species, calculations, reactions, scans and IRCs
 /// (format "barrierledger-bundle", documented by docs/bundle.schema.json and docs/formats.md).
-/// Every cross-reference (species labels, calculation labels) has been checked to resolve.
+/// Every cross-reference (species labels, calculation labels) has been checked to resolve, except an IRC's saddle point, which may
+/// name a calculation already stored in the study.
 /// </summary>
 /// <param name="FormatVersion">The manifest's format_version (1).</param>
 /// <param name="Study">Name and description of the study.</param>
@@ -17,6 +18,7 @@ namespace BarrierLedger.Core.Formats;
 /// <param name="Calculations">Calculations in manifest order, labels unique.</param>
 /// <param name="Reactions">Reactions in manifest order, labels unique.</param>
 /// <param name="Scans">Scans in manifest order, labels unique.</param>
+/// <param name="Ircs">IRC paths and endpoint pairs in manifest order, labels unique.</param>
 /// <param name="Files">Every file the manifest names that was found, by its relative path, with its bytes exactly as stored (for SHA-256 and archiving).</param>
 public sealed record Bundle(
     int FormatVersion,
@@ -25,6 +27,7 @@ public sealed record Bundle(
     ImmutableArray<BundleCalculation> Calculations,
     ImmutableArray<BundleReaction> Reactions,
     ImmutableArray<BundleScan> Scans,
+    ImmutableArray<BundleIrc> Ircs,
     ImmutableDictionary<string, ImmutableArray<byte>> Files);
 
 /// <summary>The study the bundle belongs to.</summary>
@@ -109,3 +112,17 @@ public sealed record BundleScan(
     ImmutableArray<ScanPoint> Points,
     string? PointsFile,
     string? GeometriesFile);
+
+/// <summary>
+/// An IRC (or the two ends of one) of a saddle-point calculation. <see cref="SaddlePoint"/> names a saddle_point calculation of the
+/// bundle, or one already stored in the study (resolved by the store). Structures come from <see cref="PathFile"/> (multi-frame XYZ,
+/// energy per frame) or from <see cref="ForwardFile"/> and <see cref="BackwardFile"/> (last frame of each).
+/// </summary>
+public sealed record BundleIrc(
+    string Label,
+    string SaddlePoint,
+    LevelOfTheory? LevelOfTheory,
+    IrcStructures Structures,
+    string? PathFile,
+    string? ForwardFile,
+    string? BackwardFile);

@@ -4,7 +4,7 @@ using static BarrierLedger.Core.Formats.BundleSchema;
 namespace BarrierLedger.Core.Formats;
 
 /// <summary>
-/// Reads the manifest object by object: the root, the study and the species here, calculations, reactions and scans through
+/// Reads the manifest object by object: the root, the study and the species here, calculations, reactions, scans and IRCs through
 /// their readers beside it. Every error names its JSON path and what was expected.
 /// </summary>
 internal static class BundleManifestReader
@@ -117,8 +117,25 @@ internal static class BundleManifestReader
             }
         }
 
+        // IRCs.
+        var ircs = new List<BundleIrc>();
+        var ircLabels = new HashSet<string>(StringComparer.Ordinal);
+        if (j.Array(root, "$", "ircs", required: false) is { } iArr)
+        {
+            var k = 0;
+            foreach (var i in iArr.EnumerateArray())
+            {
+                var p = JsonInput.Index("$.ircs", k++);
+                if (BundleIrcReader.ReadIrc(i, p, j, species, calcByLabel, limits, files) is { } irc)
+                {
+                    if (!ircLabels.Add(irc.Label)) issues.ErrorAt(JsonInput.Child(p, "label"), $"IRC '{irc.Label}' is defined twice; labels must be unique");
+                    else ircs.Add(irc);
+                }
+            }
+        }
+
         if (issues.HasErrors || study is null || version is null) return null;
-        return new Bundle(version.Value, study, [.. species.Values.Select(v => v.Species)], [.. calculations], [.. reactions], [.. scans],
+        return new Bundle(version.Value, study, [.. species.Values.Select(v => v.Species)], [.. calculations], [.. reactions], [.. scans], [.. ircs],
             files.Read.ToImmutableDictionary(kv => kv.Key, kv => ImmutableArray.Create(kv.Value), StringComparer.Ordinal));
     }
 

@@ -22,7 +22,7 @@ public static class BundleSchema
     /// <summary>Keys the reader knows for each object of the manifest, by the schema's $defs name ("bundle" is the root). Unknown keys get a warning.</summary>
     public static readonly ImmutableDictionary<string, ImmutableArray<string>> KnownKeys = new Dictionary<string, ImmutableArray<string>>
     {
-        ["bundle"] = ["format", "format_version", "study", "species", "calculations", "reactions", "scans"],
+        ["bundle"] = ["format", "format_version", "study", "species", "calculations", "reactions", "scans", "ircs"],
         ["study"] = ["name", "description"],
         ["species"] = ["label", "charge", "multiplicity"],
         ["calculation"] = ["label", "species", "kind", "level_of_theory", "energy_hartree", "file", "geometry", "frequencies_cm1", "modes",
@@ -39,6 +39,7 @@ public static class BundleSchema
         ["scan"] = ["label", "species", "level_of_theory", "coordinate", "points", "points_file", "energy_unit", "geometries_file"],
         ["coordinate"] = ["kind", "atoms"],
         ["point"] = ["coordinate", "energy_hartree", "converged"],
+        ["irc"] = ["label", "saddle_point", "level_of_theory", "path_file", "forward_file", "backward_file"],
     }.ToImmutableDictionary();
 
     /// <summary>Calculation kinds as written in the manifest.</summary>

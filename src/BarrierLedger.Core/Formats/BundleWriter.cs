@@ -49,13 +49,23 @@ public static class BundleWriter
                     if (s.Calculation is not null) w.WriteString("calculation", s.Calculation);
                     if (s.ReactionCoordinate.Length > 0)
                     {
-                        w.WriteStartArray("reaction_coordinate");
+                        w.WriteStartArray("reacting_bonds");
                         foreach (var p in s.ReactionCoordinate) { w.WriteStartArray(); w.WriteNumberValue(p.First); w.WriteNumberValue(p.Second); w.WriteEndArray(); }
                         w.WriteEndArray();
                     }
                 });
             });
             Objects(w, "scans", bundle.Scans, s => Scan(w, s));
+            if (bundle.Ircs.Length > 0)
+                Objects(w, "ircs", bundle.Ircs, i =>
+                {
+                    w.WriteString("label", i.Label);
+                    w.WriteString("saddle_point", i.SaddlePoint);
+                    if (i.LevelOfTheory is { } level) w.WriteString("level_of_theory", level.ToString());
+                    if (i.PathFile is not null) w.WriteString("path_file", i.PathFile);
+                    if (i.ForwardFile is not null) w.WriteString("forward_file", i.ForwardFile);
+                    if (i.BackwardFile is not null) w.WriteString("backward_file", i.BackwardFile);
+                });
             w.WriteEndObject();
         }
         return buffer.ToArray();

@@ -24,7 +24,7 @@ public static class XyzReader
     /// As <see cref="Read(Stream, string, ReaderLimits?)"/>; a caller that supplies charge and multiplicity itself
     /// (the bundle's species) turns off the warning for an odd electron count without charge=/multiplicity= keys.
     /// </summary>
-    internal static ReadResult<XyzDocument> Read(Stream stream, string fileName, ReaderLimits? limits, bool warnUnstatedOddElectrons)
+    public static ReadResult<XyzDocument> Read(Stream stream, string fileName, ReaderLimits? limits, bool warnUnstatedOddElectrons)
     {
         limits ??= ReaderLimits.Default;
         var issues = new IssueCollector(fileName, limits.MaxIssues);

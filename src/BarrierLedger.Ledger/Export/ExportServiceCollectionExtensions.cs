@@ -9,7 +9,6 @@ public static class ExportServiceCollectionExtensions
     {
         services.AddSingleton<ExportQueryService>();
         services.AddSingleton<ExportService>();
-        services.AddSingleton<LedgerBackupService>();
         return services;
     }
 }

@@ -20,6 +20,8 @@ public sealed record LedgerFilter
     public ReviewStatus? ReviewStatus { get; init; }
     public Verdict? Verdict { get; init; }
     public bool IncludeRetired { get; init; }
+    /// <summary>Only reactions whose barrier breaks a consistency rule (or has no derivation yet).</summary>
+    public bool OnlyInconsistent { get; init; }
 
     public static LedgerFilter None { get; } = new();
 }
@@ -68,6 +70,7 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
         var q = db.Reactions.AsNoTracking().Where(r => r.StudyId == studyId);
         if (!filter.IncludeRetired) q = q.Where(r => !r.Retired);
         if (filter.OwnerUserId is { } owner) q = q.Where(r => r.OwnerUserId == owner);
+        if (filter.OnlyInconsistent) q = q.Where(r => r.Derivation == null || !r.Derivation.Consistent);
         // The status filters go to the store; a reaction whose summary was never computed (SaddlePointCount null: stored
         // before the summary existed) is read too and filtered below once its status is known.
         if (filter.ReviewStatus is { } wanted) q = q.Where(r => r.SaddlePointCount == null || r.ReviewStatus == wanted);

@@ -28,6 +28,8 @@ public class LedgerDbContext(DbContextOptions<LedgerDbContext> options) : Identi
     public DbSet<ReactionCoordinatePair> ReactionCoordinatePairs => Set<ReactionCoordinatePair>();
     public DbSet<Scan> Scans => Set<Scan>();
     public DbSet<ScanPointRecord> ScanPoints => Set<ScanPointRecord>();
+    public DbSet<Irc> Ircs => Set<Irc>();
+    public DbSet<IrcFrameRecord> IrcFrames => Set<IrcFrameRecord>();
     public DbSet<FrequencyCheck> FrequencyChecks => Set<FrequencyCheck>();
     public DbSet<Review> Reviews => Set<Review>();
     public DbSet<EnergyModel> EnergyModels => Set<EnergyModel>();

@@ -56,5 +56,7 @@ internal static class BundleImport
                 [.. s.ReactionCoordinate.Select(p => (p.First, p.Second))]))]));
         foreach (var s in b.Scans)
             draft.Scans.Add(new DraftScan(s.Label, s.Species, s.LevelOfTheory?.ToString() ?? "", s.Coordinate, s.Points, FileKey(s.PointsFile ?? s.GeometriesFile)));
+        foreach (var i in b.Ircs)
+            draft.Ircs.Add(new DraftIrc(i.Label, i.SaddlePoint, i.LevelOfTheory?.ToString(), i.Structures, FileKey(i.PathFile ?? i.ForwardFile), FileKey(i.BackwardFile)));
     }
 }

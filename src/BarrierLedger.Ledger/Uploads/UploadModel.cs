@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Vibrations;
@@ -26,6 +27,11 @@ public sealed record UploadChoices
     public int? AttachToStateId { get; init; }
     /// <summary>For a multi-frame XYZ uploaded as a relaxed scan: the scanned coordinate's atoms, 1-based (2, 3 or 4 of them).</summary>
     public IReadOnlyList<int>? ScanAtoms { get; init; }
+    /// <summary>
+    /// The label of the saddle-point calculation (in this upload or stored in the study) that the uploaded XYZ files are an IRC of:
+    /// one file is read as the path, two as the forward and backward ends (by "forward"/"backward" in their names).
+    /// </summary>
+    public string? IrcOf { get; init; }
     /// <summary>A key the caller chooses so that a retried store cannot write twice; generated when null.</summary>
     public string? UploadKey { get; init; }
     /// <summary>Per-file choices by file name (the upload page's one row per file); what a row leaves empty falls back to the fields above.</summary>
@@ -70,6 +76,7 @@ public sealed class UploadDraft
     public List<DraftCalculation> Calculations { get; } = [];
     public List<DraftReaction> Reactions { get; } = [];
     public List<DraftScan> Scans { get; } = [];
+    public List<DraftIrc> Ircs { get; } = [];
     /// <summary>Every original file by its key (its name, or its path inside a bundle), bytes as given.</summary>
     public Dictionary<string, byte[]> Files { get; } = new(StringComparer.Ordinal);
     /// <summary>The file a record comes from when it names none (a bundle manifest or zip).</summary>
@@ -103,3 +110,9 @@ public sealed record DraftState(string Label, StateKind Kind, IReadOnlyList<Draf
 public sealed record DraftReaction(string Label, string Description, IReadOnlyList<DraftState> States);
 
 public sealed record DraftScan(string Label, string Species, string LevelOfTheory, ScanCoordinate Coordinate, IReadOnlyList<ScanPoint> Points, string? File);
+
+/// <summary>
+/// An IRC of a saddle-point calculation named by its label (in this upload or stored in the study); <see cref="LevelOfTheory"/> null
+/// means the saddle point's. <see cref="File"/> is the path file or the forward end's, <see cref="BackwardFile"/> the backward end's.
+/// </summary>
+public sealed record DraftIrc(string Label, string SaddleCalculation, string? LevelOfTheory, IrcStructures Structures, string? File, string? BackwardFile);

@@ -1,5 +1,7 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Paths;
 using BarrierLedger.Core.Vibrations;
 using BarrierLedger.Ledger.Reactions;
 using BarrierLedger.Ledger.Records;
@@ -7,6 +9,13 @@ using Microsoft.EntityFrameworkCore;
 using Storage = BarrierLedger.Ledger.Storage;
 
 namespace BarrierLedger.Ledger.Uploads;
+
+/// <summary>
+/// An IRC to write: its saddle point (a calculation of this upload by label, or a stored one by id), its level of theory, and the
+/// path with its path lengths (for the path form).
+/// </summary>
+internal sealed record PlannedIrc(DraftIrc Draft, string? SaddleInUpload, int? StoredSaddleId, string SaddleLabel, string LevelOfTheory,
+    ReactionPath? Path, string SourceSha);
 
 /// <summary>A calculation to write, with the modes and frequencies it will carry (derived from its Hessian when only that was given).</summary>
 internal sealed record PlannedCalculation(DraftCalculation Draft, string SourceSha, IReadOnlyList<double> Frequencies, IReadOnlyList<NormalMode> Modes, string Formula);
@@ -32,14 +41,16 @@ internal sealed class UploadPlan
     public List<DraftScan> NewScans { get; } = [];
     public List<string> DuplicateScans { get; } = [];
     public List<DraftReaction> NewReactions { get; } = [];
+    public List<PlannedIrc> NewIrcs { get; } = [];
+    public List<string> DuplicateIrcs { get; } = [];
     public List<(ReactionState State, string CalculationLabel)> StateRelinks { get; } = [];
     private readonly List<string> _existingReactions = [];
 
     public string ShaOf(string? file) => (file ?? Draft.PrimaryFile) is { } f && FileSha.TryGetValue(f, out var sha) ? sha : "";
 
     public string Summary() =>
-        $"{NewCalculations.Count} calculation(s), {NewScans.Count} scan(s), {NewReactions.Count} new reaction(s), {StateRelinks.Count} saddle point(s) re-linked, " +
-        $"{DuplicateCalculationIds.Count + DuplicateScans.Count} already stored; files: {string.Join(", ", FileSha.Keys)}";
+        $"{NewCalculations.Count} calculation(s), {NewScans.Count} scan(s), {NewIrcs.Count} IRC(s), {NewReactions.Count} new reaction(s), {StateRelinks.Count} saddle point(s) re-linked, " +
+        $"{DuplicateCalculationIds.Count + DuplicateScans.Count + DuplicateIrcs.Count} already stored; files: {string.Join(", ", FileSha.Keys)}";
 
     private void Error(string file, string message, string? jsonPath = null) => Issues.Add(new UploadIssue(file, null, jsonPath, message));
 
@@ -212,6 +223,8 @@ internal sealed class UploadPlan
                 if (ds.Calculation is { } cl && plan.NewCalculations.Any(c => c.Draft.Label == cl)) plan.StateRelinks.Add((state, cl));
         }
 
+        await plan.ResolveIrcsAsync(db, primary, ct);
+
         if (choices.AttachToStateId is { } stateId)
         {
             var state = await db.ReactionStates.Include(s => s.Reaction).FirstOrDefaultAsync(s => s.Id == stateId, ct);
@@ -223,6 +236,75 @@ internal sealed class UploadPlan
             else plan.StateRelinks.Add((state, saddles[0].Draft.Label));
         }
         return plan;
+    }
+
+    /// <summary>
+    /// Each IRC's saddle point: a saddle-point calculation of this upload by label, else the newest live one of that label stored
+    /// in the study. The IRC must list the saddle point's atoms in its order; a path gets its path lengths from the saddle geometry.
+    /// </summary>
+    private async Task ResolveIrcsAsync(Storage.LedgerDbContext db, string primary, CancellationToken ct)
+    {
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var irc in Draft.Ircs)
+        {
+            var file = irc.File ?? primary;
+            var what = $"IRC '{irc.Label}'";
+            if (!seen.Add($"{irc.SaddleCalculation}\u0000{irc.Label}")) { Error(file, $"{what} of saddle point '{irc.SaddleCalculation}' is given twice in this upload"); continue; }
+            Molecule? saddle;
+            string? inUpload = null;
+            int? storedId = null;
+            string saddleLevel;
+            var draftCalc = Draft.Calculations.FirstOrDefault(c => c.Label == irc.SaddleCalculation);
+            if (draftCalc is not null)
+            {
+                if (draftCalc.Kind != CalculationKind.SaddlePoint)
+                {
+                    Error(file, $"{what} names calculation '{draftCalc.Label}', which is a {draftCalc.Kind}; an IRC belongs to a saddle-point calculation");
+                    continue;
+                }
+                saddle = draftCalc.Geometry;
+                saddleLevel = draftCalc.LevelOfTheory.ToString();
+                var duplicate = DuplicateCalculationIds.FirstOrDefault(d => d.Label == draftCalc.Label);
+                if (duplicate.Label is not null) storedId = duplicate.Id;
+                else inUpload = draftCalc.Label;
+            }
+            else
+            {
+                var stored = Study is null ? null : await db.Calculations.AsNoTracking()
+                    .Where(c => c.Label == irc.SaddleCalculation && c.Kind == CalculationKind.SaddlePoint && !c.Retired && c.Species!.StudyId == Study.Id)
+                    .OrderByDescending(c => c.Id)
+                    .Select(c => new { c.Id, c.AtomicNumbers, c.PositionsAngstrom, c.LevelOfTheory, c.Species!.Charge, c.Species.Multiplicity })
+                    .FirstOrDefaultAsync(ct);
+                if (stored is null)
+                {
+                    Error(file, $"{what} names saddle point '{irc.SaddleCalculation}', which is neither a saddle-point calculation in this upload nor one stored in study '{StudyName}'");
+                    continue;
+                }
+                storedId = stored.Id;
+                saddle = Storage.Blobs.ToMolecule(stored.AtomicNumbers, stored.PositionsAngstrom, stored.Charge, stored.Multiplicity);
+                saddleLevel = stored.LevelOfTheory;
+            }
+            if (saddle is null) { Error(file, $"{what}: saddle point '{irc.SaddleCalculation}' has no geometry to compare the IRC with"); continue; }
+            var bad = irc.Structures.Structures.Select((st, k) => (k, why: IrcFiles.Differs(saddle, st.Geometry))).FirstOrDefault(x => x.why is not null);
+            if (bad.why is not null)
+            {
+                var frame = irc.Structures.Form == IrcForm.Path ? $"frame {bad.k + 1}" : bad.k == 0 ? "the forward end" : "the backward end";
+                Issues.Add(new UploadIssue(bad.k == 1 && irc.BackwardFile is not null ? irc.BackwardFile : file, irc.Structures.Structures[bad.k].Line, null,
+                    $"{what}: {frame} {bad.why} as in saddle point '{irc.SaddleCalculation}'; an IRC lists the saddle point's atoms in its order"));
+                continue;
+            }
+            ReactionPath? path = null;
+            if (irc.Structures.Form == IrcForm.Path)
+                path = IrcPath.FromFrames([.. irc.Structures.Structures.Select(x => x.Geometry)], [.. irc.Structures.Structures.Select(x => x.EnergyHartree!.Value)], saddle);
+            var sha = irc.BackwardFile is null ? ShaOf(irc.File)
+                : UploadService.Sha256Hex(System.Text.Encoding.ASCII.GetBytes(ShaOf(irc.File) + ShaOf(irc.BackwardFile)));
+            if (storedId is { } sid && await db.Ircs.AnyAsync(x => x.SaddleCalculationId == sid && x.SourceSha256 == sha && x.Label == irc.Label && !x.Retired, ct))
+            {
+                DuplicateIrcs.Add(irc.Label);
+                continue;
+            }
+            NewIrcs.Add(new PlannedIrc(irc, inUpload, storedId, irc.SaddleCalculation, irc.LevelOfTheory ?? saddleLevel, path, sha));
+        }
     }
 
     public UploadPreview ToPreview() => new(
@@ -240,5 +322,9 @@ internal sealed class UploadPlan
         [.. Draft.Reactions.Select(r => new PreviewReaction(r.Label, string.Join(" → ", r.States.Select(s => s.Label)), _existingReactions.Contains(r.Label)))],
         [.. Draft.Scans.Select(s => new PreviewScan(s.Label, s.Species, $"{s.Coordinate.Kind} {string.Join("–", s.Coordinate.Atoms.Select(a => a + 1))}",
             s.Points.Count, s.Points.Any(p => p.Geometry is not null), DuplicateScans.Contains(s.Label)))],
-        Issues);
+        Issues)
+    {
+        Ircs = [.. Draft.Ircs.Select(i => new PreviewIrc(i.Label, i.SaddleCalculation, i.Structures.Form == IrcForm.Path ? "path" : "endpoint pair",
+            i.Structures.Structures.Length, DuplicateIrcs.Contains(i.Label), i.BackwardFile is null ? i.File : $"{i.File}, {i.BackwardFile}"))],
+    };
 }

@@ -39,6 +39,8 @@ public static class UploadReader
         foreach (var (f, format) in formats.Where(x => x.Value is FileFormat.Bundle or FileFormat.BundleZip))
             consumed.UnionWith(BundleImport.Read(f, files, limits, draft));
         var hasBundle = formats.Values.Any(v => v is FileFormat.Bundle or FileFormat.BundleZip);
+        if (!string.IsNullOrWhiteSpace(choices.IrcOf))
+            consumed.UnionWith(ReadIrc([.. formats.Where(x => x.Value == FileFormat.Xyz && !consumed.Contains(x.Key.FileName)).Select(x => x.Key)], choices, limits, draft));
         foreach (var (f, format) in formats.Where(x => x.Value is not (FileFormat.Bundle or FileFormat.BundleZip) && !consumed.Contains(x.Key.FileName)))
         {
             if (hasBundle && format == FileFormat.Unknown)
@@ -117,6 +119,73 @@ public static class UploadReader
         var geometry = last.Molecule with { Charge = charge, Multiplicity = multiplicity };
         draft.Calculations.Add(new DraftCalculation(label, species, kind, level, last.EnergyHartree, geometry,
             [], [], [], null, null, null, null, f.FileName, doc.Frames.Length > 1 ? $"last of {doc.Frames.Length} frames" : ""));
+    }
+
+    /// <summary>
+    /// The XYZ files of an upload that names the saddle point they are an IRC of (<see cref="UploadChoices.IrcOf"/>): one file is the
+    /// path, two are the forward and backward ends (told apart by "forward" and "backward" in their names). Returns the files used.
+    /// </summary>
+    private static IReadOnlyCollection<string> ReadIrc(IReadOnlyList<UploadFile> xyz, UploadChoices choices, ReaderLimits? limits, UploadDraft draft)
+    {
+        var saddle = choices.IrcOf!.Trim();
+        string? level = null;
+        var levelText = xyz.Count > 0 ? choices.For(xyz[0].FileName).LevelOfTheory : choices.LevelOfTheory;
+        if (!string.IsNullOrWhiteSpace(levelText))
+        {
+            if (LevelOfTheory.TryParse(levelText, out var lt, out var error)) level = lt.ToString();
+            else
+            {
+                draft.Issues.Add(new UploadIssue(xyz.FirstOrDefault()?.FileName ?? "(upload)", null, null, $"level of theory: {error}"));
+                return [.. xyz.Select(f => f.FileName)];
+            }
+        }
+        XyzDocument? Read(UploadFile f)
+        {
+            // The IRC takes its saddle point's charge and multiplicity, so an odd electron count without charge= is no concern here.
+            var r = XyzReader.Read(new MemoryStream(f.Content, writable: false), f.FileName, limits, warnUnstatedOddElectrons: false);
+            AddIssues(draft, r.Issues);
+            return r.Value;
+        }
+        switch (xyz.Count)
+        {
+            case 0:
+                draft.Issues.Add(new UploadIssue("(upload)", null, null, $"an IRC of '{saddle}' was asked for, but no XYZ file was given: give one multi-frame XYZ (the path) or two (the forward and backward ends)"));
+                return [];
+            case 1:
+            {
+                var f = xyz[0];
+                if (Read(f) is not { } doc) break;
+                var r = IrcFiles.Path(doc, f.FileName);
+                AddIssues(draft, r.Issues);
+                if (r.Value is { } path) draft.Ircs.Add(new DraftIrc(Path.GetFileNameWithoutExtension(f.FileName), saddle, level, path, f.FileName, null));
+                break;
+            }
+            case 2:
+            {
+                static bool Has(UploadFile f, string word) => f.FileName.Contains(word, StringComparison.OrdinalIgnoreCase);
+                var forward = xyz.Where(f => Has(f, "forward") && !Has(f, "backward")).ToList();
+                var backward = xyz.Where(f => Has(f, "backward") && !Has(f, "forward")).ToList();
+                if (forward.Count != 1 || backward.Count != 1)
+                {
+                    draft.Issues.Add(new UploadIssue(string.Join(", ", xyz.Select(f => f.FileName)), null, null,
+                        "two XYZ files for an IRC are its two ends: name one with \"forward\" and the other with \"backward\" so they can be told apart"));
+                    break;
+                }
+                var fd = Read(forward[0]);
+                var bd = Read(backward[0]);
+                if (fd is null || bd is null) break;
+                var r = IrcFiles.Endpoints(fd, forward[0].FileName, bd, backward[0].FileName);
+                AddIssues(draft, r.Issues);
+                if (r.Value is { } ends)
+                    draft.Ircs.Add(new DraftIrc($"{saddle} IRC ends", saddle, level, ends, forward[0].FileName, backward[0].FileName));
+                break;
+            }
+            default:
+                draft.Issues.Add(new UploadIssue(string.Join(", ", xyz.Select(f => f.FileName)), null, null,
+                    $"{xyz.Count} XYZ files for one IRC; give one multi-frame XYZ (the path) or two (the forward and backward ends)"));
+                break;
+        }
+        return [.. xyz.Select(f => f.FileName)];
     }
 
     /// <summary>The form's species and level of theory for a file that does not carry them; false with an issue when missing.</summary>

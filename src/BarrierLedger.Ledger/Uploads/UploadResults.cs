@@ -16,6 +16,8 @@ public sealed record UploadPreview(
     public IEnumerable<UploadIssue> Errors => Issues.Where(i => i.IsError);
     public IEnumerable<UploadIssue> Warnings => Issues.Where(i => !i.IsError);
     public bool CanStore => !Issues.Any(i => i.IsError);
+    /// <summary>IRC paths and endpoint pairs found, each with the saddle point it belongs to.</summary>
+    public IReadOnlyList<PreviewIrc> Ircs { get; init; } = [];
 }
 
 public sealed record PreviewFile(string FileName, long SizeBytes, string Sha256);
@@ -27,6 +29,9 @@ public sealed record PreviewCalculation(string Label, string Species, Calculatio
     double? EnergyHartree, IReadOnlyList<double> FrequenciesCm1, int ImaginaryCount, bool HasHessian, bool Duplicate, string? File);
 
 public sealed record PreviewReaction(string Label, string States, bool Exists);
+
+/// <summary>An IRC found: its saddle point (by calculation label), "path" or "endpoint pair", its structures, and its file(s).</summary>
+public sealed record PreviewIrc(string Label, string SaddlePoint, string Form, int FrameCount, bool Duplicate, string? Files);
 
 public sealed record PreviewScan(string Label, string Species, string Coordinate, int PointCount, bool HasGeometries, bool Duplicate);
 
@@ -45,6 +50,8 @@ public sealed record UploadOutcome(
     IReadOnlyList<UploadIssue> Issues)
 {
     public IEnumerable<UploadIssue> Errors => Issues.Where(i => i.IsError);
+    /// <summary>The IRCs written.</summary>
+    public IReadOnlyList<int> IrcIds { get; init; } = [];
 
     /// <summary>This uploader stored the same content under the same key before; nothing new was written.</summary>
     public bool AlreadyStored { get; init; }

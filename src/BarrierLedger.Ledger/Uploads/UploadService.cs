@@ -168,6 +168,28 @@ public sealed class UploadService(
             scanIds.Add(scan.Id);
         }
 
+        // IRCs: attached to their saddle-point calculation (of this upload or stored); frames through one prepared statement.
+        var ircIds = new List<int>();
+        var ircSpecies = new List<int>();
+        foreach (var i in plan.NewIrcs)
+        {
+            var saddle = i.SaddleInUpload is { } l ? calcByLabel[l] : await db.Calculations.FirstAsync(c => c.Id == i.StoredSaddleId, ct);
+            var structures = i.Draft.Structures.Structures;
+            var irc = new Irc
+            {
+                SaddleCalculationId = saddle.Id, UploadId = upload.Id, Label = i.Draft.Label, LevelOfTheory = i.LevelOfTheory, Form = i.Draft.Structures.Form,
+                AtomCount = structures[0].Geometry.AtomCount, AtomicNumbers = Blobs.FromElements(structures[0].Geometry.Elements), SaddleFrame = i.Path?.SaddleFrame,
+                StoredFileId = (i.Draft.File ?? draft.PrimaryFile) is { } pf && fileIds.TryGetValue(pf, out var pid) ? pid : null,
+                BackwardStoredFileId = i.Draft.BackwardFile is { } bf && fileIds.TryGetValue(bf, out var bid) ? bid : null,
+                SourceSha256 = i.SourceSha, UploadedByUserId = user, UploadedAt = now,
+            };
+            db.Ircs.Add(irc);
+            await db.SaveChangesAsync(ct);
+            await InsertIrcFramesAsync(db, irc.Id, i, ct);
+            ircIds.Add(irc.Id);
+            ircSpecies.Add(saddle.SpeciesId);
+        }
+
         // Reactions: new ones with their states; existing ones get their saddle points re-linked (which reopens reviews).
         var reactionIds = new List<int>();
         var reopened = new List<int>();
@@ -229,14 +251,15 @@ public sealed class UploadService(
         // would otherwise make every later save scan all it wrote).
         var newCalcIds = plan.NewCalculations.Select(c => calcByLabel[c.Draft.Label].Id).ToList();
         var touchedSpecies = plan.NewCalculations.Select(c => speciesByLabel[c.Draft.Species].Id)
-            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Distinct().ToList();
+            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Concat(ircSpecies).Distinct().ToList();
         db.ChangeTracker.Clear();
         await derivation.AfterInputsChangedAsync(db, study.Id, touchedSpecies, reactionIds, ct);
 
         return new UploadOutcome(true, upload.Id, study.Id, newCalcIds, reactionIds, scanIds,
             [.. plan.DuplicateCalculationIds.Select(d => $"calculation '{d.Label}' of species '{plan.Draft.Calculations.First(c => c.Label == d.Label).Species}' is already stored (same file); not stored again"),
-             .. plan.DuplicateScans.Select(s => $"scan '{s}' is already stored (same file); not stored again")],
-            plan.Issues);
+             .. plan.DuplicateScans.Select(s => $"scan '{s}' is already stored (same file); not stored again"),
+             .. plan.DuplicateIrcs.Select(i => $"IRC '{i}' is already stored for its saddle point (same file); not stored again")],
+            plan.Issues) { IrcIds = ircIds };
     }
 
     internal static async Task InsertScanPointsAsync(LedgerDbContext db, int scanId, IReadOnlyList<Core.Scans.ScanPoint> points, CancellationToken ct)
@@ -262,6 +285,32 @@ public sealed class UploadService(
             pv.Value = p.Converged;
             pp.Value = p.Geometry is { } g ? Blobs.FromPositions(g.PositionsAngstrom) : DBNull.Value;
             if (i == 0) await cmd.PrepareAsync(ct);
+            await cmd.ExecuteNonQueryAsync(ct);
+        }
+    }
+
+    private static async Task InsertIrcFramesAsync(LedgerDbContext db, int ircId, PlannedIrc irc, CancellationToken ct)
+    {
+        var connection = db.Database.GetDbConnection();
+        await using var cmd = connection.CreateCommand();
+        cmd.Transaction = db.Database.CurrentTransaction?.GetDbTransaction();
+        cmd.CommandText = "INSERT INTO \"IrcFrames\" (\"IrcId\", \"Index\", \"Role\", \"PathLengthAngstrom\", \"EnergyHartree\", \"PositionsAngstrom\") VALUES (@i, @k, @r, @l, @e, @p)";
+        var pi = StoreSql.Parameter(cmd, "@i", DbType.Int32);
+        var pk = StoreSql.Parameter(cmd, "@k", DbType.Int32);
+        var pr = StoreSql.Parameter(cmd, "@r", DbType.String);
+        var pl = StoreSql.Parameter(cmd, "@l", DbType.Double);
+        var pe = StoreSql.Parameter(cmd, "@e", DbType.Double);
+        var pp = StoreSql.Parameter(cmd, "@p", DbType.Binary);
+        pi.Value = ircId;
+        var structures = irc.Draft.Structures.Structures;
+        for (var k = 0; k < structures.Length; k++)
+        {
+            pk.Value = k;
+            pr.Value = (irc.Draft.Structures.Form == IrcForm.Path ? IrcFrameRole.Path : k == 0 ? IrcFrameRole.Forward : IrcFrameRole.Backward).ToString();
+            pl.Value = irc.Path is { } path ? path.Frames[k].Coordinate : DBNull.Value;
+            pe.Value = structures[k].EnergyHartree is { } e ? e : DBNull.Value;
+            pp.Value = Blobs.FromPositions(structures[k].Geometry.PositionsAngstrom);
+            if (k == 0) await cmd.PrepareAsync(ct);
             await cmd.ExecuteNonQueryAsync(ct);
         }
     }

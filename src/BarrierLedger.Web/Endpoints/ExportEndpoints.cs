@@ -1,5 +1,6 @@
 using System.Globalization;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Backups;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Storage;
@@ -80,12 +81,12 @@ public static class ExportEndpoints
         return File(format == "svg" ? svg : png);
     });
 
-    private static async Task<IResult> BackupAsync(LedgerBackupService backup, HttpContext http, CancellationToken ct)
+    private static async Task<IResult> BackupAsync(BackupService backup, HttpContext http, CancellationToken ct)
     {
         var ms = new MemoryStream();
         try
         {
-            await backup.CreateAsync(ms, ct);
+            await backup.CreateArchiveAsync(ms, ct);
         }
         catch (NotSupportedException ex) // a PostgreSQL ledger: backed up with pg_dump, not as this archive
         {

@@ -17,7 +17,11 @@ public sealed record ApiFileReceipt(string Name, long SizeBytes, string Sha256);
 /// </summary>
 public sealed record UploadResponse(bool Stored, bool AlreadyStored, int? UploadId, int? StudyId, IReadOnlyList<int> CalculationIds,
     IReadOnlyList<int> ReactionIds, IReadOnlyList<int> ScanIds, IReadOnlyList<string> Duplicates, IReadOnlyList<ApiIssue> Warnings,
-    IReadOnlyList<ApiFileReceipt> Files);
+    IReadOnlyList<ApiFileReceipt> Files)
+{
+    /// <summary>The IRCs written.</summary>
+    public IReadOnlyList<int> IrcIds { get; init; } = [];
+}
 
 /// <summary>POST /api/v1/uploads (store) and POST /api/v1/uploads/preview (check only): the browser upload's workflow over HTTP.</summary>
 internal static class UploadEndpoints
@@ -40,7 +44,8 @@ internal static class UploadEndpoints
             .WithName("StoreUpload")
             .WithSummary("Store files as one upload (all or nothing)")
             .WithDescription("multipart/form-data: one or more file parts (any field name; a bundle manifest may be sent as field 'manifest'), " +
-                "and optional fields study, studyId, species, kind, level, charge, multiplicity, scanAtoms (e.g. '2,3'), attachToState, uploadKey. " +
+                "and optional fields study, studyId, species, kind, level, charge, multiplicity, scanAtoms (e.g. '2,3'), attachToState, " +
+                "ircOf (the saddle-point calculation label that the XYZ files are an IRC of: one file = path, two = forward/backward ends), uploadKey. " +
                 "The Idempotency-Key header (or uploadKey) makes a retried upload store nothing twice; a key belongs to its user, and the same key " +
                 "with other files or choices is refused with 409 (idempotency-key-reused).");
 
@@ -66,7 +71,7 @@ internal static class UploadEndpoints
         if (!outcome.Stored) return ApiProblems.UploadRejected(outcome.Issues);
         var again = outcome.AlreadyStored;
         var body = new UploadResponse(true, again, outcome.UploadId, outcome.StudyId, outcome.CalculationIds, outcome.ReactionIds, outcome.ScanIds,
-            outcome.Duplicates, [.. outcome.Issues.Where(i => !i.IsError).Select(ApiIssue.From)], received.Receipts);
+            outcome.Duplicates, [.. outcome.Issues.Where(i => !i.IsError).Select(ApiIssue.From)], received.Receipts) { IrcIds = outcome.IrcIds };
         return Results.Json(body, statusCode: again ? StatusCodes.Status200OK : StatusCodes.Status201Created);
     }
 
@@ -148,7 +153,7 @@ internal static class UploadEndpoints
         var choices = new UploadChoices
         {
             NewStudyName = Text("study"), StudyId = Int("studyId"), SpeciesLabel = Text("species"), Kind = kind, LevelOfTheory = Text("level"),
-            Charge = Int("charge"), Multiplicity = Int("multiplicity"), ScanAtoms = scanAtoms, AttachToStateId = Int("attachToState"), UploadKey = key,
+            Charge = Int("charge"), Multiplicity = Int("multiplicity"), ScanAtoms = scanAtoms, AttachToStateId = Int("attachToState"), IrcOf = Text("ircOf"), UploadKey = key,
         };
         if (errors.Count > 0) return (null, ApiProblems.BadRequest(string.Join("; ", errors) + "."));
         return (new Received(files, choices, receipts), null);

@@ -13,7 +13,7 @@ namespace BarrierLedger.Core.Tests.Formats;
 
 public class BundleReaderTests
 {
-    private static readonly string[] s_sampleFiles = ["h2.xyz", "ts1.xyz", "scans/c1h5.csv", "scans/c1h5.xyz"];
+    private static readonly string[] s_sampleFiles = ["h2.xyz", "ts1.xyz", "scans/c1h5.csv", "scans/c1h5.xyz", "irc/ts1-irc.xyz"];
 
     internal static string SampleText() => File.ReadAllText(RepoFiles.Sample("sample-bundle.json"));
 
@@ -107,6 +107,12 @@ public class BundleReaderTests
         Assert.Equal(1.5, fromFiles.Points[1].Geometry!.PositionsAngstrom[4].X);
         Assert.Equal(2, fromFiles.Points[1].Geometry!.Multiplicity);
 
+        var irc = Assert.Single(b.Ircs);
+        Assert.Equal(("TS1 IRC", "TS1-opt", IrcForm.Path, 5), (irc.Label, irc.SaddlePoint, irc.Structures.Form, irc.Structures.Structures.Length));
+        Assert.Equal([-40.965, -40.957, -40.950, -40.960, -40.975], irc.Structures.Structures.Select(f => f.EnergyHartree!.Value));
+        Assert.All(irc.Structures.Structures, f => Assert.Equal(2, f.Geometry.Multiplicity)); // the saddle point's species (TS1, doublet)
+        Assert.Equal(1.09, irc.Structures.Structures[^1].Geometry.PositionsAngstrom[4].X);
+
         Assert.Equal(s_sampleFiles.Order(), b.Files.Keys.Order());
         Assert.Equal(File.ReadAllBytes(RepoFiles.Sample("ts1.xyz")), b.Files["ts1.xyz"].ToArray());
     }
@@ -173,6 +179,12 @@ public class BundleReaderTests
         { "level of theory empty", n => n["calculations"]![0]!["level_of_theory"] = "", "$.calculations[0].level_of_theory", ["is empty"] },
         { "study missing", n => n.AsObject().Remove("study"), "$.study", ["missing; expected an object"] },
         { "duplicate calculation", n => n["calculations"]![3]!["label"] = "CH3-opt", "$.calculations[3].label", ["already defined at $.calculations[0]"] },
+        { "irc of a minimum", n => n["ircs"]![0]!["saddle_point"] = "CH3-opt", "$.ircs[0].saddle_point", ["'CH3-opt'", "minimum", "saddle_point calculation"] },
+        { "irc in two forms", n => n["ircs"]![0]!["forward_file"] = "ts1.xyz", "$.ircs[0]", ["both 'path_file' and endpoint files"] },
+        { "irc half a pair", n => { n["ircs"]![0]!.AsObject().Remove("path_file"); n["ircs"]![0]!["forward_file"] = "ts1.xyz"; }, "$.ircs[0]", ["'forward_file' without 'backward_file'"] },
+        { "irc of other atoms", n => { n["ircs"]![0]!.AsObject().Remove("path_file"); n["ircs"]![0]!["forward_file"] = "h2.xyz"; n["ircs"]![0]!["backward_file"] = "h2.xyz"; },
+            "$.ircs[0].forward_file", ["has 2 atoms, not 6", "saddle point 'TS1-opt'"] },
+        { "duplicate irc", n => n["ircs"]!.AsArray().Add(n["ircs"]![0]!.DeepClone()), "$.ircs[1].label", ["IRC 'TS1 IRC' is defined twice"] },
     };
 
     [Theory]
@@ -199,7 +211,7 @@ public class BundleReaderTests
     {
         var zip = Zip([("bundle.json", Encoding.UTF8.GetBytes(SampleText())), ("h2.xyz", "2\n\nH 0 0 0\nH 0 0\n"u8.ToArray()),
             ("ts1.xyz", File.ReadAllBytes(RepoFiles.Sample("ts1.xyz"))), ("scans/c1h5.csv", File.ReadAllBytes(RepoFiles.Sample("scans/c1h5.csv"))),
-            ("scans/c1h5.xyz", File.ReadAllBytes(RepoFiles.Sample("scans/c1h5.xyz")))]);
+            ("scans/c1h5.xyz", File.ReadAllBytes(RepoFiles.Sample("scans/c1h5.xyz"))), ("irc/ts1-irc.xyz", File.ReadAllBytes(RepoFiles.Sample("irc/ts1-irc.xyz")))]);
         var r = BundleReader.Read(new MemoryStream(zip), "up.zip");
         var e = Assert.Single(r.Errors);
         Assert.Equal("up.zip!h2.xyz", e.FileName);

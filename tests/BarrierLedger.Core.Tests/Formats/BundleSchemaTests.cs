@@ -42,6 +42,7 @@ public class BundleSchemaTests
         ("scan", n => n["scans"]![0]!.AsObject()),
         ("coordinate", n => n["scans"]![0]!["coordinate"]!.AsObject()),
         ("point", n => n["scans"]![0]!["points"]![0]!.AsObject()),
+        ("irc", n => n["ircs"]![0]!.AsObject()),
     ];
 
     [Fact]

@@ -42,6 +42,9 @@ public sealed class BundleWriterTests
             again.Scans.Select(s => (s.Label, s.Species, s.LevelOfTheory, s.Coordinate.Kind, string.Join(",", s.Coordinate.Atoms), s.PointsFile, s.GeometriesFile)));
         Assert.Equal(original.Scans.SelectMany(s => s.Points).Select(p => (p.Coordinate, p.EnergyHartree, p.Converged)),
             again.Scans.SelectMany(s => s.Points).Select(p => (p.Coordinate, p.EnergyHartree, p.Converged)));
+        Assert.NotEmpty(original.Ircs);
+        Assert.Equal(original.Ircs.Select(i => (i.Label, i.SaddlePoint, i.LevelOfTheory, i.PathFile, i.ForwardFile, i.BackwardFile)),
+            again.Ircs.Select(i => (i.Label, i.SaddlePoint, i.LevelOfTheory, i.PathFile, i.ForwardFile, i.BackwardFile)));
         Assert.Equal(Shas(original), Shas(again));
     }
 

@@ -100,14 +100,15 @@ public sealed class CrashAndConcurrencyTests(ITestOutputHelper output)
     {
         await using var ledger = await TempLedger.CreateAsync();
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
-        var backup = await ledger.Get<BackupService>().BackupAsync("admin");
-        Assert.StartsWith(Path.Combine(ledger.Directory, "backups", "barrierledger-"), backup.Path);
-        Assert.Equal("ok", await BackupService.IntegrityCheckAsync(backup.Path));
-        Assert.Single(ledger.Get<BackupService>().ListBackups());
+        using var archive = new MemoryStream();
+        await ledger.Get<BackupService>().CreateArchiveAsync(archive);
 
         var target = Path.Combine(ledger.Directory, "restored");
-        await BackupService.RestoreAsync(backup.Path, target);
-        await Assert.ThrowsAsync<IOException>(() => BackupService.RestoreAsync(backup.Path, target));
+        archive.Position = 0;
+        var report = await BackupService.RestoreArchiveAsync(archive, target, ledger.Options.DatabaseFileName, force: false);
+        Assert.Equal("ok", await BackupService.IntegrityCheckAsync(report.DatabasePath));
+        archive.Position = 0;
+        await Assert.ThrowsAsync<RestoreRefusedException>(() => BackupService.RestoreArchiveAsync(archive, target, ledger.Options.DatabaseFileName, force: false));
         await using var restored = await TempLedger.CreateAsync(target);
         var a = await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(stored.StudyId!.Value);
         var b = await restored.Get<LedgerQueryService>().GetLedgerRowsAsync(stored.StudyId!.Value);

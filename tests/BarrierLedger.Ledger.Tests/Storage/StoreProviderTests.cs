@@ -115,17 +115,20 @@ public sealed class StoreProviderTests
 
         await using var ledger = await TempLedger.CreateAsync(StoreProvider.PostgreSQL);
         var stored = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(), new UploadChoices(), "member");
-        var backup = await ledger.Get<BackupService>().BackupAsync("admin");
-        Assert.StartsWith(Path.Combine(ledger.Directory, "backups", "barrierledger-"), backup.Path);
-        Assert.EndsWith(".dump", backup.Path);
-        Assert.Equal("PGDMP"u8.ToArray(), File.ReadAllBytes(backup.Path)[..5]); // pg_dump's custom-format signature
-        Assert.Single(ledger.Get<BackupService>().ListBackups());
+        // The PostgreSQL half of the backup capability (barrierledger backup --postgresql): pg_dump, custom format.
+        var folder = Path.Combine(ledger.Directory, "backups");
+        Directory.CreateDirectory(folder);
+        var dump = PgDump.TimestampedPath(folder, DateTimeOffset.UtcNow);
+        await PgDump.RunAsync(ledger.Options.Database.ConnectionString!, dump);
+        Assert.StartsWith(Path.Combine(folder, "barrierledger-"), dump);
+        Assert.EndsWith(".dump", dump);
+        Assert.Equal("PGDMP"u8.ToArray(), File.ReadAllBytes(dump)[..5]); // pg_dump's custom-format signature
 
         var target = await server.CreateDatabaseAsync();
         try
         {
             var b = new NpgsqlConnectionStringBuilder(target);
-            var psi = new ProcessStartInfo(pgRestore!, ["--no-owner", $"--host={b.Host}", $"--port={b.Port}", $"--username={b.Username}", $"--dbname={b.Database}", backup.Path])
+            var psi = new ProcessStartInfo(pgRestore!, ["--no-owner", $"--host={b.Host}", $"--port={b.Port}", $"--username={b.Username}", $"--dbname={b.Database}", dump])
                 { RedirectStandardError = true, UseShellExecute = false };
             using (var p = Process.Start(psi)!)
             {

@@ -208,6 +208,12 @@ public sealed class WorkflowTests
         Assert.False(row.Consistent);
         Assert.Contains(row.ConsistencyReasons, r => r.Code == Core.Pathways.ConsistencyCodes.MixedElectronicLevels && r.Blocking);
         Assert.NotNull(row.BarrierElectronic);
+        // The ledger screen's "only inconsistent barriers" filter is applied by the query, in the store.
+        var query = ledger.Get<LedgerQueryService>();
+        Assert.Single((await query.GetLedgerRowsAsync(stored.StudyId!.Value, new LedgerFilter { OnlyInconsistent = true })).Rows);
+        var clean = await ledger.Get<UploadService>().StoreDraftAsync(H3System.Draft(study: "Hydrogen exchange, one level (test)"), new UploadChoices(), "member");
+        Assert.True(Assert.Single((await query.GetLedgerRowsAsync(clean.StudyId!.Value)).Rows).Consistent);
+        Assert.Empty((await query.GetLedgerRowsAsync(clean.StudyId!.Value, new LedgerFilter { OnlyInconsistent = true })).Rows);
     }
 
     [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]

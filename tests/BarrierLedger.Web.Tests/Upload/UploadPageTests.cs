@@ -78,7 +78,7 @@ public sealed class UploadPageTests
         cut.Find("button.btn-primary").Click();
         cut.WaitForAssertion(() => Assert.NotEmpty(cut.FindAll("[data-testid=add-to-reaction]")), Wait);
 
-        Assert.Contains("Stored 4 calculations, 0 reactions and 1 scans.", cut.Find("[data-testid=upload-message]").TextContent);
+        Assert.Contains("Stored 4 calculations, 0 reactions, 1 scans and 0 IRCs.", cut.Find("[data-testid=upload-message]").TextContent);
         var href = cut.Find("[data-testid=add-to-reaction]").GetAttribute("href")!;
         var query = Microsoft.AspNetCore.WebUtilities.QueryHelpers.ParseQuery(href[href.IndexOf('?')..]);
         var studyId = int.Parse(href.Split('/')[1], System.Globalization.CultureInfo.InvariantCulture);

@@ -463,6 +463,131 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.ToTable("FrequencyChecks", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Irc", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<int>("AtomCount")
+                        .HasColumnType("integer");
+
+                    b.Property<byte[]>("AtomicNumbers")
+                        .IsRequired()
+                        .HasColumnType("bytea");
+
+                    b.Property<int?>("BackwardStoredFileId")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("Form")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("character varying(20)");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .UseCollation("C");
+
+                    b.Property<string>("LevelOfTheory")
+                        .IsRequired()
+                        .HasMaxLength(400)
+                        .HasColumnType("character varying(400)")
+                        .UseCollation("C");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("boolean");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.Property<int>("SaddleCalculationId")
+                        .HasColumnType("integer");
+
+                    b.Property<int?>("SaddleFrame")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("SourceSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .UseCollation("C");
+
+                    b.Property<int?>("StoredFileId")
+                        .HasColumnType("integer");
+
+                    b.Property<int>("UploadId")
+                        .HasColumnType("integer");
+
+                    b.Property<DateTimeOffset>("UploadedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("UploadedByUserId")
+                        .IsRequired()
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("bigint");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BackwardStoredFileId");
+
+                    b.HasIndex("SaddleCalculationId");
+
+                    b.HasIndex("StoredFileId");
+
+                    b.HasIndex("UploadId");
+
+                    b.ToTable("Ircs", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IrcFrameRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<double?>("EnergyHartree")
+                        .HasColumnType("double precision");
+
+                    b.Property<int>("Index")
+                        .HasColumnType("integer");
+
+                    b.Property<int>("IrcId")
+                        .HasColumnType("integer");
+
+                    b.Property<double?>("PathLengthAngstrom")
+                        .HasColumnType("double precision");
+
+                    b.Property<byte[]>("PositionsAngstrom")
+                        .IsRequired()
+                        .HasColumnType("bytea");
+
+                    b.Property<string>("Role")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("character varying(20)");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("IrcId", "Index")
+                        .IsUnique();
+
+                    b.ToTable("IrcFrames", (string)null);
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
                 {
                     b.Property<int>("Id")
@@ -1318,6 +1443,42 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Navigation("Calculation");
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Irc", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.StoredFile", null)
+                        .WithMany()
+                        .HasForeignKey("BackwardStoredFileId")
+                        .OnDelete(DeleteBehavior.Restrict);
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Calculation", "SaddleCalculation")
+                        .WithMany()
+                        .HasForeignKey("SaddleCalculationId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("BarrierLedger.Ledger.Records.StoredFile", null)
+                        .WithMany()
+                        .HasForeignKey("StoredFileId")
+                        .OnDelete(DeleteBehavior.Restrict);
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Upload", null)
+                        .WithMany()
+                        .HasForeignKey("UploadId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("SaddleCalculation");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IrcFrameRecord", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Irc", null)
+                        .WithMany("Frames")
+                        .HasForeignKey("IrcId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
                 {
                     b.HasOne("BarrierLedger.Ledger.Records.Reaction", "Reaction")
@@ -1506,6 +1667,11 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasForeignKey("UserId")
                         .OnDelete(DeleteBehavior.Cascade)
                         .IsRequired();
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Irc", b =>
+                {
+                    b.Navigation("Frames");
                 });
 
             modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>

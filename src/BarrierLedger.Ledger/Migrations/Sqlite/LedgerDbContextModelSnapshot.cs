@@ -412,6 +412,122 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.ToTable("FrequencyChecks", (string)null);
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Irc", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("AtomCount")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<byte[]>("AtomicNumbers")
+                        .IsRequired()
+                        .HasColumnType("BLOB");
+
+                    b.Property<int?>("BackwardStoredFileId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Form")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("LevelOfTheory")
+                        .IsRequired()
+                        .HasMaxLength(400)
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("Retired")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset?>("RetiredAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("RetiredByUserId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("SaddleCalculationId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("SaddleFrame")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("SourceSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int?>("StoredFileId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("UploadId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTimeOffset>("UploadedAt")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("UploadedByUserId")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BackwardStoredFileId");
+
+                    b.HasIndex("SaddleCalculationId");
+
+                    b.HasIndex("StoredFileId");
+
+                    b.HasIndex("UploadId");
+
+                    b.ToTable("Ircs", (string)null);
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IrcFrameRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double?>("EnergyHartree")
+                        .HasColumnType("REAL");
+
+                    b.Property<int>("Index")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("IrcId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double?>("PathLengthAngstrom")
+                        .HasColumnType("REAL");
+
+                    b.Property<byte[]>("PositionsAngstrom")
+                        .IsRequired()
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("Role")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("IrcId", "Index")
+                        .IsUnique();
+
+                    b.ToTable("IrcFrames", (string)null);
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
                 {
                     b.Property<int>("Id")
@@ -1174,6 +1290,42 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Navigation("Calculation");
                 });
 
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Irc", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.StoredFile", null)
+                        .WithMany()
+                        .HasForeignKey("BackwardStoredFileId")
+                        .OnDelete(DeleteBehavior.Restrict);
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Calculation", "SaddleCalculation")
+                        .WithMany()
+                        .HasForeignKey("SaddleCalculationId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("BarrierLedger.Ledger.Records.StoredFile", null)
+                        .WithMany()
+                        .HasForeignKey("StoredFileId")
+                        .OnDelete(DeleteBehavior.Restrict);
+
+                    b.HasOne("BarrierLedger.Ledger.Records.Upload", null)
+                        .WithMany()
+                        .HasForeignKey("UploadId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.Navigation("SaddleCalculation");
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.IrcFrameRecord", b =>
+                {
+                    b.HasOne("BarrierLedger.Ledger.Records.Irc", null)
+                        .WithMany("Frames")
+                        .HasForeignKey("IrcId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("BarrierLedger.Ledger.Records.IsotopologueSet", b =>
                 {
                     b.HasOne("BarrierLedger.Ledger.Records.Reaction", "Reaction")
@@ -1362,6 +1514,11 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                         .HasForeignKey("UserId")
                         .OnDelete(DeleteBehavior.Cascade)
                         .IsRequired();
+                });
+
+            modelBuilder.Entity("BarrierLedger.Ledger.Records.Irc", b =>
+                {
+                    b.Navigation("Frames");
                 });
 
             modelBuilder.Entity("BarrierLedger.Ledger.Records.Reaction", b =>

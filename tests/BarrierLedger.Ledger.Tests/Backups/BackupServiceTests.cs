@@ -1,12 +1,14 @@
 using System.IO.Compression;
 using System.Text.Json;
+using BarrierLedger.Ledger.Backups;
 using BarrierLedger.Ledger.Export;
+using BarrierLedger.Ledger.Tests.Export;
 using BarrierLedger.Ledger.Tests.Support;
 using Microsoft.EntityFrameworkCore;
 
-namespace BarrierLedger.Ledger.Tests.Export;
+namespace BarrierLedger.Ledger.Tests.Backups;
 
-public class LedgerBackupServiceTests
+public class BackupServiceTests
 {
     private static async Task<string> TableCsvAsync(TempLedger ledger, int studyId)
     {
@@ -17,7 +19,7 @@ public class LedgerBackupServiceTests
     private static async Task<List<(string Sha, string Hash)>> FileHashesAsync(TempLedger ledger)
     {
         await using var db = await ledger.DbAsync();
-        return [.. (await db.StoredFiles.AsNoTracking().OrderBy(f => f.Sha256).ToListAsync()).Select(f => (f.Sha256, LedgerBackupService.Sha256(f.Content)))];
+        return [.. (await db.StoredFiles.AsNoTracking().OrderBy(f => f.Sha256).ToListAsync()).Select(f => (f.Sha256, BackupService.Sha256(f.Content)))];
     }
 
     [Fact]
@@ -31,7 +33,7 @@ public class LedgerBackupServiceTests
         Assert.All(hashesBefore, h => Assert.Equal(h.Sha, h.Hash));
 
         using var archive = new MemoryStream();
-        var manifest = await new LedgerBackupService(ledger.Options).CreateAsync(archive);
+        var manifest = await new BackupService(ledger.Options).CreateArchiveAsync(archive);
         Assert.Equal(hashesBefore.Count, manifest.Files.Count);
 
         // The archive holds each original file with the hash the manifest gives.
@@ -42,15 +44,15 @@ public class LedgerBackupServiceTests
             {
                 using var ms = new MemoryStream();
                 zip.GetEntry(f.Path)!.Open().CopyTo(ms);
-                Assert.Equal(f.Sha256, LedgerBackupService.Sha256(ms.ToArray()));
+                Assert.Equal(f.Sha256, BackupService.Sha256(ms.ToArray()));
             }
-            var parsed = JsonSerializer.Deserialize<BackupManifest>(zip.GetEntry(LedgerBackupService.ManifestPath)!.Open());
+            var parsed = JsonSerializer.Deserialize<BackupManifest>(zip.GetEntry(BackupService.ManifestPath)!.Open());
             Assert.Equal(manifest.Database.Sha256, parsed!.Database.Sha256);
         }
 
         var target = Path.Combine(Path.GetTempPath(), "bl-restore-" + Guid.NewGuid().ToString("N")[..8]);
         archive.Position = 0;
-        var report = await LedgerBackupService.RestoreAsync(archive, target, "barrierledger.db", force: false);
+        var report = await BackupService.RestoreArchiveAsync(archive, target, "barrierledger.db", force: false);
         Assert.Equal(hashesBefore.Count, report.StoredFiles);
 
         await using var restored = await TempLedger.CreateAsync(target);
@@ -63,20 +65,20 @@ public class LedgerBackupServiceTests
     {
         await using var ledger = await TempLedger.CreateAsync();
         using var archive = new MemoryStream();
-        await new LedgerBackupService(ledger.Options).CreateAsync(archive);
+        await new BackupService(ledger.Options).CreateArchiveAsync(archive);
 
         var target = Directory.CreateTempSubdirectory("bl-restore-").FullName;
         try
         {
             File.WriteAllText(Path.Combine(target, "notes.txt"), "keep me");
             archive.Position = 0;
-            var e = await Assert.ThrowsAsync<RestoreRefusedException>(() => LedgerBackupService.RestoreAsync(archive, target, "barrierledger.db", force: false));
+            var e = await Assert.ThrowsAsync<RestoreRefusedException>(() => BackupService.RestoreArchiveAsync(archive, target, "barrierledger.db", force: false));
             Assert.Contains("is not empty", e.Message);
             Assert.Contains("notes.txt", e.Message);
             Assert.False(File.Exists(Path.Combine(target, "barrierledger.db")));
 
             archive.Position = 0;
-            await LedgerBackupService.RestoreAsync(archive, target, "barrierledger.db", force: true);
+            await BackupService.RestoreArchiveAsync(archive, target, "barrierledger.db", force: true);
             Assert.True(File.Exists(Path.Combine(target, "barrierledger.db")));
             Assert.Equal("keep me", File.ReadAllText(Path.Combine(target, "notes.txt")));
         }
@@ -92,7 +94,7 @@ public class LedgerBackupServiceTests
     {
         await using var ledger = await TempLedger.CreateAsync();
         using var archive = new MemoryStream();
-        var manifest = await new LedgerBackupService(ledger.Options).CreateAsync(archive);
+        var manifest = await new BackupService(ledger.Options).CreateArchiveAsync(archive);
 
         // Rebuild the archive with one byte of the database changed.
         using var damaged = new MemoryStream();
@@ -105,19 +107,19 @@ public class LedgerBackupServiceTests
                 using var ms = new MemoryStream();
                 e.Open().CopyTo(ms);
                 var bytes = ms.ToArray();
-                if (e.FullName == LedgerBackupService.DatabaseEntry) bytes[^1] ^= 0xff;
+                if (e.FullName == BackupService.DatabaseEntry) bytes[^1] ^= 0xff;
                 using var w = dst.CreateEntry(e.FullName).Open();
                 w.Write(bytes);
             }
         }
         damaged.Position = 0;
         var target = Path.Combine(Path.GetTempPath(), "bl-restore-" + Guid.NewGuid().ToString("N")[..8]);
-        var ex = await Assert.ThrowsAsync<RestoreRefusedException>(() => LedgerBackupService.RestoreAsync(damaged, target, "barrierledger.db", force: false));
+        var ex = await Assert.ThrowsAsync<RestoreRefusedException>(() => BackupService.RestoreArchiveAsync(damaged, target, "barrierledger.db", force: false));
         Assert.Contains("'ledger.db' has SHA-256", ex.Message);
         Assert.Contains(manifest.Database.Sha256, ex.Message);
         Assert.False(File.Exists(Path.Combine(target, "barrierledger.db")));
 
-        var notZip = await Assert.ThrowsAsync<RestoreRefusedException>(() => LedgerBackupService.RestoreAsync(new MemoryStream([1, 2, 3]), target, "barrierledger.db", false));
+        var notZip = await Assert.ThrowsAsync<RestoreRefusedException>(() => BackupService.RestoreArchiveAsync(new MemoryStream([1, 2, 3]), target, "barrierledger.db", false));
         Assert.Contains("not a readable zip", notZip.Message);
     }
 }
