@@ -73,6 +73,8 @@ public class LooseFilesToReactionTests
     public async Task NewMember_BuildsTheReactionFromLooseFiles_ItsBarrierEqualsTheBundles_AndTheSaddlePointAwaitsReview()
     {
         Chromium.SkipIfMissing();
+        // Each step waits on the server's derivation; on the shared 2-core machine that takes longer than Playwright's 5 s default.
+        Assertions.SetDefaultExpectTimeout(30_000);
         await using var app = await AppProcess.StartAsync();
         var oneTime = await app.FirstAdminPassword.WaitAsync(TimeSpan.FromSeconds(30));
         var (playwright, browser) = await Chromium.LaunchAsync();
@@ -125,7 +127,7 @@ public class LooseFilesToReactionTests
         await page.Locator("#state-3-terms-add").FillAsync("cyclohexene");
         await page.Locator("#state-3-terms-add").PressAsync("Enter");
         // Mid-way: the reactants lack ethylene, so the saddle point and the products do not balance with them.
-        await Assertions.Expect(page.Locator("[data-testid=builder-preview] svg.main-svg").First).ToBeAttachedAsync(new() { Timeout = 30_000 });
+        await Assertions.Expect(page.Locator("[data-testid=builder-preview] svg.main-svg").First).ToBeAttachedAsync();
         await Assertions.Expect(page.Locator(".balance-off").First).ToContainTextAsync("not the same as state 1");
         await Flows.ScreenshotAsync(page, "loose-builder-midway");
 
