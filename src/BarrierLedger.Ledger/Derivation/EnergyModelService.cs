@@ -79,7 +79,7 @@ public sealed class EnergyModelService(IDbContextFactory<LedgerDbContext> factor
             await using var db = await factory.CreateDbContextAsync(token);
             if (studyId is { } sid && !await db.Studies.AnyAsync(s => s.Id == sid, token)) return EditResult.Invalid([$"study {sid} does not exist"]);
             var row = await db.EnergyModels.FirstOrDefaultAsync(m => m.StudyId == studyId, token);
-            var before = row is null ? null : ModelSettings.From(row).Describe();
+            var before = row is null ? null : Audited(ModelSettings.From(row));
             if (row is null)
             {
                 if (expectedVersion != 0) return EditResult.Conflicted("The model you edited has been removed in the meantime; reload and try again.");
@@ -95,7 +95,7 @@ public sealed class EnergyModelService(IDbContextFactory<LedgerDbContext> factor
             row.UpdatedAt = time.GetUtcNow();
             row.UpdatedByUserId = userId;
             audit.Record(db, userId, studyId is null ? "energy-model.default-saved" : "energy-model.override-saved", nameof(EnergyModel),
-                studyId?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? "default", settings.Describe(), before, settings.Describe());
+                studyId?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? "default", Audited(settings), before, Audited(settings));
             try
             {
                 await db.SaveChangesAsync(token);
@@ -111,6 +111,8 @@ public sealed class EnergyModelService(IDbContextFactory<LedgerDbContext> factor
         if (result.Saved) _ = recompute.Request(studyId); // background pass; progress via RecomputeService.Current
         return result;
     }
+
+    private static string Audited(ModelSettings s) => $"{s.Describe()}; {s.DescribeUncertainty()}";
 
     private static string ConflictText(EnergyModel now) =>
         $"Someone else saved this energy model at {now.UpdatedAt:u} (user {now.UpdatedByUserId}) after you opened it: it now reads \"{ModelSettings.From(now).Describe()}\". " +

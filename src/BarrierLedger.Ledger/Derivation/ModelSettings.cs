@@ -32,8 +32,27 @@ public sealed record ModelSettings(
 {
     public static ModelSettings Default { get; } = From(new EnergyModel());
 
+    /// <summary>
+    /// σ (kcal/mol) of a barrier at any level not listed in <see cref="UncertaintyByLevel"/>; null: no uncertainty set. Intervals are
+    /// computed when shown, so this is not part of <see cref="Fingerprint"/> (changing it recomputes nothing).
+    /// </summary>
+    public double? UncertaintyKcalPerMol { get; init; } = Kinetics.EnergyUncertainty.CommonPracticeKcalPerMol;
+
+    /// <summary>σ per level of theory, one "level = σ" per line (see <see cref="Kinetics.EnergyUncertainty"/>).</summary>
+    public string UncertaintyByLevel { get; init; } = "";
+
+    /// <summary>The uncertainties these settings set (none when they cannot be read).</summary>
+    public Kinetics.EnergyUncertainty Uncertainty =>
+        Kinetics.EnergyUncertainty.Problems(UncertaintyKcalPerMol, UncertaintyByLevel, out var levels).Count == 0
+            ? new Kinetics.EnergyUncertainty(UncertaintyKcalPerMol, levels)
+            : Kinetics.EnergyUncertainty.None;
+
     public static ModelSettings From(EnergyModel m) => new(m.EnergyLevel.Trim(), m.ThermalLevel.Trim(), m.TemperatureKelvin, m.StandardState,
-        m.Treatment, m.QuasiRrhoCutoffCm1, m.Tunnelling, m.DisplayUnit, m.SignificantImaginaryCm1, m.ScanJumpKcalPerMol);
+        m.Treatment, m.QuasiRrhoCutoffCm1, m.Tunnelling, m.DisplayUnit, m.SignificantImaginaryCm1, m.ScanJumpKcalPerMol)
+    {
+        UncertaintyKcalPerMol = m.UncertaintyKcalPerMol,
+        UncertaintyByLevel = m.UncertaintyByLevel,
+    };
 
     public void CopyTo(EnergyModel m)
     {
@@ -47,6 +66,8 @@ public sealed record ModelSettings(
         m.DisplayUnit = DisplayUnit;
         m.SignificantImaginaryCm1 = SignificantImaginaryCm1;
         m.ScanJumpKcalPerMol = ScanJumpKcalPerMol;
+        m.UncertaintyKcalPerMol = UncertaintyKcalPerMol;
+        m.UncertaintyByLevel = UncertaintyByLevel.Trim();
     }
 
     /// <summary>Every problem with these settings, in words; empty when they can be used.</summary>
@@ -57,6 +78,7 @@ public sealed record ModelSettings(
         if (!(QuasiRrhoCutoffCm1 > 0) || !double.IsFinite(QuasiRrhoCutoffCm1)) e.Add($"quasi-RRHO cut-off must be positive (got {QuasiRrhoCutoffCm1} cm⁻¹)");
         if (!(SignificantImaginaryCm1 > 0) || !double.IsFinite(SignificantImaginaryCm1)) e.Add($"imaginary-frequency threshold must be positive (got {SignificantImaginaryCm1} cm⁻¹)");
         if (!(ScanJumpKcalPerMol > 0) || !double.IsFinite(ScanJumpKcalPerMol)) e.Add($"scan jump threshold must be positive (got {ScanJumpKcalPerMol} kcal/mol)");
+        e.AddRange(Kinetics.EnergyUncertainty.Problems(UncertaintyKcalPerMol, UncertaintyByLevel, out _));
         return e;
     }
 
@@ -82,6 +104,21 @@ public sealed record ModelSettings(
         var treatment = LowModeNames.Describe(Treatment, QuasiRrhoCutoffCm1);
         var tunnelling = Tunnelling == TunnellingCorrection.Wigner ? ", Wigner tunnelling" : "";
         return $"Energies: {level}{thermal}; {Num(TemperatureKelvin)} K; standard state {state}; {treatment}{tunnelling}";
+    }
+
+    /// <summary>"Uncertainty: σ = 2 kcal/mol per barrier for every level (common practice, no source); 1 kcal/mol for X" or "no uncertainty set".</summary>
+    public string DescribeUncertainty()
+    {
+        var u = Uncertainty;
+        var parts = new List<string>();
+        if (u.DefaultKcalPerMol is { } d && d > 0)
+            parts.Add($"σ = {d.ToString("0.0##", CultureInfo.InvariantCulture)} kcal/mol per barrier for every level" +
+                      (d == Kinetics.EnergyUncertainty.CommonPracticeKcalPerMol ? $" ({Kinetics.EnergyUncertainty.CommonPracticeNote})" : ""));
+        parts.AddRange(u.PerLevel.Select(l => l.SigmaKcalPerMol > 0
+            ? $"{l.SigmaKcalPerMol.ToString("0.0##", CultureInfo.InvariantCulture)} kcal/mol for {l.Level}" : $"none for {l.Level}"));
+        return parts.Count == 0 || (u.DefaultKcalPerMol is not > 0 && u.PerLevel.All(l => l.SigmaKcalPerMol == 0))
+            ? "Uncertainty: " + Core.Kinetics.UncertainValue.NotSet
+            : "Uncertainty: " + string.Join("; ", parts);
     }
 
     internal static string Num(double x) => x.ToString("R", CultureInfo.InvariantCulture);

@@ -23,6 +23,12 @@ public enum CellKind
 /// </summary>
 public sealed record TableCell(CellKind Kind, string Text, double? Number = null, int Decimals = 0, double Mantissa = 0, int Exponent = 0)
 {
+    /// <summary>For an interval cell: its lower and upper bound (each a <see cref="CellKind.Scientific"/> cell); <see cref="Text"/> is their plain form.</summary>
+    public IReadOnlyList<TableCell>? Bounds { get; init; }
+
+    /// <summary>The bounds of an interval joined by " to " in a writer's notation.</summary>
+    public string Join(Func<TableCell, string> format) => string.Join(" to ", Bounds!.Select(format));
+
     public static TableCell Empty { get; } = new(CellKind.Empty, "");
 
     /// <summary>Plain text with an ASCII minus (what CSV carries and what parses back).</summary>
@@ -75,7 +81,11 @@ public sealed record BarrierTable(
         if (options.Decimals is < 0 or > 6) throw new ArgumentException($"Decimals must be 0 to 6, not {options.Decimals}.", nameof(options));
 
         var unit = Energy.Symbol(options.Unit);
-        var headers = options.Columns.Select(c => Header(c, unit)).ToList();
+        // k and t½ are each followed by their 95 % interval (or "no uncertainty set"): a rate is never exported as if exact.
+        var layout = options.Columns.SelectMany(c => c is ExportColumn.RateConstant or ExportColumn.HalfLife
+            ? new[] { (Column: c, Interval: false), (Column: c, Interval: true) } : [(Column: c, Interval: false)]).ToList();
+        var headers = layout.Select(x => x.Interval ? IntervalHeader(x.Column) : Header(x.Column, unit)).ToList();
+        var uncertainty = source.Model.Uncertainty ?? Kinetics.EnergyUncertainty.None;
         var footnotes = new List<TableFootnote>();
         var rows = new List<TableRow>();
         foreach (var r in source.Rows)
@@ -85,7 +95,7 @@ public sealed record BarrierTable(
             if (!r.IsConsistent) marks.Add(MarkFor(footnotes, $"{r.Reaction}: the barrier breaks a consistency rule: {string.Join("; ", r.ConsistencyProblems.Select(p => p.TrimEnd('.')))}."));
             if (r.RateConstantUnit != "s⁻¹" && r.RateConstant is not null && options.Columns.Contains(ExportColumn.RateConstant))
                 marks.Add(MarkFor(footnotes, $"k of a step with more than one molecule is in {r.RateConstantUnit} (standard state {source.Model.StandardStateText})."));
-            rows.Add(new TableRow([.. options.Columns.Select(c => Cell(r, c, options))], marks));
+            rows.Add(new TableRow([.. layout.Select(x => x.Interval ? IntervalCell(r, x.Column, uncertainty, source.Model.TemperatureKelvin) : Cell(r, x.Column, options))], marks));
         }
         var model = source.Model.Lines(options.Unit).ToList();
         model.Add($"Energies rounded to {options.Decimals} decimal{(options.Decimals == 1 ? "" : "s")} for this table only; stored values are unrounded.");
@@ -138,6 +148,23 @@ public sealed record BarrierTable(
             ExportColumn.LevelOfTheory => new(c, "Level of theory", "Level of theory", "Level of theory", false),
             _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown column."),
         };
+    }
+
+    private static TableHeader IntervalHeader(ExportColumn c) => c == ExportColumn.RateConstant
+        ? new(c, "k 95 % interval", "$k$ 95\\,\\% interval", "k 95 % interval", false)
+        : new(c, "t½ 95 % interval (s)", "$t_{1/2}$ 95\\,\\% interval (s)", "t½ 95 % interval (s)", false);
+
+    // "lower to upper" in the k or t½ column's notation, or "no uncertainty set"; empty where the value is.
+    private static TableCell IntervalCell(BarrierRow r, ExportColumn c, Kinetics.EnergyUncertainty uncertainty, double temperatureKelvin)
+    {
+        var value = c == ExportColumn.RateConstant ? r.RateConstant : r.HalfLifeSeconds;
+        if (value is not { } v || !double.IsFinite(v) || v <= 0) return TableCell.Empty;
+        var interval = c == ExportColumn.RateConstant
+            ? uncertainty.RateConstant(v, r.LevelOfTheory, temperatureKelvin)
+            : uncertainty.Time(v, r.LevelOfTheory, temperatureKelvin);
+        if (!interval.IsSet) return new TableCell(CellKind.Text, Core.Kinetics.UncertainValue.NotSet);
+        var (lower, upper) = (ScientificCell(interval.Lower), ScientificCell(interval.Upper));
+        return new TableCell(CellKind.Text, $"{lower.Plain} to {upper.Plain}") { Bounds = [lower, upper] };
     }
 
     private static TableCell Cell(BarrierRow r, ExportColumn c, TableOptions o) => c switch

@@ -13,13 +13,15 @@ namespace BarrierLedger.Ledger.Export;
 /// <param name="Treatment">RRHO or quasi-RRHO.</param>
 /// <param name="QuasiRrhoCutoffCm1">ω₀ of the quasi-RRHO damping, cm⁻¹.</param>
 /// <param name="Tunnelling">"none" or the correction applied to k (e.g. "Wigner").</param>
+/// <param name="Uncertainty">The energy uncertainties the group set (null: none), carried to every k and t½ as a 95 % interval.</param>
 public sealed record ExportModel(
     string LevelOfTheory,
     double TemperatureKelvin,
     StandardState StandardState,
     ThermoTreatment Treatment,
     double QuasiRrhoCutoffCm1 = 100,
-    string Tunnelling = "none")
+    string Tunnelling = "none",
+    Kinetics.EnergyUncertainty? Uncertainty = null)
 {
     /// <summary>"1 mol/L", "1 atm", "1 bar".</summary>
     public string StandardStateText => StandardState switch
@@ -43,7 +45,22 @@ public sealed record ExportModel(
         $"Temperature: {TemperatureKelvin:0.##} K; standard state: {StandardStateText}",
         $"Thermochemistry: {TreatmentText}; tunnelling: {Tunnelling}" + (TreatmentReference.Length == 0 ? "" : $" ({TreatmentReference})"),
         $"Energies in {Energy.Symbol(unit)}; k in s⁻¹ (first order; a second-order k is marked); t½ in s; imaginary frequency in cm⁻¹",
+        $"Rate intervals: central 95 % from the energy uncertainty; {UncertaintyText}",
     ];
+
+    /// <summary>Where the σ behind the intervals comes from, for the levels of <see cref="LevelOfTheory"/>.</summary>
+    public string UncertaintyText
+    {
+        get
+        {
+            var u = Uncertainty ?? Kinetics.EnergyUncertainty.None;
+            var parts = LevelOfTheory.Split("; ", StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+            if (parts.Length == 0) return u.Describe(null);
+            // One statement when every level has the same σ from the same source; else one per level.
+            var described = parts.Select(u.Describe).ToList();
+            return described.Distinct().Count() == 1 ? described[0] : string.Join("; ", parts.Select((p, i) => $"{p}: {described[i]}"));
+        }
+    }
 }
 
 /// <summary>Review status of a saddle point, as the exported tables state it.</summary>

@@ -46,7 +46,7 @@ public static class LatexTableWriter
         return sb.ToString();
     }
 
-    internal static string Format(TableCell c) => c.Kind switch
+    internal static string Format(TableCell c) => c.Bounds is not null ? c.Join(Format) : c.Kind switch
     {
         CellKind.Fixed => c.Number < 0 ? "$-$" + c.Plain[1..] : c.Plain,
         CellKind.Scientific => $"${c.Mantissa.ToString("0.00", CultureInfo.InvariantCulture)} \\times 10^{{{c.Exponent.ToString(CultureInfo.InvariantCulture)}}}$",

@@ -29,7 +29,7 @@ public static class MarkdownTableWriter
         return sb.ToString();
     }
 
-    internal static string Format(TableCell c) => c.Kind switch
+    internal static string Format(TableCell c) => c.Bounds is not null ? c.Join(Format) : c.Kind switch
     {
         CellKind.Fixed => c.Plain.Replace('-', '\u2212'),
         CellKind.Scientific => $"{c.Mantissa.ToString("0.00", CultureInfo.InvariantCulture)}×10{Superscript(c.Exponent)}",

@@ -33,6 +33,10 @@ public class EnergyModel : IVersioned
     public double SignificantImaginaryCm1 { get; set; } = 100.0;
     /// <summary>Scan jump threshold in kcal/mol.</summary>
     public double ScanJumpKcalPerMol { get; set; } = 2.0;
+    /// <summary>σ (kcal/mol) of a barrier at levels not listed below; null: no uncertainty set. New models start at 2 kcal/mol (common practice, no source).</summary>
+    public double? UncertaintyKcalPerMol { get; set; } = 2.0;
+    /// <summary>σ per level of theory, one "level = σ" line each.</summary>
+    public string UncertaintyByLevel { get; set; } = "";
     public DateTimeOffset UpdatedAt { get; set; }
     public string UpdatedByUserId { get; set; } = "";
     public long Version { get; set; }

@@ -12,7 +12,9 @@ public sealed record ApiLedgerRow(int ReactionId, string Label, string Descripti
     double? BarrierGibbsHartree, double? BarrierGibbsKcalPerMol, double? ReactionGibbsHartree, double? ReactionGibbsKcalPerMol,
     double? BarrierElectronicHartree, double? BarrierElectronicKcalPerMol, double? RateConstantPerSecond, double? HalfLifeSeconds, double? TemperatureKelvin,
     string? Verdict, string? ReviewStatus, int SaddlePointCount, string LevelOfTheory, bool Consistent, IReadOnlyList<ConsistencyReason> ConsistencyReasons,
-    bool Derived, bool Stale, bool Retired);
+    bool Derived, bool Stale, bool Retired,
+    double? RateConstantLower95 = null, double? RateConstantUpper95 = null, double? HalfLifeLower95 = null, double? HalfLifeUpper95 = null,
+    string Uncertainty = "");
 
 public sealed record ApiLedger(int StudyId, string StudyName, ModelSettings Model, int StaleCount, IReadOnlyList<ApiLedgerRow> Rows);
 
@@ -84,7 +86,15 @@ internal static class LedgerEndpoints
             r.BarrierGibbs?.Hartree, r.BarrierGibbs?.KcalPerMol, r.ReactionGibbs?.Hartree, r.ReactionGibbs?.KcalPerMol,
             r.BarrierElectronic?.Hartree, r.BarrierElectronic?.KcalPerMol, r.RateConstantPerSecond, r.HalfLifeSeconds, r.TemperatureKelvin,
             r.Verdict?.ToString(), r.ReviewStatus?.ToString(), r.SaddlePointCount, r.LevelOfTheory, r.Consistent, r.ConsistencyReasons,
-            r.Derived, r.Stale, r.Retired)).ToList();
+            r.Derived, r.Stale, r.Retired) with
+        {
+            // The 95 % intervals from the energy model's σ for the row's level of theory; null bounds and "no uncertainty set" when none.
+            RateConstantLower95 = Bound(page.Model.Settings, r.RateConstantPerSecond, r, false, lower: true),
+            RateConstantUpper95 = Bound(page.Model.Settings, r.RateConstantPerSecond, r, false, lower: false),
+            HalfLifeLower95 = Bound(page.Model.Settings, r.HalfLifeSeconds, r, true, lower: true),
+            HalfLifeUpper95 = Bound(page.Model.Settings, r.HalfLifeSeconds, r, true, lower: false),
+            Uncertainty = page.Model.Settings.Uncertainty.Describe(r.LevelOfTheory),
+        }).ToList();
         var csv = string.Equals(format, "csv", StringComparison.OrdinalIgnoreCase)
             || (format is null && request.Headers.Accept.ToString().Contains("text/csv", StringComparison.OrdinalIgnoreCase));
         if (format is not null && !csv && !string.Equals(format, "json", StringComparison.OrdinalIgnoreCase))
@@ -93,16 +103,25 @@ internal static class LedgerEndpoints
         return Results.Text(Csv(rows), "text/csv; charset=utf-8", Encoding.UTF8);
     }
 
+    private static double? Bound(ModelSettings model, double? value, LedgerRow r, bool time, bool lower)
+    {
+        if (value is not { } v || !(v > 0) || !double.IsFinite(v) || r.TemperatureKelvin is not { } t) return null;
+        var u = model.Uncertainty;
+        var interval = time ? u.Time(v, r.LevelOfTheory, t) : u.RateConstant(v, r.LevelOfTheory, t);
+        return !interval.IsSet ? null : lower ? interval.Lower : interval.Upper;
+    }
+
     /// <summary>RFC 4180 CSV, invariant culture, energies in kcal/mol; a stale or inconsistent row says so in its own columns.</summary>
     internal static string Csv(IReadOnlyList<ApiLedgerRow> rows)
     {
         static string F(double? v) => v?.ToString("R", CultureInfo.InvariantCulture) ?? "";
         static string Q(string s) => s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"") + "\"" : s;
-        var sb = new StringBuilder("reaction_id,label,barrier_gibbs_kcal_mol,reaction_gibbs_kcal_mol,barrier_electronic_kcal_mol,rate_constant_per_s,half_life_s,temperature_k,verdict,review_status,level_of_theory,consistent,stale,reasons\r\n");
+        var sb = new StringBuilder("reaction_id,label,barrier_gibbs_kcal_mol,reaction_gibbs_kcal_mol,barrier_electronic_kcal_mol,rate_constant_per_s,half_life_s,temperature_k,verdict,review_status,level_of_theory,consistent,stale,reasons,rate_constant_lower_95,rate_constant_upper_95,half_life_lower_95_s,half_life_upper_95_s,uncertainty\r\n");
         foreach (var r in rows)
             sb.Append(string.Join(',', r.ReactionId.ToString(CultureInfo.InvariantCulture), Q(r.Label), F(r.BarrierGibbsKcalPerMol), F(r.ReactionGibbsKcalPerMol),
                 F(r.BarrierElectronicKcalPerMol), F(r.RateConstantPerSecond), F(r.HalfLifeSeconds), F(r.TemperatureKelvin), r.Verdict ?? "", r.ReviewStatus ?? "",
-                Q(r.LevelOfTheory), r.Consistent ? "yes" : "no", r.Stale ? "yes" : "no", Q(string.Join("; ", r.ConsistencyReasons.Select(c => c.Message))))).Append("\r\n");
+                Q(r.LevelOfTheory), r.Consistent ? "yes" : "no", r.Stale ? "yes" : "no", Q(string.Join("; ", r.ConsistencyReasons.Select(c => c.Message))),
+                F(r.RateConstantLower95), F(r.RateConstantUpper95), F(r.HalfLifeLower95), F(r.HalfLifeUpper95), Q(r.Uncertainty))).Append("\r\n");
         return sb.ToString();
     }
 

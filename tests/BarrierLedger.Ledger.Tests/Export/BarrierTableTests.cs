@@ -51,8 +51,34 @@ public class BarrierTableTests
         var t = ExportExamples.Table(new TableOptions([ExportColumn.RateConstant, ExportColumn.HalfLife]));
         Assert.Equal("1.23E-05", t.Rows[0].Cells[0].Plain);
         Assert.Equal("2.50E+03", t.Rows[1].Cells[0].Plain);
+        // Each of k and t½ is followed by its interval column, so t½ is the third cell.
+        Assert.Equal(["k (s⁻¹)", "k 95 % interval", "t½ (s)", "t½ 95 % interval (s)"], t.Headers.Select(h => h.Plain));
         // t½ = ln 2 / k = 0.693147 / 1.234e-5 s = 5.617e4 s.
-        Assert.Equal("5.62E+04", t.Rows[0].Cells[1].Plain);
+        Assert.Equal("5.62E+04", t.Rows[0].Cells[2].Plain);
+    }
+
+    // A rate never leaves without its interval: with no uncertainty set the interval cell says so, and with σ = 2 kcal/mol the
+    // 95 % bounds are k e^{∓zσ/RT}: z = 1.959964 (standard normal quantile, NIST/SEMATECH e-Handbook §1.3.6.7.1), RT = 0.592485
+    // kcal/mol at 298.15 K (CODATA 2018 R), zσ/RT = 6.61608, e^{6.61608} = 747.011 (independent computation with Python's
+    // statistics.NormalDist and math.exp): 1.234e-5 s⁻¹ gives 1.652e-8 to 9.218e-3 s⁻¹; t½ = 5.617e4 s gives 75.19 s to 4.196e7 s.
+    [Fact]
+    public void Build_FollowsEveryRateWithItsIntervalOrSaysNoneIsSet()
+    {
+        var none = ExportExamples.Table(new TableOptions([ExportColumn.RateConstant, ExportColumn.HalfLife]));
+        Assert.Equal("no uncertainty set", none.Rows[0].Cells[1].Plain);
+        Assert.Equal("no uncertainty set", none.Rows[0].Cells[3].Plain);
+        Assert.Contains(none.ModelLines, l => l.Contains("Rate intervals") && l.Contains("no uncertainty set"));
+
+        var sigma = ExportExamples.Source with { Model = ExportExamples.Source.Model with { Uncertainty = new BarrierLedger.Ledger.Kinetics.EnergyUncertainty(2.0, []) } };
+        var t = BarrierTable.Build(sigma, new TableOptions([ExportColumn.RateConstant, ExportColumn.HalfLife]));
+        Assert.Equal("1.65E-08 to 9.22E-03", t.Rows[0].Cells[1].Plain);
+        Assert.Equal("7.52E+01 to 4.20E+07", t.Rows[0].Cells[3].Plain);
+        // Each writer prints the bounds in its own notation for numbers over many decades.
+        Assert.Contains("1.65×10⁻⁸ to 9.22×10⁻³", MarkdownTableWriter.Write(t));
+        Assert.Contains("$1.65 \\times 10^{-8}$ to $9.22 \\times 10^{-3}$", LatexTableWriter.Write(t));
+        Assert.Contains(t.ModelLines, l => l.Contains("σ = 2.0 kcal/mol per barrier") && l.Contains("common practice, no source"));
+        // A column set without k or t½ gains no interval column.
+        Assert.Single(BarrierTable.Build(sigma, new TableOptions([ExportColumn.BarrierGibbs])).Headers);
     }
 
     [Fact]

@@ -149,7 +149,9 @@ public class TableWriterTests
         Assert.Contains("\\textsuperscript{b}", tex);
         Assert.Contains("512$i$", tex);
         Assert.Contains("$1.23 \\times 10^{-5}$", tex);
-        Assert.Contains("{llrrrrrrrllll}", tex);
+        // k and t½ are each followed by their (text) interval column.
+        Assert.Contains("{llrrrrrlrlrllll}", tex);
+        Assert.Contains("no uncertainty set", tex);
         // Every non-ASCII character left is a Latin letter that utf8 inputenc typesets.
         Assert.All(tex.Where(ch => ch > 127), ch => Assert.InRange(ch, '\u00c0', '\u017f'));
     }
@@ -200,7 +202,7 @@ public class TableWriterTests
         Assert.True(header > 0);
         var columns = s_table.Headers.Count + 1;
         Assert.Equal(columns + 1, lines[header].Count(c => c == '|'));
-        Assert.Equal("|---|---|---:|---:|---:|---:|---:|---:|---:|---|---|---|---|", lines[header + 1]);
+        Assert.Equal("|---|---|---:|---:|---:|---:|---:|---|---:|---|---:|---|---|---|---|", lines[header + 1]);
         // ΔG_r of the first row: −0.012345 Eh × 627.509474 kcal/mol per Eh (CODATA 2018) = −7.7466 → "−7.7" with a true minus.
         Assert.Contains("| \u22127.7 |", md);
         Assert.Contains("1.23×10⁻⁵", md);

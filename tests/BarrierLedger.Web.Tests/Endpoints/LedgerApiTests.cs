@@ -41,10 +41,17 @@ public sealed class LedgerApiTests
         // ΔE‡ = E(TS) − E(H2) − E(H) = −1.655 − (−1.17) − (−0.5) = 0.015 Eh, by hand from the invented energies.
         Assert.Equal(0.015, row.GetProperty("barrierElectronicHartree").GetDouble(), 9);
         Assert.Equal(Energy.FromHartree(0.015).KcalPerMol, row.GetProperty("barrierElectronicKcalPerMol").GetDouble(), 9);
+        // The rate carries its 95 % interval from the energy model's σ, here the new-model default of 2 kcal/mol: bounds k e^{∓zσ/RT},
+        // e^{zσ/RT} = 747.011 at 298.15 K (z = 1.959964, RT = 0.592485 kcal/mol; Python's statistics.NormalDist and math.exp).
+        Assert.Contains("σ = 2.0 kcal/mol per barrier", row.GetProperty("uncertainty").GetString());
+        var k = row.GetProperty("rateConstantPerSecond").GetDouble();
+        Assert.Equal(k / 747.011, row.GetProperty("rateConstantLower95").GetDouble(), k / 747.011 * 1e-5);
+        Assert.Equal(k * 747.011, row.GetProperty("rateConstantUpper95").GetDouble(), k * 747.011 * 1e-5);
 
         var csv = await reader.GetStringAsync($"/api/v1/studies/{studyId}/ledger?format=csv");
         var lines = csv.Split("\r\n", StringSplitOptions.RemoveEmptyEntries);
         Assert.StartsWith("reaction_id,label,barrier_gibbs_kcal_mol", lines[0]);
+        Assert.EndsWith("rate_constant_lower_95,rate_constant_upper_95,half_life_lower_95_s,half_life_upper_95_s,uncertainty", lines[0]);
         Assert.Equal(2, lines.Length);
         Assert.StartsWith($"{reactionId},H exchange,", lines[1]);
 

@@ -401,6 +401,14 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasMaxLength(20)
                         .HasColumnType("character varying(20)");
 
+                    b.Property<string>("UncertaintyByLevel")
+                        .IsRequired()
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
+                    b.Property<double?>("UncertaintyKcalPerMol")
+                        .HasColumnType("double precision");
+
                     b.Property<DateTimeOffset>("UpdatedAt")
                         .HasColumnType("timestamp with time zone");
 

@@ -356,6 +356,13 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                         .HasMaxLength(20)
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("UncertaintyByLevel")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<double?>("UncertaintyKcalPerMol")
+                        .HasColumnType("REAL");
+
                     b.Property<DateTimeOffset>("UpdatedAt")
                         .HasColumnType("TEXT");
 

@@ -1,0 +1,39 @@
+﻿using Microsoft.EntityFrameworkCore.Migrations;
+
+#nullable disable
+
+namespace BarrierLedger.Ledger.Migrations.Sqlite
+{
+    /// <inheritdoc />
+    public partial class EnergyUncertainty : Migration
+    {
+        /// <inheritdoc />
+        protected override void Up(MigrationBuilder migrationBuilder)
+        {
+            migrationBuilder.AddColumn<string>(
+                name: "UncertaintyByLevel",
+                table: "EnergyModels",
+                type: "TEXT",
+                nullable: false,
+                defaultValue: "");
+
+            migrationBuilder.AddColumn<double>(
+                name: "UncertaintyKcalPerMol",
+                table: "EnergyModels",
+                type: "REAL",
+                nullable: true);
+        }
+
+        /// <inheritdoc />
+        protected override void Down(MigrationBuilder migrationBuilder)
+        {
+            migrationBuilder.DropColumn(
+                name: "UncertaintyByLevel",
+                table: "EnergyModels");
+
+            migrationBuilder.DropColumn(
+                name: "UncertaintyKcalPerMol",
+                table: "EnergyModels");
+        }
+    }
+}
