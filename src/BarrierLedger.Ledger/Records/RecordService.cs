@@ -169,7 +169,7 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
             c.Kind = kind;
             c.SetLevel(level);
             return [];
-        }, c => ("calculation.edited", $"Calculation now '{c.Label}': {c.Kind} at {c.LevelOfTheory}" + (c.Note.Length > 0 ? $"; note: {c.Note}" : ".")), ct,
+        }, c => ("calculation.edited", $"Calculation now '{c.Label}': {c.Kind.Words()} at {c.LevelOfTheory}" + (c.Note.Length > 0 ? $"; note: {c.Note}" : ".")), ct,
         _ => inputsChanged);
     }
 

@@ -149,7 +149,7 @@ internal sealed class UploadPlan
             if (c.Conformer.Length > Calculation.MaxConformerLength)
                 plan.Error(file, $"calculation '{c.Label}': conformer label '{c.Conformer[..20]}…' is {c.Conformer.Length} characters long; at most {Calculation.MaxConformerLength} fit");
             if (c.Kind is CalculationKind.SaddlePoint or CalculationKind.Frequencies && c.Geometry is null)
-                plan.Error(file, $"calculation '{c.Label}' ({c.Kind}) has no geometry");
+                plan.Error(file, $"calculation '{c.Label}' ({c.Kind.Words()}) has no geometry");
 
             var frequencies = c.FrequenciesCm1;
             var modes = c.Modes;
