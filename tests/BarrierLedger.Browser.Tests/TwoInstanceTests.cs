@@ -15,7 +15,8 @@ public sealed class TwoInstanceTests
     {
         Chromium.SkipIfMissing();
         await using var database = await PostgresDatabase.CreateAsync();
-        string[] store = ["--BarrierLedger:Database:Provider=PostgreSQL", $"--BarrierLedger:Database:ConnectionString={database.ConnectionString}"];
+        string[] store = ["--BarrierLedger:Database:Provider=PostgreSQL", $"--BarrierLedger:Database:ConnectionString={database.ConnectionString}",
+            "--BarrierLedger:LoadDemo=true"]; // on PostgreSQL the demo (with its public passwords) is loaded only when asked for
         // The first instance migrates the empty database and loads the demo study; the second finds the store ready.
         await using var one = await AppProcess.StartAsync(store);
         await using var two = await AppProcess.StartAsync(store);

@@ -74,7 +74,7 @@ public static class KieTableWriter
 
     private static string N(double x) => x.ToString("G6", CultureInfo.InvariantCulture);
 
-    private static string Quote(string s) => s.IndexOfAny([',', '"', '\n']) >= 0 ? $"\"{s.Replace("\"", "\"\"", StringComparison.Ordinal)}\"" : s;
+    private static string Quote(string s) => CsvCells.Field(s);
 
     private static string Slug(string s) => string.Concat(s.Select(c => char.IsAsciiLetterOrDigit(c) ? char.ToLowerInvariant(c) : '-')).Trim('-');
 }

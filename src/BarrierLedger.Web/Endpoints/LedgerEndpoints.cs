@@ -111,15 +111,15 @@ internal static class LedgerEndpoints
         return !interval.IsSet ? null : lower ? interval.Lower : interval.Upper;
     }
 
-    /// <summary>RFC 4180 CSV, invariant culture, energies in kcal/mol; a stale or inconsistent row says so in its own columns.</summary>
+    /// <summary>RFC 4180 CSV, invariant culture, energies in kcal/mol; a stale or inconsistent row says so in its own columns; text cells neutralised (<see cref="BarrierLedger.Ledger.Export.CsvCells"/>).</summary>
     internal static string Csv(IReadOnlyList<ApiLedgerRow> rows)
     {
         static string F(double? v) => v?.ToString("R", CultureInfo.InvariantCulture) ?? "";
-        static string Q(string s) => s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"") + "\"" : s;
+        static string Q(string s) => BarrierLedger.Ledger.Export.CsvCells.Field(s);
         var sb = new StringBuilder("reaction_id,label,barrier_gibbs_kcal_mol,reaction_gibbs_kcal_mol,barrier_electronic_kcal_mol,rate_constant_per_s,half_life_s,temperature_k,verdict,review_status,level_of_theory,consistent,stale,reasons,rate_constant_lower_95,rate_constant_upper_95,half_life_lower_95_s,half_life_upper_95_s,uncertainty\r\n");
         foreach (var r in rows)
             sb.Append(string.Join(',', r.ReactionId.ToString(CultureInfo.InvariantCulture), Q(r.Label), F(r.BarrierGibbsKcalPerMol), F(r.ReactionGibbsKcalPerMol),
-                F(r.BarrierElectronicKcalPerMol), F(r.RateConstantPerSecond), F(r.HalfLifeSeconds), F(r.TemperatureKelvin), r.Verdict ?? "", r.ReviewStatus ?? "",
+                F(r.BarrierElectronicKcalPerMol), F(r.RateConstantPerSecond), F(r.HalfLifeSeconds), F(r.TemperatureKelvin), Q(r.Verdict ?? ""), Q(r.ReviewStatus ?? ""),
                 Q(r.LevelOfTheory), r.Consistent ? "yes" : "no", r.Stale ? "yes" : "no", Q(string.Join("; ", r.ConsistencyReasons.Select(c => c.Message))),
                 F(r.RateConstantLower95), F(r.RateConstantUpper95), F(r.HalfLifeLower95), F(r.HalfLifeUpper95), Q(r.Uncertainty))).Append("\r\n");
         return sb.ToString();

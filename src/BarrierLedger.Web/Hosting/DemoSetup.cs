@@ -12,11 +12,11 @@ namespace BarrierLedger.Web.Hosting;
 /// <summary>Settings of the demo scenario loaded into an empty store.</summary>
 public sealed class DemoOptions
 {
-    /// <summary>Load the demo study and demo accounts on first start with an empty store (turn off with --no-demo).</summary>
-    public bool LoadDemo { get; set; } = true;
+    /// <summary>Whether a first start with an empty store loads the demo study and demo accounts, and why (<see cref="DemoPolicy"/>).</summary>
+    public DemoPolicy.Decision Policy { get; init; } = new(true, "first local start on the embedded store");
 
     /// <summary>Folder with the demo files; by default the repository's seed-data/ found above the app.</summary>
-    public string? DemoDirectory { get; set; }
+    public string? DemoDirectory { get; init; }
 }
 
 /// <summary>The two demo accounts. Their passwords are public on purpose and shown on the sign-in page while the demo study is loaded.</summary>
@@ -46,7 +46,12 @@ public sealed class DemoSetup(
 
     public async Task LoadIfEmptyAsync(bool storeWasEmpty, CancellationToken ct = default)
     {
-        if (!options.LoadDemo || !storeWasEmpty) return;
+        if (!storeWasEmpty) return;
+        if (!options.Policy.Load)
+        {
+            log.LogInformation("No demo study or demo accounts: {Reason}.", options.Policy.Reason);
+            return;
+        }
         var dir = options.DemoDirectory ?? FindDemoDirectory();
         if (dir is null || !Directory.Exists(dir))
         {
@@ -91,7 +96,7 @@ public sealed class DemoSetup(
 
     /// <summary>True while the demo study is in the ledger (not retired): then the sign-in page shows the demo accounts.</summary>
     public async Task<bool> IsDemoLoadedAsync(CancellationToken ct = default) =>
-        options.LoadDemo && (await ledger.GetStudiesAsync(includeRetired: false, ct)).Any(s => s.Name == DemoScenario.StudyName)
+        (await ledger.GetStudiesAsync(includeRetired: false, ct)).Any(s => s.Name == DemoScenario.StudyName)
         && await users.FindByNameAsync(DemoAccounts.MemberUserName) is not null;
 
     private async Task<LedgerUser> EnsureUserAsync(string userName, string displayName, string password, string[] roles)

@@ -6,22 +6,37 @@ namespace BarrierLedger.Web.Hosting;
 
 public static class HostingExtensions
 {
-    /// <summary>Demo settings: "BarrierLedger:LoadDemo" and "BarrierLedger:DemoDirectory", and the --no-demo switch.</summary>
+    /// <summary>
+    /// Demo settings: "BarrierLedger:LoadDemo" (true, false or auto: see <see cref="DemoPolicy"/>), "BarrierLedger:Production",
+    /// "BarrierLedger:DemoDirectory", and the --no-demo switch.
+    /// </summary>
     public static IServiceCollection AddBarrierLedgerDemo(this IServiceCollection services, IConfiguration configuration, string[] args)
     {
-        var options = new DemoOptions();
-        configuration.GetSection("BarrierLedger").Bind(options);
-        if (args.Contains("--no-demo")) options.LoadDemo = false;
+        var raw = configuration["BarrierLedger:LoadDemo"];
+        bool? loadDemo = string.IsNullOrWhiteSpace(raw) || raw.Equals("auto", StringComparison.OrdinalIgnoreCase) ? null
+            : bool.TryParse(raw, out var b) ? b
+            : throw new InvalidOperationException($"BarrierLedger:LoadDemo is '{raw}'; use true, false or auto.");
+        if (args.Contains("--no-demo")) loadDemo = false;
+        var ledger = new LedgerOptions();
+        configuration.GetSection(LedgerOptions.SectionName).Bind(ledger);
+        var options = new DemoOptions
+        {
+            DemoDirectory = configuration["BarrierLedger:DemoDirectory"],
+            Policy = DemoPolicy.Decide(loadDemo, ledger.Database.Provider, DemoPolicy.ListenUrls(configuration),
+                configuration.GetValue<bool>("BarrierLedger:Production")),
+        };
         services.AddSingleton(options);
         services.AddScoped<DemoSetup>();
         return services;
     }
 
+    public const string DefaultAddress = "http://127.0.0.1:5080";
+
     /// <summary>The dashboard listens on http://127.0.0.1:5080 unless --urls (or ASPNETCORE_URLS) says otherwise.</summary>
     public static IWebHostBuilder UseBarrierLedgerDefaultAddress(this IWebHostBuilder web, IConfiguration configuration)
     {
         if (string.IsNullOrEmpty(configuration["urls"]) && string.IsNullOrEmpty(configuration["ASPNETCORE_URLS"]))
-            web.UseUrls("http://127.0.0.1:5080");
+            web.UseUrls(DefaultAddress);
         return web;
     }
 

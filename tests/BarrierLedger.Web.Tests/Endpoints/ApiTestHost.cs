@@ -21,11 +21,12 @@ namespace BarrierLedger.Web.Tests.Endpoints;
 /// </summary>
 public sealed class ApiTestHost : WebApplicationFactory<Program>
 {
-    private readonly IReadOnlyDictionary<string, string> _settings;
+    private readonly IReadOnlyDictionary<string, string?> _settings;
 
-    public ApiTestHost(IReadOnlyDictionary<string, string>? settings = null)
+    /// <param name="settings">Configuration over the test defaults; a null value leaves the setting to the app (e.g. LoadDemo unset).</param>
+    public ApiTestHost(IReadOnlyDictionary<string, string?>? settings = null)
     {
-        _settings = settings ?? new Dictionary<string, string>();
+        _settings = settings ?? new Dictionary<string, string?>();
         DataDirectory = Path.Combine(Path.GetTempPath(), "bl-api-" + Guid.NewGuid().ToString("N")[..10]);
         Directory.CreateDirectory(DataDirectory);
         UseKestrel();
@@ -45,8 +46,10 @@ public sealed class ApiTestHost : WebApplicationFactory<Program>
         builder.UseEnvironment("Production");
         builder.UseSetting("urls", "http://127.0.0.1:0");
         builder.UseSetting("BarrierLedger:DataDirectory", DataDirectory);
-        builder.UseSetting("BarrierLedger:LoadDemo", "false"); // an empty store, so counts show exactly what a test stored
-        foreach (var (k, v) in _settings) builder.UseSetting(k, v);
+        // An empty store, so counts show exactly what a test stored (unless a test names the setting, or leaves it to the app with null).
+        if (!_settings.ContainsKey("BarrierLedger:LoadDemo")) builder.UseSetting("BarrierLedger:LoadDemo", "false");
+        foreach (var (k, v) in _settings)
+            if (v is not null) builder.UseSetting(k, v);
         builder.ConfigureTestServices(s =>
         {
             s.RemoveAll<TimeProvider>();

@@ -110,7 +110,7 @@ public sealed class TokenAuthenticationTests
     [Fact]
     public async Task RateLimit_IsPerToken_429ProblemWithRetryAfter()
     {
-        await using var host = new ApiTestHost(new Dictionary<string, string> { ["BarrierLedger:Api:RequestsPerMinute"] = "3" });
+        await using var host = new ApiTestHost(new Dictionary<string, string?> { ["BarrierLedger:Api:RequestsPerMinute"] = "3" });
         var user = await host.CreateUserAsync("mira", Roles.Member);
         using var first = host.Client(await host.CreateTokenAsync(user, TokenScopes.Read));
         using var second = host.Client(await host.CreateTokenAsync(user, TokenScopes.Read));

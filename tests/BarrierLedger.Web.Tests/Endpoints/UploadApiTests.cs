@@ -122,7 +122,7 @@ public sealed class UploadApiTests
     public async Task OversizeUpload_Is413Problem_AndNothingIsStored()
     {
         const int limit = 64 * 1024;
-        await using var host = new ApiTestHost(new Dictionary<string, string> { ["BarrierLedger:Api:MaxUploadBytes"] = limit.ToString() });
+        await using var host = new ApiTestHost(new Dictionary<string, string?> { ["BarrierLedger:Api:MaxUploadBytes"] = limit.ToString() });
         var user = await host.CreateUserAsync("mira", Roles.Member);
         using var client = host.Client(await host.CreateTokenAsync(user, TokenScopes.Upload));
         // A valid file padded with comment-free trailing blank lines beyond the limit.
