@@ -41,7 +41,7 @@ public class BarrierTableTests
         Assert.Equal(ExportCaution.Text, t.Caution);
         Assert.Contains(t.ModelLines, l => l.Contains("wB97X-D/def2-TZVP (SMD, water)//B3LYP-D3/def2-SVP"));
         Assert.Contains(t.ModelLines, l => l.Contains("298.15 K") && l.Contains("1 mol/L"));
-        Assert.Contains(t.ModelLines, l => l.Contains("quasi-RRHO"));
+        Assert.Contains(t.ModelLines, l => l.Contains("low-mode entropy interpolated") && l.Contains("Grimme"));
         Assert.Contains(t.ModelLines, l => l.Contains("kcal/mol"));
     }
 

@@ -32,7 +32,7 @@ public class DiagramExportTests
         Assert.Contains("wB97X-D/def2-TZVP (SMD, water)//B3LYP-D3/def2-SVP", all);
         Assert.Contains("298.15 K", all);
         Assert.Contains("1 mol/L", all);
-        Assert.Contains("quasi-RRHO", all);
+        Assert.Contains("low-mode entropy interpolated", all);
         Assert.Contains("ΔG (kcal/mol)", all);
         Assert.Contains("thermal-hazard", all);
         // 0.0392 Eh × 627.509474 kcal/mol per Eh (CODATA 2018) = 24.598 → "24.6".

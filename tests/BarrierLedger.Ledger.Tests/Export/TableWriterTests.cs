@@ -33,7 +33,7 @@ public class TableWriterTests
         Assert.Contains("wB97X-D/def2-TZVP", text);
         Assert.Contains("298.15", text);
         Assert.Contains("1 mol/L", text);
-        Assert.Contains("quasi-RRHO", text);
+        Assert.Contains("low-mode entropy interpolated", text);
         Assert.Contains("kcal", text);
         Assert.Contains("process-safety or scale-up decisions", text);
         Assert.Contains("experimental thermal-hazard testing", text);
