@@ -23,11 +23,13 @@ builder.Services.AddDataProtection().SetApplicationName("BarrierLedger").Persist
 builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
 builder.Services.AddBarrierLedgerApi(builder.Configuration);
 builder.Services.AddLedgerExports();
+builder.Services.AddBarrierLedgerTransportSecurity(builder.Configuration);
 
 var app = builder.Build();
 
 await app.PrepareStoreAsync();
 
+app.UseBarrierLedgerTransportSecurity();
 if (!app.Environment.IsDevelopment())
 {
     app.UseExceptionHandler("/Error", createScopeForErrors: true);

@@ -46,6 +46,7 @@ public static class HostingExtensions
         var options = app.Services.GetRequiredService<LedgerOptions>();
         var factory = app.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>();
         await LedgerDatabase.PrepareAsync(options, factory);
+        TransportSecurity.MakeDataOwnerOnly(options);
         app.Logger.LogInformation("Ledger store: {Store}; web root: {WebRoot}", LedgerDatabase.Describe(options), app.Environment.WebRootPath);
 
         await using var scope = app.Services.CreateAsyncScope();
