@@ -38,6 +38,8 @@ internal static class PushCommand
         var multiplicity = new Option<int?>("--multiplicity") { Description = "Spin multiplicity (single structure file)" };
         var scanAtoms = new Option<string?>("--scan-atoms") { Description = "For a multi-frame XYZ relaxed scan: the scanned coordinate's atoms, 1-based, e.g. 2,3" };
         var ircOf = new Option<string?>("--irc-of") { Description = "The saddle-point calculation (label) that the XYZ files are an IRC of: one file is the path, two (with --together) the forward and backward ends" };
+        var conformer = new Option<string?>("--conformer") { Description = "The conformer of the species a single structure file is (e.g. c2); a multi-frame single-point XYZ is one conformer per frame" };
+        var conformerPerFile = new Option<bool>("--conformer-per-file") { Description = "Each structure file is one conformer of the species, named by its file name" };
         var together = new Option<bool>("--together") { Description = "Send all files as one upload (a bundle manifest with the files it names); default: one upload per file" };
         var retries = new Option<int>("--retries") { Description = "Retries after a transient failure (connection lost, 408, 429, 5xx)", DefaultValueFactory = _ => 5 };
         var retryDelay = new Option<double>("--retry-delay") { Description = "First back-off delay in seconds; it doubles with each retry (with jitter, at most 60 s)", DefaultValueFactory = _ => 2.0 };
@@ -45,13 +47,14 @@ internal static class PushCommand
 
         var command = new Command("push", "Upload result files to a running BarrierLedger server with a personal access token.")
         {
-            files, server, tokenFile, study, species, kind, level, charge, multiplicity, scanAtoms, ircOf, together, retries, retryDelay, timeout,
+            files, server, tokenFile, study, species, kind, level, charge, multiplicity, scanAtoms, ircOf, conformer, conformerPerFile, together, retries, retryDelay, timeout,
         };
         command.SetAction(pr =>
         {
             var settings = new PushSettings(
                 pr.GetValue(server)!, ReadToken(pr.GetValue(tokenFile)), pr.GetValue(retries), pr.GetValue(retryDelay), pr.GetValue(timeout),
-                Fields(pr.GetValue(study), pr.GetValue(species), pr.GetValue(kind), pr.GetValue(level), pr.GetValue(charge), pr.GetValue(multiplicity), pr.GetValue(scanAtoms), pr.GetValue(ircOf)));
+                Fields(pr.GetValue(study), pr.GetValue(species), pr.GetValue(kind), pr.GetValue(level), pr.GetValue(charge), pr.GetValue(multiplicity), pr.GetValue(scanAtoms), pr.GetValue(ircOf),
+                    pr.GetValue(conformer), pr.GetValue(conformerPerFile)));
             var paths = pr.GetValue(files)!;
             var missing = paths.Where(p => !File.Exists(p)).ToList();
             foreach (var m in missing) ctx.Err.WriteLine($"{m}: error: file not found");
@@ -81,7 +84,8 @@ internal static class PushCommand
         return token;
     }
 
-    private static List<(string, string)> Fields(string? study, string? species, string? kind, string? level, int? charge, int? multiplicity, string? scanAtoms, string? ircOf)
+    private static List<(string, string)> Fields(string? study, string? species, string? kind, string? level, int? charge, int? multiplicity, string? scanAtoms, string? ircOf,
+        string? conformer, bool conformerPerFile)
     {
         var fields = new List<(string, string)>();
         void Add(string name, string? value) { if (!string.IsNullOrWhiteSpace(value)) fields.Add((name, value.Trim())); }
@@ -93,6 +97,8 @@ internal static class PushCommand
         Add("multiplicity", multiplicity?.ToString(CultureInfo.InvariantCulture));
         Add("scanAtoms", scanAtoms);
         Add("ircOf", ircOf);
+        Add("conformer", conformer);
+        if (conformerPerFile) Add("conformerPerFile", "true");
         return fields;
     }
 

@@ -59,6 +59,10 @@ public sealed record BundleThermalCorrections(
 /// <param name="ThermalCorrections">Program-reported corrections at a temperature; null when not given.</param>
 /// <param name="File">Relative path of the file the calculation came from, a key of <see cref="Bundle.Files"/> when found.</param>
 /// <param name="Note">Free text from the manifest; empty when none.</param>
+/// <param name="Conformer">
+/// The conformer of its species this calculation belongs to, from the species' <c>conformers</c> list; empty when the species lists
+/// none (or does not list this calculation).
+/// </param>
 public sealed record BundleCalculation(
     string Label,
     string Species,
@@ -71,7 +75,8 @@ public sealed record BundleCalculation(
     ImmutableArray<double> HessianHartreePerBohr2,
     BundleThermalCorrections? ThermalCorrections,
     string? File,
-    string Note);
+    string Note,
+    string Conformer = "");
 
 /// <summary>Whether a state of a pathway is a minimum or a saddle point.</summary>
 public enum BundleStateKind

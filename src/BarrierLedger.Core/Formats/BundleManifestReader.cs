@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Text.Json;
 using static BarrierLedger.Core.Formats.BundleSchema;
 
 namespace BarrierLedger.Core.Formats;
@@ -45,6 +46,7 @@ internal static class BundleManifestReader
 
         // Species.
         var species = new Dictionary<string, SpeciesInfo>(StringComparer.Ordinal);
+        var conformerLists = new List<(string Species, string Path, JsonElement List)>();
         if (j.Array(root, "$", "species", required: true) is { } spArr)
         {
             var k = 0;
@@ -57,6 +59,8 @@ internal static class BundleManifestReader
                 var charge = j.Integer(sp, p, "charge", required: true);
                 var mult = j.Integer(sp, p, "multiplicity", required: true, min: 1);
                 if (label is null) continue;
+                if (JsonInput.Member(sp, "conformers") is not null && j.Array(sp, p, "conformers", required: false) is { } conf)
+                    conformerLists.Add((label, JsonInput.Child(p, "conformers"), conf));
                 if (species.TryGetValue(label, out var prior)) { issues.ErrorAt(JsonInput.Child(p, "label"), $"species '{label}' is already defined at {prior.Path}; labels must be unique"); continue; }
                 // A species whose charge or multiplicity is wrong keeps its label (the error is already listed), so that
                 // references to it do not raise a second, misleading "not in $.species" error.
@@ -81,6 +85,7 @@ internal static class BundleManifestReader
                 }
             }
         }
+        BundleConformerReader.Apply(conformerLists, j, calculations);
         var calcByLabel = calculations.ToDictionary(c => c.Label, StringComparer.Ordinal);
 
         // Reactions.

@@ -31,6 +31,16 @@ public static class BundleWriter
                 w.WriteString("label", s.Label);
                 w.WriteNumber("charge", s.Charge);
                 w.WriteNumber("multiplicity", s.Multiplicity);
+                var conformers = bundle.Calculations.Where(c => c.Species == s.Label && c.Conformer.Length > 0)
+                    .GroupBy(c => c.Conformer, StringComparer.Ordinal).ToList();
+                if (conformers.Count > 0)
+                    Objects(w, "conformers", conformers, g =>
+                    {
+                        w.WriteString("label", g.Key);
+                        w.WriteStartArray("calculations");
+                        foreach (var c in g) w.WriteStringValue(c.Label);
+                        w.WriteEndArray();
+                    });
             });
             Objects(w, "calculations", bundle.Calculations, c => Calculation(w, c));
             Objects(w, "reactions", bundle.Reactions, r =>

@@ -58,7 +58,7 @@ public sealed class ReactionBundleService(IDbContextFactory<LedgerDbContext> fac
                 derivedFromHessian || c.AtomCount == 0 ? [] : [.. Blobs.ToModes(c.Modes, c.AtomCount)],
                 format == FileFormat.QcSchema ? [] : [.. hessian],
                 c.ThermalTemperatureKelvin is { } t ? new BundleThermalCorrections(t, c.ZeroPointHartree, c.EnthalpyCorrectionHartree, c.GibbsCorrectionHartree) : null,
-                file, c.Note);
+                file, c.Note, c.Conformer);
         }).ToImmutableArray();
 
         var bundleScans = scans.Select(s =>

@@ -17,6 +17,14 @@ public class Calculation : IVersioned, IRetirable
     /// <summary>Label given in the upload (unique per upload).</summary>
     public string Label { get; set; } = "";
     public CalculationKind Kind { get; set; }
+    /// <summary>
+    /// The conformer of the species this calculation belongs to ("c1", "anti"...): calculations with the same label are one
+    /// conformer (its optimisation, frequencies, single points). Empty when the species was given as one structure only; the
+    /// empty label is then the species' one conformer.
+    /// </summary>
+    public string Conformer { get; set; } = "";
+    /// <summary>The longest conformer label the store keeps.</summary>
+    public const int MaxConformerLength = 100;
 
     /// <summary>Level of theory as written ("A//B" for a single point at A on geometry from B).</summary>
     public string LevelOfTheory { get; set; } = "";

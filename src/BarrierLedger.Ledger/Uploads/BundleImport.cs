@@ -48,7 +48,7 @@ internal static class BundleImport
             draft.Calculations.Add(new DraftCalculation(c.Label, c.Species, c.Kind, c.LevelOfTheory, c.EnergyHartree, c.Geometry,
                 c.FrequenciesCm1, c.Modes, c.HessianHartreePerBohr2,
                 c.ThermalCorrections?.TemperatureKelvin, c.ThermalCorrections?.ZeroPointHartree, c.ThermalCorrections?.EnthalpyHartree,
-                c.ThermalCorrections?.GibbsHartree, FileKey(c.File), c.Note));
+                c.ThermalCorrections?.GibbsHartree, FileKey(c.File), c.Note, c.Conformer));
         foreach (var r in b.Reactions)
             draft.Reactions.Add(new DraftReaction(r.Label, r.Description, [.. r.States.Select(s => new DraftState(s.Label,
                 s.Kind == BundleStateKind.SaddlePoint ? StateKind.SaddlePoint : StateKind.Minimum,

@@ -49,7 +49,8 @@ internal static class SingleFileFormats
         var mol = r.Molecule with { Charge = choices.Charge ?? r.Molecule.Charge, Multiplicity = choices.Multiplicity ?? r.Molecule.Multiplicity };
         draft.Species.Add(new DraftSpecies(species, mol.Charge, mol.Multiplicity));
         draft.Calculations.Add(new DraftCalculation(Path.GetFileNameWithoutExtension(file.FileName), species, kind.Value, level, r.EnergyHartree, mol,
-            [], [], r.HessianHartreePerBohr2, null, null, null, null, file.FileName, r.Program is null ? "" : $"program: {r.Program}"));
+            [], [], r.HessianHartreePerBohr2, null, null, null, null, file.FileName, r.Program is null ? "" : $"program: {r.Program}",
+            choices.Conformer?.Trim() ?? ""));
     }
 
     private static void ReadScanTable(UploadFile file, UploadChoices choices, ReaderLimits? limits, UploadDraft draft)

@@ -25,6 +25,8 @@ public sealed record UploadChoices
     public CalculationKind? Kind { get; init; }
     public string? LevelOfTheory { get; init; }
     public int? AttachToStateId { get; init; }
+    /// <summary>The conformer a single structure file is (empty: the species' only conformer). A multi-frame single-point file makes one conformer per frame.</summary>
+    public string? Conformer { get; init; }
     /// <summary>For a multi-frame XYZ uploaded as a relaxed scan: the scanned coordinate's atoms, 1-based (2, 3 or 4 of them).</summary>
     public IReadOnlyList<int>? ScanAtoms { get; init; }
     /// <summary>
@@ -37,23 +39,37 @@ public sealed record UploadChoices
     /// <summary>Per-file choices by file name (the upload page's one row per file); what a row leaves empty falls back to the fields above.</summary>
     public IReadOnlyDictionary<string, FileChoices>? Files { get; init; }
 
+    /// <summary>
+    /// Several structure files for one species, each one conformer of it: a file without its own conformer label takes its file
+    /// name (without extension) as the label.
+    /// </summary>
+    public bool ConformerPerFile { get; init; }
+
     /// <summary>The choices that apply to one single file: its row's values over the upload-wide ones.</summary>
-    public UploadChoices For(string fileName) => Files is not null && Files.TryGetValue(fileName, out var f)
-        ? this with
-        {
-            SpeciesLabel = string.IsNullOrWhiteSpace(f.SpeciesLabel) ? SpeciesLabel : f.SpeciesLabel,
-            Kind = f.Kind ?? Kind,
-            LevelOfTheory = string.IsNullOrWhiteSpace(f.LevelOfTheory) ? LevelOfTheory : f.LevelOfTheory,
-            Charge = f.Charge ?? Charge,
-            Multiplicity = f.Multiplicity ?? Multiplicity,
-            ScanAtoms = f.ScanAtoms is { Count: > 0 } ? f.ScanAtoms : ScanAtoms,
-        }
-        : this;
+    public UploadChoices For(string fileName)
+    {
+        var c = Files is not null && Files.TryGetValue(fileName, out var f)
+            ? this with
+            {
+                SpeciesLabel = string.IsNullOrWhiteSpace(f.SpeciesLabel) ? SpeciesLabel : f.SpeciesLabel,
+                Kind = f.Kind ?? Kind,
+                LevelOfTheory = string.IsNullOrWhiteSpace(f.LevelOfTheory) ? LevelOfTheory : f.LevelOfTheory,
+                Charge = f.Charge ?? Charge,
+                Multiplicity = f.Multiplicity ?? Multiplicity,
+                ScanAtoms = f.ScanAtoms is { Count: > 0 } ? f.ScanAtoms : ScanAtoms,
+                Conformer = string.IsNullOrWhiteSpace(f.Conformer) ? Conformer : f.Conformer,
+            }
+            : this;
+        return c.ConformerPerFile && string.IsNullOrWhiteSpace(c.Conformer) ? c with { Conformer = Path.GetFileNameWithoutExtension(fileName) } : c;
+    }
 }
 
-/// <summary>What one single file is: its species, kind, level of theory, charge, multiplicity and, for a scan, its coordinate's 1-based atoms.</summary>
+/// <summary>
+/// What one single file is: its species, kind, level of theory, charge, multiplicity, for a scan its coordinate's 1-based atoms,
+/// and the conformer of the species it is (empty: the species' only conformer).
+/// </summary>
 public sealed record FileChoices(string? SpeciesLabel = null, CalculationKind? Kind = null, string? LevelOfTheory = null, int? Charge = null,
-    int? Multiplicity = null, IReadOnlyList<int>? ScanAtoms = null);
+    int? Multiplicity = null, IReadOnlyList<int>? ScanAtoms = null, string? Conformer = null);
 
 /// <summary>Where an issue was found: file, 1-based line or JSON path (any may be absent), and what is wrong.</summary>
 public sealed record UploadIssue(string FileName, int? Line, string? JsonPath, string Message, bool IsError = true)
@@ -101,7 +117,8 @@ public sealed record DraftCalculation(
     double? EnthalpyCorrectionHartree,
     double? GibbsCorrectionHartree,
     string? File,
-    string Note);
+    string Note,
+    string Conformer = "");
 
 public sealed record DraftTerm(string Species, int Coefficient);
 

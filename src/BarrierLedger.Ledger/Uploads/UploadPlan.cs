@@ -136,6 +136,8 @@ internal sealed class UploadPlan
                     plan.Error(file, $"calculation '{c.Label}': {g.ElectronCount} electrons cannot have spin multiplicity {species.Multiplicity}");
             }
             if (c.EnergyHartree is { } e && !double.IsFinite(e)) plan.Error(file, $"calculation '{c.Label}' has a non-finite energy");
+            if (c.Conformer.Length > Calculation.MaxConformerLength)
+                plan.Error(file, $"calculation '{c.Label}': conformer label '{c.Conformer[..20]}…' is {c.Conformer.Length} characters long; at most {Calculation.MaxConformerLength} fit");
             if (c.Kind is CalculationKind.SaddlePoint or CalculationKind.Frequencies && c.Geometry is null)
                 plan.Error(file, $"calculation '{c.Label}' ({c.Kind}) has no geometry");
 

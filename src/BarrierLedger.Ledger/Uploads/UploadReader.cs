@@ -115,10 +115,49 @@ public static class UploadReader
             return;
         }
 
+        if (kind == CalculationKind.SinglePoint && doc.Frames.Length > 1)
+        {
+            AddConformerFrames(f, doc, species, level, charge, multiplicity, draft);
+            return;
+        }
+
         var last = doc.Last;
         var geometry = last.Molecule with { Charge = charge, Multiplicity = multiplicity };
         draft.Calculations.Add(new DraftCalculation(label, species, kind, level, last.EnergyHartree, geometry,
-            [], [], [], null, null, null, null, f.FileName, doc.Frames.Length > 1 ? $"last of {doc.Frames.Length} frames" : ""));
+            [], [], [], null, null, null, null, f.FileName, doc.Frames.Length > 1 ? $"last of {doc.Frames.Length} frames" : "",
+            choices.Conformer?.Trim() ?? ""));
+    }
+
+    /// <summary>
+    /// A multi-frame XYZ of single points: one conformer per frame, each with its own energy (a bare number or energy=... on the
+    /// comment line). The conformer's label is the frame's conformer=... key, else c1, c2 ... by frame; the calculation's label is
+    /// the file's name with the conformer's.
+    /// </summary>
+    private static void AddConformerFrames(UploadFile f, XyzDocument doc, string species, LevelOfTheory level, int charge, int multiplicity, UploadDraft draft)
+    {
+        var stem = Path.GetFileNameWithoutExtension(f.FileName);
+        var seen = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var k = 0; k < doc.Frames.Length; k++)
+        {
+            var frame = doc.Frames[k];
+            var conformer = frame.Keys.TryGetValue("conformer", out var named) && !string.IsNullOrWhiteSpace(named) ? named.Trim() : $"c{k + 1}";
+            if (seen.TryGetValue(conformer, out var first))
+            {
+                draft.Issues.Add(new UploadIssue(f.FileName, frame.FirstLine, null,
+                    $"conformer '{conformer}' is already the name of frame {first + 1}; each frame of a single-point file is one conformer"));
+                continue;
+            }
+            seen[conformer] = k;
+            if (frame.EnergyHartree is not { } e)
+            {
+                draft.Issues.Add(new UploadIssue(f.FileName, frame.FirstLine, null,
+                    $"frame {k + 1} has no energy on its comment line (a bare number or energy=...); each frame of a single-point file is one conformer with its energy"));
+                continue;
+            }
+            draft.Calculations.Add(new DraftCalculation($"{stem}-{conformer}", species, CalculationKind.SinglePoint, level, e,
+                frame.Molecule with { Charge = charge, Multiplicity = multiplicity }, [], [], [], null, null, null, null, f.FileName,
+                $"frame {k + 1} of {doc.Frames.Length}", conformer));
+        }
     }
 
     /// <summary>

@@ -53,6 +53,12 @@ public sealed record UploadOutcome(
     /// <summary>The IRCs written.</summary>
     public IReadOnlyList<int> IrcIds { get; init; } = [];
 
+    /// <summary>
+    /// For each species this upload gave conformers to: how many it now has, and its duplicates and mirror-image pairs, compared on
+    /// store (<see cref="Conformers.ConformerSet"/>). Empty when the upload named no conformers.
+    /// </summary>
+    public IReadOnlyList<string> ConformerNotes { get; init; } = [];
+
     /// <summary>This uploader stored the same content under the same key before; nothing new was written.</summary>
     public bool AlreadyStored { get; init; }
 

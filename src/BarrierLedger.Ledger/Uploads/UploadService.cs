@@ -129,7 +129,7 @@ public sealed class UploadService(
             var level = c.Draft.LevelOfTheory;
             var rec = new Calculation
             {
-                Species = species, UploadId = upload.Id, Label = c.Draft.Label, Kind = c.Draft.Kind,
+                Species = species, UploadId = upload.Id, Label = c.Draft.Label, Kind = c.Draft.Kind, Conformer = c.Draft.Conformer,
                 EnergyHartree = c.Draft.EnergyHartree,
                 AtomCount = c.Draft.Geometry?.AtomCount ?? 0,
                 AtomicNumbers = c.Draft.Geometry is { } g ? Blobs.FromElements(g.Elements) : null,
@@ -255,11 +255,25 @@ public sealed class UploadService(
         db.ChangeTracker.Clear();
         await derivation.AfterInputsChangedAsync(db, study.Id, touchedSpecies, reactionIds, ct);
 
+        // Conformers compared on store: duplicates and mirror images among each touched species' conformers are reported now.
+        var conformerSpecies = plan.NewCalculations.Where(c => c.Draft.Conformer.Length > 0).Select(c => speciesByLabel[c.Draft.Species].Id).Distinct().ToList();
+        var conformerNotes = new List<string>();
+        if (conformerSpecies.Count > 0)
+        {
+            var sets = await Conformers.ConformerSet.LoadAsync(db, conformerSpecies, ct);
+            foreach (var s in speciesByLabel.Values.Where(s => sets.ContainsKey(s.Id)).OrderBy(s => s.Label, StringComparer.Ordinal))
+            {
+                var set = sets[s.Id];
+                conformerNotes.Add($"species {s.Label}: {set.Conformers.Length} conformer(s)" + (set.Comparison is { } cmp ? $"; {cmp.Summary}" : ""));
+                conformerNotes.AddRange(set.Notes(s.Label));
+            }
+        }
+
         return new UploadOutcome(true, upload.Id, study.Id, newCalcIds, reactionIds, scanIds,
             [.. plan.DuplicateCalculationIds.Select(d => $"calculation '{d.Label}' of species '{plan.Draft.Calculations.First(c => c.Label == d.Label).Species}' is already stored (same file); not stored again"),
              .. plan.DuplicateScans.Select(s => $"scan '{s}' is already stored (same file); not stored again"),
              .. plan.DuplicateIrcs.Select(i => $"IRC '{i}' is already stored for its saddle point (same file); not stored again")],
-            plan.Issues) { IrcIds = ircIds };
+            plan.Issues) { IrcIds = ircIds, ConformerNotes = conformerNotes };
     }
 
     internal static async Task InsertScanPointsAsync(LedgerDbContext db, int scanId, IReadOnlyList<Core.Scans.ScanPoint> points, CancellationToken ct)

@@ -14,6 +14,7 @@ public sealed record ApiFileReceipt(string Name, long SizeBytes, string Sha256);
 /// <summary>
 /// A stored upload. <see cref="AlreadyStored"/>: an upload with the same key was stored before and nothing new was written.
 /// <see cref="Duplicates"/>: records that were already in the ledger from the same file and were not stored again.
+/// <see cref="Conformers"/>: for each species the upload gave conformers to, their count, duplicates and mirror images.
 /// </summary>
 public sealed record UploadResponse(bool Stored, bool AlreadyStored, int? UploadId, int? StudyId, IReadOnlyList<int> CalculationIds,
     IReadOnlyList<int> ReactionIds, IReadOnlyList<int> ScanIds, IReadOnlyList<string> Duplicates, IReadOnlyList<ApiIssue> Warnings,
@@ -21,6 +22,9 @@ public sealed record UploadResponse(bool Stored, bool AlreadyStored, int? Upload
 {
     /// <summary>The IRCs written.</summary>
     public IReadOnlyList<int> IrcIds { get; init; } = [];
+
+    /// <summary>For each species the upload gave conformers to: their count, duplicates and mirror-image pairs.</summary>
+    public IReadOnlyList<string> Conformers { get; init; } = [];
 }
 
 /// <summary>POST /api/v1/uploads (store) and POST /api/v1/uploads/preview (check only): the browser upload's workflow over HTTP.</summary>
@@ -71,7 +75,7 @@ internal static class UploadEndpoints
         if (!outcome.Stored) return ApiProblems.UploadRejected(outcome.Issues);
         var again = outcome.AlreadyStored;
         var body = new UploadResponse(true, again, outcome.UploadId, outcome.StudyId, outcome.CalculationIds, outcome.ReactionIds, outcome.ScanIds,
-            outcome.Duplicates, [.. outcome.Issues.Where(i => !i.IsError).Select(ApiIssue.From)], received.Receipts) { IrcIds = outcome.IrcIds };
+            outcome.Duplicates, [.. outcome.Issues.Where(i => !i.IsError).Select(ApiIssue.From)], received.Receipts) { IrcIds = outcome.IrcIds, Conformers = outcome.ConformerNotes };
         return Results.Json(body, statusCode: again ? StatusCodes.Status200OK : StatusCodes.Status201Created);
     }
 
@@ -134,6 +138,13 @@ internal static class UploadEndpoints
             errors.Add($"field '{field}': '{v}' is not a whole number");
             return null;
         }
+        bool Bool(string field)
+        {
+            if (Text(field) is not { } v) return false;
+            if (bool.TryParse(v, out var b)) return b;
+            errors.Add($"field '{field}': '{v}' is not true or false");
+            return false;
+        }
         CalculationKind? kind = null;
         if (Text("kind") is { } k)
         {
@@ -154,6 +165,7 @@ internal static class UploadEndpoints
         {
             NewStudyName = Text("study"), StudyId = Int("studyId"), SpeciesLabel = Text("species"), Kind = kind, LevelOfTheory = Text("level"),
             Charge = Int("charge"), Multiplicity = Int("multiplicity"), ScanAtoms = scanAtoms, AttachToStateId = Int("attachToState"), IrcOf = Text("ircOf"), UploadKey = key,
+            Conformer = Text("conformer"), ConformerPerFile = Bool("conformerPerFile"),
         };
         if (errors.Count > 0) return (null, ApiProblems.BadRequest(string.Join("; ", errors) + "."));
         return (new Received(files, choices, receipts), null);

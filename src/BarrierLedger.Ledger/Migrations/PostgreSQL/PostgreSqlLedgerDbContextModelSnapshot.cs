@@ -228,6 +228,12 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasColumnType("text")
                         .UseCollation("C");
 
+                    b.Property<string>("Conformer")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("character varying(100)")
+                        .UseCollation("C");
+
                     b.Property<double?>("EnergyHartree")
                         .HasColumnType("double precision");
 

@@ -197,6 +197,11 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                         .IsRequired()
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("Conformer")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
                     b.Property<double?>("EnergyHartree")
                         .HasColumnType("REAL");
 
