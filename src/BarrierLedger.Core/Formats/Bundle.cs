@@ -33,8 +33,11 @@ public sealed record Bundle(
 /// <summary>The study the bundle belongs to.</summary>
 public sealed record BundleStudy(string Name, string Description);
 
-/// <summary>A chemical species: label unique in the bundle, total charge, spin multiplicity 2S+1.</summary>
-public sealed record BundleSpecies(string Label, int Charge, int Multiplicity);
+/// <summary>
+/// A chemical species: label unique in the bundle, total charge, spin multiplicity 2S+1, and optionally the rotational symmetry
+/// number σ to use for it (<c>symmetry_number</c>; when absent the ledger detects σ from the geometry).
+/// </summary>
+public sealed record BundleSpecies(string Label, int Charge, int Multiplicity, int? SymmetryNumber = null);
 
 /// <summary>Program-reported thermal corrections (hartree, added to the electronic energy) at a temperature.</summary>
 public sealed record BundleThermalCorrections(

@@ -58,13 +58,14 @@ internal static class BundleManifestReader
                 var label = j.String(sp, p, "label", required: true);
                 var charge = j.Integer(sp, p, "charge", required: true);
                 var mult = j.Integer(sp, p, "multiplicity", required: true, min: 1);
+                var sigma = j.Integer(sp, p, "symmetry_number", required: false, min: 1);
                 if (label is null) continue;
                 if (JsonInput.Member(sp, "conformers") is not null && j.Array(sp, p, "conformers", required: false) is { } conf)
                     conformerLists.Add((label, JsonInput.Child(p, "conformers"), conf));
                 if (species.TryGetValue(label, out var prior)) { issues.ErrorAt(JsonInput.Child(p, "label"), $"species '{label}' is already defined at {prior.Path}; labels must be unique"); continue; }
                 // A species whose charge or multiplicity is wrong keeps its label (the error is already listed), so that
                 // references to it do not raise a second, misleading "not in $.species" error.
-                species[label] = new SpeciesInfo(new BundleSpecies(label, charge ?? 0, mult ?? 1), p, charge is not null && mult is not null);
+                species[label] = new SpeciesInfo(new BundleSpecies(label, charge ?? 0, mult ?? 1, sigma), p, charge is not null && mult is not null);
             }
             if (k == 0) issues.ErrorAt("$.species", "is empty; expected at least one species");
         }

@@ -85,7 +85,7 @@ internal static class BundleReactionReader
             ok = false;
         }
         if (calc is not null && kind == BundleStateKind.SaddlePoint && calc.Kind is not (CalculationKind.SaddlePoint or CalculationKind.Frequencies or CalculationKind.SinglePoint))
-            issues.WarningAt(JsonInput.Child(p, "calculation"), $"calculation '{calc.Label}' is of kind {calc.Kind}, not a saddle point");
+            issues.WarningAt(JsonInput.Child(p, "calculation"), $"calculation '{calc.Label}' is a {calc.Kind.Words()} calculation, not a saddle point");
         var pairs = new List<BundleAtomPair>();
         // "reacting_bonds" (the forming and breaking atom pairs); "reaction_coordinate" is the name format_version 1 bundles were
         // first written with: still read, never written, and not both at once.

@@ -24,7 +24,7 @@ public static class BundleSchema
     {
         ["bundle"] = ["format", "format_version", "study", "species", "calculations", "reactions", "scans", "ircs"],
         ["study"] = ["name", "description"],
-        ["species"] = ["label", "charge", "multiplicity", "conformers"],
+        ["species"] = ["label", "charge", "multiplicity", "symmetry_number", "conformers"],
         ["conformer"] = ["label", "calculations"],
         ["calculation"] = ["label", "species", "kind", "level_of_theory", "energy_hartree", "file", "geometry", "frequencies_cm1", "modes",
             "hessian_hartree_per_bohr2", "thermal_corrections", "note"],

@@ -31,6 +31,7 @@ public static class BundleWriter
                 w.WriteString("label", s.Label);
                 w.WriteNumber("charge", s.Charge);
                 w.WriteNumber("multiplicity", s.Multiplicity);
+                if (s.SymmetryNumber is { } sigma) w.WriteNumber("symmetry_number", sigma);
                 var conformers = bundle.Calculations.Where(c => c.Species == s.Label && c.Conformer.Length > 0)
                     .GroupBy(c => c.Conformer, StringComparer.Ordinal).ToList();
                 if (conformers.Count > 0)

@@ -8,7 +8,13 @@ using BarrierLedger.Ledger.Storage;
 namespace BarrierLedger.Ledger.Derivation;
 
 /// <summary>Evidence stored with a frequency check (JSON): imaginary modes with their character, and the scan comparison.</summary>
-public sealed record CheckEvidence(IReadOnlyList<ModeEvidence> ImaginaryModes, ScanEvidence? Scan, double ThresholdCm1);
+public sealed record CheckEvidence(IReadOnlyList<ModeEvidence> ImaginaryModes, ScanEvidence? Scan, double ThresholdCm1)
+{
+    /// <summary>Which states the IRC connects (issue 20), when the saddle point has an IRC.</summary>
+    public ConnectionEvidence? Connection { get; init; }
+    /// <summary>Whether the bonds the imaginary mode makes and breaks are those between the neighbouring states.</summary>
+    public PredictionEvidence? ModePrediction { get; init; }
+}
 
 /// <summary>One imaginary mode: wavenumber (negative), significant or soft, class, summary and its leading motions.</summary>
 public sealed record ModeEvidence(int ModeIndex, double FrequencyCm1, bool Significant, string Class, bool RotorLike, string Summary, IReadOnlyList<ComponentEvidence> Leading);
@@ -27,12 +33,16 @@ internal static class CheckRunner
     public const string NoGeometryCode = "saddle.no-geometry";
 
     public sealed record Input(int CalculationId, Molecule? Geometry, NormalMode[] Modes, double[] Frequencies, (int A, int B)[] PairsOneBased,
-        int? ScanId, IReadOnlyList<ScanPoint>? ScanPoints, ScanCoordinate? ScanCoordinate);
+        int? ScanId, IReadOnlyList<ScanPoint>? ScanPoints, ScanCoordinate? ScanCoordinate)
+    {
+        /// <summary>The neighbouring states and the IRC, for the connection check and the mode's bond-change prediction.</summary>
+        public ConnectionInputs? Connection { get; init; }
+    }
 
     /// <summary>What a check depends on: the calculation, the thresholds, the declared pairs and the scan (id and size).</summary>
-    public static string Fingerprint(int calculationId, (int A, int B)[] pairsOneBased, int? scanId, int? scanPointCount, ModelSettings model) =>
-        ModelSettings.Hash(string.Join("|", "k1", calculationId, model.CheckFingerprint,
-            string.Join(",", pairsOneBased.Select(p => $"{p.A}-{p.B}")), scanId, scanPointCount));
+    public static string Fingerprint(int calculationId, (int A, int B)[] pairsOneBased, int? scanId, int? scanPointCount, ModelSettings model, string connection = "") =>
+        ModelSettings.Hash(string.Join("|", "k2", calculationId, model.CheckFingerprint,
+            string.Join(",", pairsOneBased.Select(p => $"{p.A}-{p.B}")), scanId, scanPointCount, connection));
 
     public static (Verdict Verdict, string ReasonsJson, string EvidenceJson) Run(Input i, ModelSettings model)
     {
@@ -60,11 +70,35 @@ internal static class CheckRunner
         ModeEvidence Evidence(SoftMode s, bool significant) => new(modeIndex.GetValueOrDefault(s.Mode, -1), s.Mode.FrequencyCm1, significant,
             s.Character.Class.ToString(), s.Character.RotorLike, s.Character.Summary,
             [.. s.Character.Leading(3).Select(c => new ComponentEvidence(c.Label, c.Share, c.IsReactionBond))]);
+        var all = result.Reasons.ToList();
+        ConnectionEvidence? connection = null;
+        PredictionEvidence? prediction = null;
+        if (i.Connection is { } ci)
+        {
+            // Issue 20: where the IRC leads joins the evidence and the verdict; without one, the mode's bond-change prediction does.
+            if (ci.CheckInput(i.Geometry) is { } check)
+            {
+                var c = ConnectionCheck.Run(check);
+                all.AddRange(c.Reasons);
+                connection = new ConnectionEvidence(ci.Irc!.Id, ci.Irc.Form == Core.Formats.IrcForm.Path ? "path" : "endpoint pair", c.Connection.ToString(), c.Headline,
+                    [.. c.Ends.Select(e => new EndEvidence(e.Name, e.Reached?.State, e.ReachedIsNeighbour, e.Reached is { } r && double.IsFinite(r.RmsdAngstrom) ? r.RmsdAngstrom : null,
+                        e.Reached?.Explanation ?? (e.Comparisons.Length > 0 ? e.Comparisons[0].Explanation : "not compared")))],
+                    c.SaddleFrameRmsdAngstrom);
+            }
+            if (result.SignificantMode is { } mode && !mode.DisplacementCartesian.IsDefaultOrEmpty)
+            {
+                var p = ModeBondPrediction.Run(i.Geometry, mode, ci.Before, ci.After);
+                // With an IRC the IRC decides; the prediction is then reported, not weighed.
+                all.AddRange(connection is null ? p.Reasons : p.Reasons.Select(r => r with { Severity = CheckSeverity.Info }));
+                prediction = new PredictionEvidence(p.Outcome.ToString(), p.AmplitudeAngstrom, p.Reasons[0].Message);
+            }
+        }
+        var ordered = all.OrderByDescending(r => r.Severity).ToList();
         var ev = new CheckEvidence(
             [.. result.SignificantModes.Select(s => Evidence(s, true)), .. result.SoftModes.Select(s => Evidence(s, false))],
             result.Scan is { } sc && i.ScanId is { } sid ? new ScanEvidence(sid, sc.SaddleCoordinate, sc.ScanMaximumCoordinate, sc.DistanceInSteps, sc.Unit) : null,
-            threshold);
-        return (result.Verdict, DerivedJson.Write(result.Reasons.Select(r => new StoredReason(r.Code, r.Severity.ToString(), r.Message)).ToList()),
+            threshold) { Connection = connection, ModePrediction = prediction };
+        return (CheckReason.VerdictOf(ordered), DerivedJson.Write(ordered.Select(r => new StoredReason(r.Code, r.Severity.ToString(), r.Message)).ToList()),
             DerivedJson.Write(ev));
     }
 

@@ -9,7 +9,9 @@ internal sealed record StateInput(int Id, int Position, string Label, StateKind 
 
 internal sealed record ReactionInput(int Id, int StudyId, long InputsRevision, StateInput[] States);
 
-internal sealed record SpeciesInput(int Id, string Label, int Charge, int Multiplicity, string Formula, int SymmetryNumber);
+/// <summary>A species as the derivation reads it; <see cref="SymmetryNumber"/> is the σ in use (override, else detected, else 1).</summary>
+internal sealed record SpeciesInput(int Id, string Label, int Charge, int Multiplicity, string Formula, int SymmetryNumber, int? SymmetryNumberOverride,
+    int? SymmetryCalculationId);
 
 internal sealed record CalcInput(int Id, int SpeciesId, CalculationKind Kind, string LevelOfTheory, string EnergyKey, string GeometryKey, double? EnergyHartree,
     byte[]? AtomicNumbers, byte[]? Positions, byte[]? Frequencies, double? ThermalTemperatureKelvin, double? ZeroPointHartree,
@@ -19,6 +21,7 @@ internal sealed record CalcInput(int Id, int SpeciesId, CalculationKind Kind, st
 internal sealed class DerivationInputs
 {
     public required List<ReactionInput> Reactions { get; init; }
+    /// <summary>Species by id; <see cref="SpeciesSymmetry.Refresh"/> replaces entries whose point group it found anew.</summary>
     public required Dictionary<int, SpeciesInput> Species { get; init; }
     public required ILookup<int, CalcInput> CalculationsBySpecies { get; init; }
     public required Dictionary<int, CalcInput> Calculations { get; init; }
@@ -28,7 +31,8 @@ internal sealed class DerivationInputs
     /// store as one array parameter each (<c>EF.Parameter</c>): EF 10 otherwise sends one SQL parameter per id, and a query over
     /// 10,000 species ids then spends most of its time being prepared.
     /// </summary>
-    public static async Task<DerivationInputs> LoadAsync(LedgerDbContext db, IReadOnlyCollection<int>? studyIds, IReadOnlyCollection<int>? reactionIds, CancellationToken ct)
+    public static async Task<DerivationInputs> LoadAsync(LedgerDbContext db, IReadOnlyCollection<int>? studyIds, IReadOnlyCollection<int>? reactionIds, CancellationToken ct,
+        IEnumerable<int>? moreSpeciesIds = null)
     {
         var rq = db.Reactions.AsNoTracking().Where(r => !r.Retired);
         if (studyIds is not null) rq = rq.Where(r => studyIds.Contains(r.StudyId));
@@ -53,15 +57,17 @@ internal sealed class DerivationInputs
             [.. statesByReaction[r.Id].OrderBy(s => s.Position).Select(s => new StateInput(s.Id, s.Position, s.Label, s.Kind, s.SaddleCalculationId,
                 [.. terms[s.Id].Select(t => (t.SpeciesId, t.Coefficient))], [.. pairs[s.Id].Select(p => (p.AtomA, p.AtomB))]))])).ToList();
 
-        return await ForReactionsAsync(db, reactionInputs, ct);
+        return await ForReactionsAsync(db, reactionInputs, ct, moreSpeciesIds);
     }
 
-    /// <summary>The species and live calculations the given reactions (stored or not) read, in two queries.</summary>
-    public static async Task<DerivationInputs> ForReactionsAsync(LedgerDbContext db, List<ReactionInput> reactionInputs, CancellationToken ct)
+    /// <summary>The species and live calculations the given reactions (stored or not) read, and those of <paramref name="moreSpeciesIds"/>, in two queries.</summary>
+    public static async Task<DerivationInputs> ForReactionsAsync(LedgerDbContext db, List<ReactionInput> reactionInputs, CancellationToken ct,
+        IEnumerable<int>? moreSpeciesIds = null)
     {
-        var speciesIds = reactionInputs.SelectMany(r => r.States).SelectMany(s => s.Terms).Select(t => t.SpeciesId).Distinct().ToList();
+        var speciesIds = reactionInputs.SelectMany(r => r.States).SelectMany(s => s.Terms).Select(t => t.SpeciesId).Concat(moreSpeciesIds ?? []).Distinct().ToList();
         var species = await db.Species.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.Id))
-            .Select(s => new SpeciesInput(s.Id, s.Label, s.Charge, s.Multiplicity, s.Formula, s.SymmetryNumber)).ToListAsync(ct);
+            .Select(s => new SpeciesInput(s.Id, s.Label, s.Charge, s.Multiplicity, s.Formula, s.SymmetryNumber, s.SymmetryNumberOverride,
+                s.SymmetryCalculationId)).ToListAsync(ct);
         var calcs = await db.Calculations.AsNoTracking().Where(c => EF.Parameter(speciesIds).Contains(c.SpeciesId) && !c.Retired)
             .OrderBy(c => c.Id)
             .Select(c => new CalcInput(c.Id, c.SpeciesId, c.Kind, c.LevelOfTheory, c.EnergyLevelKey, c.GeometryLevel, c.EnergyHartree,

@@ -30,11 +30,18 @@ public sealed class DerivationService(TimeProvider time)
         var affected = await db.Reactions.Where(r => r.StudyId == studyId && !r.Retired &&
                 (EF.Parameter(reactionIds).Contains(r.Id) || r.States.Any(s => s.Terms.Any(t => EF.Parameter(touchedSpeciesIds).Contains(t.SpeciesId)))))
             .Select(r => r.Id).ToListAsync(ct);
-        if (affected.Count == 0) return;
-        await BumpRevisionsAsync(db, affected, ct);
         var (model, _) = await EffectiveModelAsync(db, studyId, ct);
+        if (affected.Count == 0)
+        {
+            // A species in no reaction yet still gets its point group.
+            var alone = await DerivationInputs.ForReactionsAsync(db, [], ct, touchedSpeciesIds);
+            await SpeciesSymmetry.WriteAsync(db, SpeciesSymmetry.Refresh(model, alone), ct);
+            return;
+        }
+        await BumpRevisionsAsync(db, affected, ct);
         await RefreshChecksAsync(db, model, [studyId], affected, force: false, ct);
-        var inputs = await DerivationInputs.LoadAsync(db, null, affected, ct);
+        var inputs = await DerivationInputs.LoadAsync(db, null, affected, ct, touchedSpeciesIds);
+        await SpeciesSymmetry.WriteAsync(db, SpeciesSymmetry.Refresh(model, inputs), ct);
         await WriteAsync(db, DeriveAll(model, inputs, null, ct), ct);
         // New reactions and re-linked saddle points (with their reopened reviews) change the ledger status.
         await ReactionStatusSummary.RefreshAsync(db, affected, ct);
@@ -72,8 +79,10 @@ public sealed class DerivationService(TimeProvider time)
         var q = db.ReactionStates.AsNoTracking().Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired
                                                              && studyIds.Contains(s.Reaction.StudyId));
         if (reactionIds is not null) q = q.Where(s => EF.Parameter(reactionIds).Contains(s.ReactionId));
-        var states = await q.Select(s => new
+        var states = await q.OrderBy(s => s.Id).Select(s => new
         {
+            StateId = s.Id,
+            s.Reaction!.StudyId,
             CalcId = s.SaddleCalculationId!.Value,
             SpeciesId = s.SaddleCalculation!.SpeciesId,
             Pairs = s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new { p.AtomA, p.AtomB }).ToList(),
@@ -90,11 +99,14 @@ public sealed class DerivationService(TimeProvider time)
             .Select(c => new { c.Id, c.CalculationId, c.InputFingerprint }).ToDictionaryAsync(c => c.CalculationId, ct);
 
         var rerun = new List<int>();
+        var minima = new Dictionary<int, StudyMinima>();
         foreach (var s in byCalc)
         {
             var pairs = s.Pairs.Select(p => (p.AtomA, p.AtomB)).ToArray();
             scans.TryGetValue(s.SpeciesId, out var scanInfo);
-            var fingerprint = CheckRunner.Fingerprint(s.CalcId, pairs, scanInfo?.Id, scanInfo?.Count, model);
+            if (!minima.TryGetValue(s.StudyId, out var study)) minima[s.StudyId] = study = await StudyMinima.LoadAsync(db, s.StudyId, ct);
+            var connection = await ConnectionInputs.LoadAsync(db, study, s.StateId, s.CalcId, ct);
+            var fingerprint = CheckRunner.Fingerprint(s.CalcId, pairs, scanInfo?.Id, scanInfo?.Count, model, connection.Fingerprint);
             stored.TryGetValue(s.CalcId, out var current);
             if (!force && current is not null && current.InputFingerprint == fingerprint) continue;
 
@@ -108,7 +120,7 @@ public sealed class DerivationService(TimeProvider time)
                     .Select(p => new ScanPointRecord { Index = p.Index, Coordinate = p.Coordinate, EnergyHartree = p.EnergyHartree, Converged = p.Converged })
                     .ToListAsync(ct);
             }
-            var input = CheckRunner.FromStored(calc, calc.Species!, pairs, scan, points);
+            var input = CheckRunner.FromStored(calc, calc.Species!, pairs, scan, points) with { Connection = connection };
             var (verdict, reasons, evidence) = CheckRunner.Run(input, model);
             var check = new FrequencyCheck
             {
@@ -136,6 +148,7 @@ public sealed class DerivationService(TimeProvider time)
         Action<int, int>? progress, CancellationToken ct)
     {
         var inputs = await DerivationInputs.LoadAsync(db, studyIds, reactionIds, ct);
+        await SpeciesSymmetry.WriteAsync(db, SpeciesSymmetry.Refresh(model, inputs), ct);
         var results = DeriveAll(model, inputs, progress, ct);
         await WriteAsync(db, results, ct);
         return results.Length;

@@ -171,15 +171,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
         var calcs = inputs.CalculationsBySpecies[sp.Id];
         CalcInput? preferred = preferredCalcId is { } pid && inputs.Calculations.TryGetValue(pid, out var p) ? p : null;
 
-        CalcInput? energy;
-        if (_energyKey.Length > 0)
-            energy = calcs.Where(c => c.EnergyHartree is not null && c.EnergyKey == _energyKey && c.Kind != CalculationKind.RelaxedScan
-                                      && (_energyGeometryKey.Length == 0 || EnergyLevels.Key(c.GeometryKey) == _energyGeometryKey))
-                .OrderByDescending(c => preferred is not null && c.Id == preferred.Id).ThenByDescending(c => c.Id).FirstOrDefault();
-        else
-            energy = preferred is { EnergyHartree: not null } ? preferred
-                : calcs.Where(c => c.EnergyHartree is not null && c.Kind is CalculationKind.Minimum or CalculationKind.SaddlePoint).LastOrDefault()
-                  ?? calcs.Where(c => c.EnergyHartree is not null && c.Kind != CalculationKind.RelaxedScan).LastOrDefault();
+        var energy = StateResolver.EnergyCalculation(calcs, _energyKey, _energyGeometryKey, preferred);
         if (energy is null)
         {
             reasons.Add(new(LedgerReasonCodes.MissingEnergy, "Failure",
@@ -189,12 +181,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
         if (sp.Formula.Length == 0)
             reasons.Add(new(LedgerReasonCodes.FormulaUnknown, "Failure", $"Species {sp.Label} has no geometry stored, so conservation of atoms cannot be checked."));
 
-        // An atom needs no frequencies: its thermochemistry is translation and electronic only.
-        var withFreqs = calcs.Where(c => c.AtomicNumbers is { Length: > 0 } && (c.Frequencies is { Length: > 0 } || c.AtomicNumbers.Length == 1));
-        var thermal = _thermalKey.Length > 0
-            ? withFreqs.Where(c => c.EnergyKey == _thermalKey || EnergyLevels.Key(c.GeometryKey) == _thermalKey)
-                .OrderByDescending(c => preferred is not null && c.Id == preferred.Id).ThenByDescending(c => c.Id).FirstOrDefault()
-            : (preferred is not null && withFreqs.Contains(preferred) ? preferred : withFreqs.LastOrDefault());
+        var thermal = StateResolver.ThermalCalculation(calcs, _thermalKey, preferred);
         ThermalCorrection? correction = thermal is null ? null : Thermal(thermal, sp);
         if (correction is null)
         {

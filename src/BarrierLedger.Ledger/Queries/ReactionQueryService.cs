@@ -11,7 +11,9 @@ using Microsoft.EntityFrameworkCore;
 
 namespace BarrierLedger.Ledger.Queries;
 
-public sealed record StateTermView(int SpeciesId, string SpeciesLabel, int Coefficient, string Formula);
+/// <summary>One species of a state with its coefficient, formula, point group (empty without a geometry) and the σ its thermochemistry uses.</summary>
+public sealed record StateTermView(int SpeciesId, string SpeciesLabel, int Coefficient, string Formula, string PointGroup = "", int SymmetryNumber = 1,
+    bool SymmetryGivenByHand = false);
 
 /// <summary>A state of the pathway with its species, its saddle-point calculation and reaction-coordinate pairs ("C1–H5").</summary>
 public sealed record StateView(int Id, int Position, string Label, StateKind Kind, IReadOnlyList<StateTermView> Terms, int? SaddleCalculationId,
@@ -71,7 +73,8 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
             ReviewStatus? status = s.Kind == StateKind.SaddlePoint
                 ? ReviewStatusText.FromLatest(calc is not null && latest.TryGetValue(calc.Id, out var o) ? o : null) : null;
             stateViews.Add(new StateView(s.Id, s.Position, s.Label, s.Kind,
-                [.. s.Terms.OrderBy(t => t.Id).Select(t => new StateTermView(t.SpeciesId, t.Species!.Label, t.Coefficient, t.Species.Formula))],
+                [.. s.Terms.OrderBy(t => t.Id).Select(t => new StateTermView(t.SpeciesId, t.Species!.Label, t.Coefficient, t.Species.Formula,
+                    t.Species.PointGroup, t.Species.SymmetryNumber, t.Species.SymmetryNumberOverride is not null))],
                 s.SaddleCalculationId, pairs, labels, status, history.GetValueOrDefault(s.Id) ?? []));
             if (calc is not null)
             {

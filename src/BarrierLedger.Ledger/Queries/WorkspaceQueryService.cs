@@ -20,7 +20,25 @@ public sealed record WorkspaceCalculation(int Id, int SpeciesId, string Label, C
 
 /// <summary>A species with its calculations (newest last).</summary>
 public sealed record WorkspaceSpecies(int Id, string Label, string Description, int Charge, int Multiplicity, string Formula, int SymmetryNumber,
-    bool InReaction, bool Retired, long Version, IReadOnlyList<WorkspaceCalculation> Calculations);
+    bool InReaction, bool Retired, long Version, IReadOnlyList<WorkspaceCalculation> Calculations, SpeciesSymmetryView? Symmetry = null)
+{
+    /// <summary>The stored symmetry, or "no geometry yet" when none was read.</summary>
+    public SpeciesSymmetryView SymmetryOrNone => Symmetry ?? SpeciesSymmetryView.None;
+}
+
+/// <summary>
+/// A species' symmetry as stored: the point group and σ detected from the geometry its thermochemistry uses (empty / null until one
+/// is stored), the calculation that geometry came from, a "nearly" note, and the σ a member or bundle set instead (null when none).
+/// </summary>
+public sealed record SpeciesSymmetryView(string PointGroup, int? DetectedSymmetryNumber, int? CalculationId, string Note, int? Override)
+{
+    public static SpeciesSymmetryView None { get; } = new("", null, null, "", null);
+
+    /// <summary>"C2v, σ = 2 (detected)" or "σ = 3 (set by hand; the geometry is C1, σ = 1)".</summary>
+    public string Describe(int inUse) => Override is null
+        ? (PointGroup.Length > 0 ? $"{PointGroup}, σ = {inUse} (detected from the geometry)" : $"σ = {inUse} (no geometry stored yet)")
+        : $"σ = {inUse} (set by hand or by an upload" + (PointGroup.Length > 0 ? $"; the geometry is {PointGroup}, σ = {DetectedSymmetryNumber})" : ")");
+}
 
 /// <summary>A relaxed scan: its species, coordinate ("distance C1–C6"), points and original file.</summary>
 public sealed record WorkspaceScan(int Id, string Label, int SpeciesId, string SpeciesLabel, string LevelOfTheory, string Coordinate, int PointCount,
@@ -133,7 +151,8 @@ public sealed class WorkspaceQueryService(IDbContextFactory<LedgerDbContext> fac
             }).ToListAsync(ct);
         var bySpecies = calcs.ToLookup(c => c.SpeciesId);
         return [.. species.Select(s => new WorkspaceSpecies(s.Id, s.Label, s.Description, s.Charge, s.Multiplicity, s.Formula, s.SymmetryNumber,
-            used.Contains(s.Id), s.Retired, s.Version,
+            used.Contains(s.Id), s.Retired, s.Version, Symmetry: new SpeciesSymmetryView(s.PointGroup, s.DetectedSymmetryNumber, s.SymmetryCalculationId, s.SymmetryNote,
+                s.SymmetryNumberOverride), Calculations:
             [.. bySpecies[s.Id].Select(c =>
             {
                 var freqs = Blobs.ToDoubles(c.FrequenciesCm1);

@@ -86,11 +86,11 @@ public sealed class ReactionBundleService(IDbContextFactory<LedgerDbContext> fac
             [.. s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new BundleAtomPair(p.AtomA, p.AtomB))]))]);
 
         var bundle = new Bundle(BundleSchema.CurrentFormatVersion, new BundleStudy(reaction.Study!.Name, reaction.Study.Description),
-            [.. species.Select(s => new BundleSpecies(s.Label, s.Charge, s.Multiplicity))], bundleCalcs, [bundleReaction], bundleScans, [],
+            [.. species.Select(s => new BundleSpecies(s.Label, s.Charge, s.Multiplicity, s.SymmetryNumberOverride))], bundleCalcs, [bundleReaction], bundleScans, [],
             files.Written.ToImmutableDictionary(f => f.Key, f => ImmutableArray.Create(f.Value)));
 
-        var notCarried = species.Where(s => s.SymmetryNumber != 1)
-            .Select(s => $"species '{s.Label}' has symmetry number σ = {s.SymmetryNumber}; the bundle format has no place for σ, so set it again after uploading").ToList();
+        // σ travels as the bundle's symmetry_number where a member set it by hand; a detected σ is found again from the same geometry.
+        var notCarried = new List<string>();
         var ircCount = await db.Ircs.CountAsync(i => saddleIds.Contains(i.SaddleCalculationId), ct);
         if (ircCount > 0)
             notCarried.Add($"{ircCount} IRC result(s) of its saddle points are not carried by this download; upload them again with the saddle point (\"IRC of saddle point\")");

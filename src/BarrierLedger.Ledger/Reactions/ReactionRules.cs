@@ -41,7 +41,7 @@ internal static class ReactionRules
             if (s.Kind != StateKind.SaddlePoint) continue;
             if (s.CalculationName is null) { Add($"{where}, saddle-point state '{s.Label}' names no calculation"); continue; }
             if (s.Calculation is not { } c) { Add($"{where}, state '{s.Label}' names calculation '{s.CalculationName}', {calculationNotFound}"); continue; }
-            if (c.Kind != CalculationKind.SaddlePoint) Add($"{where}, state '{s.Label}': calculation '{c.Label}' is a {c.Kind}, not a saddle point");
+            if (c.Kind != CalculationKind.SaddlePoint) Add($"{where}, state '{s.Label}': calculation '{c.Label}' is a {c.Kind.Words()} calculation, not a saddle point");
             if (!s.Terms.Any(t => t.Species == c.Species))
                 Add($"{where}, state '{s.Label}': calculation '{c.Label}' is of species '{c.Species}', which is not in this state");
             var n = c.AtomCount;

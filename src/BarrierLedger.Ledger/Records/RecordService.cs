@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Geometry;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Storage;
@@ -58,16 +59,40 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
             return [];
         }, r => ("reaction.edited", $"Reaction now '{r.Label}': {r.Description}"), ct);
 
-    /// <summary>Sets a species' rotational symmetry number (it changes its entropy), and re-derives the reactions using it.</summary>
-    public async Task<EditResult> EditSpeciesAsync(int id, int symmetryNumber, long expectedVersion, string userId, CancellationToken ct = default)
+    /// <summary>
+    /// Corrects what a species is for its thermochemistry: the rotational symmetry number σ (<paramref name="symmetryNumberOverride"/>;
+    /// null goes back to the σ detected from its geometry), its charge and its spin multiplicity (which must suit the electron count
+    /// of its formula). Audited with the values before and after; every reaction using the species is re-derived in the same
+    /// transaction.
+    /// </summary>
+    public Task<EditResult> EditSpeciesAsync(int id, int? symmetryNumberOverride, int charge, int multiplicity, long expectedVersion, string userId,
+        CancellationToken ct = default)
     {
-        var result = await EditAsync<Species>(id, expectedVersion, userId, s =>
+        var before = "";
+        return EditAsync<Species>(id, expectedVersion, userId, s =>
         {
-            if (symmetryNumber < 1) return [$"the symmetry number must be 1 or more (got {symmetryNumber})"];
-            s.SymmetryNumber = symmetryNumber;
+            var errors = new List<string>();
+            if (symmetryNumberOverride is < 1) errors.Add($"the symmetry number must be 1 or more (got {symmetryNumberOverride})");
+            if (multiplicity < 1) errors.Add($"the multiplicity (2S+1) must be 1 or more (got {multiplicity})");
+            if (s.Formula.Length > 0 && multiplicity >= 1)
+            {
+                var electrons = Formula.Parse(s.Formula).NuclearCharge - charge;
+                if (electrons < 0) errors.Add($"charge {charge} leaves {s.Formula} with {electrons} electrons");
+                else if (electrons % 2 == multiplicity % 2)
+                    errors.Add($"{s.Formula} with charge {charge} has {electrons} electrons, which cannot have spin multiplicity {multiplicity}");
+            }
+            if (errors.Count > 0) return errors;
+            before = Describe(s);
+            s.SymmetryNumberOverride = symmetryNumberOverride;
+            s.SymmetryNumber = SpeciesSymmetry.Effective(symmetryNumberOverride, s.DetectedSymmetryNumber);
+            s.Charge = charge;
+            s.Multiplicity = multiplicity;
             return [];
-        }, s => ("species.edited", $"Species '{s.Label}': symmetry number {s.SymmetryNumber}."), ct, rederiveSpecies: true);
-        return result;
+        }, s => ("species.corrected", $"Species '{s.Label}': {before} → {Describe(s)}."), ct, rederiveSpecies: true);
+
+        static string Describe(Species s) =>
+            $"σ = {s.SymmetryNumber} ({(s.SymmetryNumberOverride is null ? $"detected, {(s.PointGroup.Length > 0 ? s.PointGroup : "no geometry")}" : "set by hand")}), " +
+            $"charge {s.Charge}, multiplicity {s.Multiplicity}";
     }
 
     /// <summary>
@@ -144,7 +169,7 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
             c.Kind = kind;
             c.SetLevel(level);
             return [];
-        }, c => ("calculation.edited", $"Calculation now '{c.Label}': {c.Kind} at {c.LevelOfTheory}" + (c.Note.Length > 0 ? $"; note: {c.Note}" : ".")), ct,
+        }, c => ("calculation.edited", $"Calculation now '{c.Label}': {c.Kind.Words()} at {c.LevelOfTheory}" + (c.Note.Length > 0 ? $"; note: {c.Note}" : ".")), ct,
         _ => inputsChanged);
     }
 

@@ -146,7 +146,7 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
             var calc = await db.Calculations.FirstOrDefaultAsync(c => c.Id == calculationId, token)
                 ?? throw new ArgumentException($"Calculation {calculationId} does not exist.", nameof(calculationId));
             if (calc.Kind != CalculationKind.SaddlePoint)
-                throw new ArgumentException($"Calculation '{calc.Label}' is a {calc.Kind}, not a saddle point; only saddle points are reviewed.", nameof(calculationId));
+                throw new ArgumentException($"Calculation '{calc.Label}' is a {calc.Kind.Words()} calculation, not a saddle point; only saddle points are reviewed.", nameof(calculationId));
             if (calc.Retired) throw new ArgumentException($"Calculation '{calc.Label}' is retired; restore it before reviewing it.", nameof(calculationId));
             if (outcome == ReviewOutcome.Verified && string.IsNullOrWhiteSpace(comment)
                 && await db.FrequencyChecks.AnyAsync(c => c.CalculationId == calculationId && c.Verdict == Verdict.Failed, token))

@@ -43,7 +43,7 @@ internal static class BundleImport
         }
         string? FileKey(string? path) => path is null ? null : Key(path);
 
-        foreach (var s in b.Species) draft.Species.Add(new DraftSpecies(s.Label, s.Charge, s.Multiplicity));
+        foreach (var s in b.Species) draft.Species.Add(new DraftSpecies(s.Label, s.Charge, s.Multiplicity, s.SymmetryNumber));
         foreach (var c in b.Calculations)
             draft.Calculations.Add(new DraftCalculation(c.Label, c.Species, c.Kind, c.LevelOfTheory, c.EnergyHartree, c.Geometry,
                 c.FrequenciesCm1, c.Modes, c.HessianHartreePerBohr2,

@@ -100,7 +100,8 @@ public sealed class UploadDraft
     public List<UploadIssue> Issues { get; } = [];
 }
 
-public sealed record DraftSpecies(string Label, int Charge, int Multiplicity);
+/// <summary>A species as an upload names it; <paramref name="SymmetryNumber"/> is a σ the upload gives (it wins over the detected one), or null.</summary>
+public sealed record DraftSpecies(string Label, int Charge, int Multiplicity, int? SymmetryNumber = null);
 
 public sealed record DraftCalculation(
     string Label,

@@ -35,6 +35,10 @@ internal sealed class UploadPlan
     public Dictionary<string, Species> SpeciesByLabel { get; } = new(StringComparer.Ordinal);
     public List<Species> NewSpecies { get; } = [];
     public List<(Species Species, string Formula)> FormulaUpdates { get; } = [];
+    /// <summary>Stored species whose σ override this upload sets (a bundle's <c>symmetry_number</c>).</summary>
+    public List<(Species Species, int SymmetryNumber)> SymmetryOverrides { get; } = [];
+    /// <summary>Point group and σ detected from the upload's own geometry of each species (the one its thermochemistry would use).</summary>
+    public Dictionary<string, (string Group, int Sigma, string Calculation)> DetectedSymmetry { get; } = new(StringComparer.Ordinal);
     public Dictionary<string, string> FileSha { get; } = new(StringComparer.Ordinal);
     public List<PlannedCalculation> NewCalculations { get; } = [];
     public List<(string Label, int Id)> DuplicateCalculationIds { get; } = [];
@@ -90,6 +94,8 @@ internal sealed class UploadPlan
             var d = ds.First();
             if (ds.Any(x => x.Charge != d.Charge || x.Multiplicity != d.Multiplicity))
                 plan.Error(primary, $"species '{d.Label}' is given with different charges or multiplicities in one upload");
+            if (ds.Any(x => x.SymmetryNumber != d.SymmetryNumber))
+                plan.Error(primary, $"species '{d.Label}' is given with different symmetry numbers in one upload");
             if (existingByLabel.TryGetValue(d.Label, out var s))
             {
                 if (s.Retired) plan.Error(primary, $"species '{d.Label}' is retired in this study; restore it first");
@@ -97,10 +103,14 @@ internal sealed class UploadPlan
                     plan.Error(primary, $"species '{d.Label}' is stored with charge {s.Charge} and multiplicity {s.Multiplicity}, " +
                                         $"but this upload gives charge {d.Charge} and multiplicity {d.Multiplicity}");
                 plan.SpeciesByLabel[d.Label] = s;
+                if (d.SymmetryNumber is { } given && given != s.SymmetryNumberOverride) plan.SymmetryOverrides.Add((s, given));
             }
             else
             {
-                var created = new Species { Label = d.Label, Charge = d.Charge, Multiplicity = d.Multiplicity };
+                var created = new Species
+                {
+                    Label = d.Label, Charge = d.Charge, Multiplicity = d.Multiplicity, SymmetryNumberOverride = d.SymmetryNumber, SymmetryNumber = d.SymmetryNumber ?? 1,
+                };
                 plan.NewSpecies.Add(created);
                 plan.SpeciesByLabel[d.Label] = created;
             }
@@ -139,7 +149,7 @@ internal sealed class UploadPlan
             if (c.Conformer.Length > Calculation.MaxConformerLength)
                 plan.Error(file, $"calculation '{c.Label}': conformer label '{c.Conformer[..20]}…' is {c.Conformer.Length} characters long; at most {Calculation.MaxConformerLength} fit");
             if (c.Kind is CalculationKind.SaddlePoint or CalculationKind.Frequencies && c.Geometry is null)
-                plan.Error(file, $"calculation '{c.Label}' ({c.Kind}) has no geometry");
+                plan.Error(file, $"calculation '{c.Label}' ({c.Kind.Words()}) has no geometry");
 
             var frequencies = c.FrequenciesCm1;
             var modes = c.Modes;
@@ -173,6 +183,8 @@ internal sealed class UploadPlan
                 if (s.Id == 0) s.Formula = formula;
                 else plan.FormulaUpdates.Add((s, formula));
             }
+
+        plan.CheckSymmetryNumbers(primary);
 
         // Scans
         foreach (var s in draft.Scans)
@@ -238,6 +250,26 @@ internal sealed class UploadPlan
             else plan.StateRelinks.Add((state, saddles[0].Draft.Label));
         }
         return plan;
+    }
+
+    /// <summary>
+    /// Detects the point group of each species from this upload's geometry its thermochemistry would use (the newest with
+    /// frequencies, else the newest optimised structure) and warns where a given <c>symmetry_number</c> differs from it.
+    /// </summary>
+    private void CheckSymmetryNumbers(string primary)
+    {
+        foreach (var group in NewCalculations.Where(c => c.Draft.Geometry is not null).GroupBy(c => c.Draft.Species, StringComparer.Ordinal))
+        {
+            var source = group.LastOrDefault(c => c.Frequencies.Count > 0 || c.Draft.Geometry!.AtomCount == 1)
+                         ?? group.LastOrDefault(c => c.Draft.Kind is CalculationKind.Minimum or CalculationKind.SaddlePoint) ?? group.Last();
+            var found = Core.Symmetry.PointGroups.Detect(source.Draft.Geometry!);
+            DetectedSymmetry[group.Key] = (found.Group.Name, found.SymmetryNumber, source.Draft.Label);
+            var given = Draft.Species.FirstOrDefault(s => s.Label == group.Key)?.SymmetryNumber;
+            if (given is { } g && g != found.SymmetryNumber)
+                Issues.Add(new UploadIssue(primary, null, null,
+                    $"species '{group.Key}': symmetry_number {g} is given, but its geometry (calculation '{source.Draft.Label}') is {found.Group.Name}, σ = {found.SymmetryNumber}" +
+                    (found.Note.Length > 0 ? $" ({found.Note})" : "") + $"; the given σ = {g} is used", IsError: false));
+        }
     }
 
     /// <summary>
@@ -312,7 +344,9 @@ internal sealed class UploadPlan
     public UploadPreview ToPreview() => new(
         StudyName, Study is null,
         [.. Draft.Files.Select(f => new PreviewFile(f.Key, f.Value.LongLength, FileSha[f.Key]))],
-        [.. SpeciesByLabel.Values.Select(s => new PreviewSpecies(s.Label, s.Charge, s.Multiplicity, s.Formula, s.Id != 0))],
+        [.. SpeciesByLabel.Values.Select(s => new PreviewSpecies(s.Label, s.Charge, s.Multiplicity, s.Formula, s.Id != 0,
+            DetectedSymmetry.TryGetValue(s.Label, out var d) ? d.Group : s.PointGroup, DetectedSymmetry.TryGetValue(s.Label, out var dd) ? dd.Sigma : s.DetectedSymmetryNumber,
+            Draft.Species.FirstOrDefault(x => x.Label == s.Label)?.SymmetryNumber))],
         [.. Draft.Calculations.Select(c =>
         {
             var planned = NewCalculations.FirstOrDefault(p => p.Draft.Label == c.Label);

@@ -22,7 +22,10 @@ public sealed record UploadPreview(
 
 public sealed record PreviewFile(string FileName, long SizeBytes, string Sha256);
 
-public sealed record PreviewSpecies(string Label, int Charge, int Multiplicity, string Formula, bool Exists);
+/// <summary>A species of an upload: <paramref name="PointGroup"/> and <paramref name="DetectedSymmetryNumber"/> from the geometry its
+/// thermochemistry will use (empty / null without one), <paramref name="GivenSymmetryNumber"/> the σ the upload gives (it wins).</summary>
+public sealed record PreviewSpecies(string Label, int Charge, int Multiplicity, string Formula, bool Exists, string PointGroup = "",
+    int? DetectedSymmetryNumber = null, int? GivenSymmetryNumber = null);
 
 /// <summary>A calculation found; <see cref="Duplicate"/> when the same file already gave this species this calculation.</summary>
 public sealed record PreviewCalculation(string Label, string Species, CalculationKind Kind, string LevelOfTheory, int AtomCount, string Formula,

@@ -100,6 +100,12 @@ public sealed class UploadService(
             db.Species.Add(s);
         }
         foreach (var (species, formula) in plan.FormulaUpdates) species.Formula = formula;
+        foreach (var (species, sigma) in plan.SymmetryOverrides)
+        {
+            audit.Record(db, user, "species.symmetry", nameof(Species), species.Id,
+                $"Species '{species.Label}': symmetry number set to {sigma} by an upload (was {species.SymmetryNumber}{(species.SymmetryNumberOverride is null ? ", detected" : "")}).");
+            (species.SymmetryNumberOverride, species.SymmetryNumber) = (sigma, sigma);
+        }
 
         // Original files, content-addressed: bytes stored once however often they are named.
         var fileIds = new Dictionary<string, int>(StringComparer.Ordinal);
@@ -171,6 +177,7 @@ public sealed class UploadService(
         // IRCs: attached to their saddle-point calculation (of this upload or stored); frames through one prepared statement.
         var ircIds = new List<int>();
         var ircSpecies = new List<int>();
+        var reopened = new List<int>();
         foreach (var i in plan.NewIrcs)
         {
             var saddle = i.SaddleInUpload is { } l ? calcByLabel[l] : await db.Calculations.FirstAsync(c => c.Id == i.StoredSaddleId, ct);
@@ -188,11 +195,24 @@ public sealed class UploadService(
             await InsertIrcFramesAsync(db, irc.Id, i, ct);
             ircIds.Add(irc.Id);
             ircSpecies.Add(saddle.SpeciesId);
+            // New connection evidence for a reviewed saddle point: its check changes, so it awaits review again (the old review stays).
+            var last = await db.Reviews.Where(v => v.CalculationId == saddle.Id).OrderByDescending(v => v.Id).FirstOrDefaultAsync(ct);
+            if (last is { Outcome: ReviewOutcome.Verified or ReviewOutcome.Returned })
+            {
+                db.Reviews.Add(new Review
+                {
+                    CalculationId = saddle.Id, Outcome = ReviewOutcome.Reopened, ReviewerUserId = user, At = now,
+                    Comment = $"IRC '{irc.Label}' was added (upload {upload.Id}); its connection check joins the evidence, so the saddle point awaits review again.",
+                });
+                audit.Record(db, user, "review.reopened", nameof(Calculation), saddle.Id,
+                    $"Saddle point '{saddle.Label}': IRC '{irc.Label}' added after it was {last.Outcome.ToString().ToLowerInvariant()}; it awaits review again.",
+                    before: last.Outcome.ToString(), after: "awaiting review");
+                reopened.Add(saddle.Id);
+            }
         }
 
         // Reactions: new ones with their states; existing ones get their saddle points re-linked (which reopens reviews).
         var reactionIds = new List<int>();
-        var reopened = new List<int>();
         var newReactions = new List<Reaction>(plan.NewReactions.Count);
         foreach (var r in plan.NewReactions)
         {
@@ -251,7 +271,7 @@ public sealed class UploadService(
         // would otherwise make every later save scan all it wrote).
         var newCalcIds = plan.NewCalculations.Select(c => calcByLabel[c.Draft.Label].Id).ToList();
         var touchedSpecies = plan.NewCalculations.Select(c => speciesByLabel[c.Draft.Species].Id)
-            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Concat(ircSpecies).Distinct().ToList();
+            .Concat(plan.NewScans.Select(s => speciesByLabel[s.Species].Id)).Concat(ircSpecies).Concat(plan.SymmetryOverrides.Select(o => o.Species.Id)).Distinct().ToList();
         db.ChangeTracker.Clear();
         await derivation.AfterInputsChangedAsync(db, study.Id, touchedSpecies, reactionIds, ct);
 

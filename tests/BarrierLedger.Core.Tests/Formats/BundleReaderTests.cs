@@ -58,6 +58,21 @@ public class BundleReaderTests
     }
 
     [Fact]
+    public void Species_symmetry_number_is_read_when_given_passes_the_schema_and_is_null_when_absent()
+    {
+        var n = JsonNode.Parse(SampleText())!;
+        n["species"]![1]!["symmetry_number"] = 3;
+        using var schemaDoc = JsonDocument.Parse(File.ReadAllText(RepoFiles.Path("docs", "bundle.schema.json")));
+        using var doc = JsonDocument.Parse(n.ToJsonString());
+        Assert.Empty(new MiniJsonSchema(schemaDoc.RootElement).Validate(doc.RootElement));
+
+        var b = ReadJson(n.ToJsonString()).GetValueOrThrow();
+
+        Assert.Equal(3, b.Species[1].SymmetryNumber);
+        Assert.Null(b.Species[0].SymmetryNumber);
+    }
+
+    [Fact]
     public void Sample_bundle_is_read_into_the_records_the_store_imports()
     {
         var b = ReadJson(SampleText()).GetValueOrThrow();
@@ -146,6 +161,7 @@ public class BundleReaderTests
         { "newer version", n => n["format_version"] = 7, "$.format_version", ["understands format_version 1"] },
         { "charge as text", n => n["species"]![1]!["charge"] = "0", "$.species[1].charge", ["expected a whole number, found a string"] },
         { "multiplicity 0", n => n["species"]![1]!["multiplicity"] = 0, "$.species[1].multiplicity", ["is 0; expected 1 or more"] },
+        { "symmetry number 0", n => n["species"]![1]!["symmetry_number"] = 0, "$.species[1].symmetry_number", ["is 0; expected 1 or more"] },
         { "duplicate species", n => n["species"]![1]!["label"] = "CH3", "$.species[1].label", ["already defined at $.species[0]"] },
         { "unknown species", n => n["calculations"]![0]!["species"] = "CH5", "$.calculations[0].species", ["'CH5'", "not in $.species"] },
         { "unknown kind", n => n["calculations"]![0]!["kind"] = "transition_state", "$.calculations[0].kind", ["'transition_state'", "saddle_point"] },

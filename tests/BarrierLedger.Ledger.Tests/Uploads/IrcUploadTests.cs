@@ -129,3 +129,52 @@ public sealed class IrcUploadTests
         Assert.Equal(5, await db.IrcFrames.CountAsync(f => f.IrcId == irc.Id));
     }
 }
+
+/// <summary>The connection check joins the saddle point's check (issue 20): verdict, evidence and a reopened review.</summary>
+public sealed class IrcCheckTests
+{
+    private const string Member = "member-1";
+    private const string Study = "Hydrogen exchange (test)";
+
+    private static string Frame(double x1, double x2, double x3, double energy) => string.Create(CultureInfo.InvariantCulture,
+        $"3\nenergy={energy:R}\nH {x1:R} 0 0\nH {x2:R} 0 0\nH {x3:R} 0 0\n");
+
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task IrcThatFallsApartOnOneSide_FailsTheCheck_NamesIt_AndReopensTheReview(StoreProvider store)
+    {
+        await using var ledger = await TempLedger.CreateAsync(store);
+        var uploads = ledger.Get<UploadService>();
+        Assert.True((await uploads.StoreDraftAsync(H3System.Draft(Study), new UploadChoices(), Member)).Stored);
+        await using (var db = await ledger.DbAsync())
+        {
+            var check = await db.FrequencyChecks.SingleAsync();
+            Assert.Equal(Core.Checks.Verdict.Passed, check.Verdict);
+            // Without an IRC the mode's bond-change prediction is made: displaced along the antisymmetric stretch, H1–H2 one way and
+            // H2–H3 the other, which are the bonds of the states before and after (H2 + H, H + H2).
+            var evidence = BarrierLedger.Ledger.Derivation.DerivedJson.Read<BarrierLedger.Ledger.Derivation.CheckEvidence>(check.EvidenceJson);
+            Assert.Null(evidence.Connection);
+            Assert.Equal("Agrees", evidence.ModePrediction!.Outcome);
+        }
+        var reviews = ledger.Get<Reviews.ReviewService>();
+        var reviewer = await ledger.AddUserAsync("pi", Accounts.Roles.Reviewer);
+        var calcId = (await reviews.QueueAsync()).Single().CalculationId;
+        await reviews.VerifyAsync(calcId, reviewer, "clean mode");
+
+        // One end is H2 + H; the other three separate atoms (2.5 Å apart), which is no state: it connects one side only.
+        var irc = Frame(0, 0.74, 3.0, -1.67) + Frame(0, 0.93, 1.86, H3System.ETs) + Frame(0, 2.5, 5.0, -1.50);
+        var outcome = await uploads.StoreAsync([new UploadFile("ts-irc.xyz", Encoding.UTF8.GetBytes(irc))], new UploadChoices { NewStudyName = Study, IrcOf = "ts" }, Member);
+        Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
+
+        await using var db2 = await ledger.DbAsync();
+        var after = await db2.FrequencyChecks.SingleAsync();
+        Assert.Equal(Core.Checks.Verdict.Failed, after.Verdict);
+        Assert.Contains(Core.Checks.ConnectionCheckCodes.OneSide, after.ReasonsJson);
+        var ev = BarrierLedger.Ledger.Derivation.DerivedJson.Read<BarrierLedger.Ledger.Derivation.CheckEvidence>(after.EvidenceJson);
+        Assert.Equal(("OneSide", "path"), (ev.Connection!.Connection, ev.Connection.Form));
+        Assert.Equal(2, ev.Connection.Ends.Count);
+        Assert.Contains(ev.Connection.Ends, e => e.Reached is null);
+        Assert.Equal(ReviewOutcome.Reopened, (await db2.Reviews.OrderByDescending(r => r.Id).FirstAsync(r => r.CalculationId == calcId)).Outcome);
+        var item = Assert.Single(await reviews.QueueAsync());
+        Assert.Equal("OneSide", item.Evidence!.Connection!.Connection);
+    }
+}

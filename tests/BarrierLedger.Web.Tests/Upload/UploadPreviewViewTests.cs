@@ -11,7 +11,7 @@ public class UploadPreviewViewTests
     private static UploadPreview Preview(params UploadIssue[] issues) => new(
         "Exchange study", NewStudy: true,
         Files: [new PreviewFile("bundle.json", 1536, Sha), new PreviewFile("ts.json", 3 * 1024 * 1024, Sha)],
-        Species: [new PreviewSpecies("H2", 0, 1, "H2", Exists: true), new PreviewSpecies("TS", 0, 2, "H3", Exists: false)],
+        Species: [new PreviewSpecies("H2", 0, 1, "H2", Exists: true, "D∞h", 2, GivenSymmetryNumber: 1), new PreviewSpecies("TS", 0, 2, "H3", Exists: false, "D∞h", 2)],
         Calculations:
         [
             new PreviewCalculation("ts", "TS", CalculationKind.SaddlePoint, "MODEL-A/basis-1", 3, "H3", -1.655,
@@ -60,7 +60,8 @@ public class UploadPreviewViewTests
         var files = Rows(cut, "Files read");
         Assert.Equal(["bundle.json", "1.5 KiB", "3f9a1c0d5be2…"], files[0]);   // 1536 B = 1.5 × 1024 B
         Assert.Equal(["ts.json", "3.0 MiB", "3f9a1c0d5be2…"], files[1]);
-        Assert.Equal([["H2", "H2", "0", "1", "already there"], ["TS", "H3", "0", "2", "new"]], Rows(cut, "Species"));
+        Assert.Equal([["H2", "H2", "0", "1", "D∞h", "1 (given; geometry gives 2)", "already there"], ["TS", "H3", "0", "2", "D∞h", "2 (detected)", "new"]],
+            Rows(cut, "Species"));
 
         var calcs = Rows(cut, "Calculations");
         Assert.Equal("-1.655000", calcs[0][6]);

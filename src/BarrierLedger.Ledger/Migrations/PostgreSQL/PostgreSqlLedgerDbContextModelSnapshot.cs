@@ -1060,6 +1060,9 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasColumnType("character varying(4000)")
                         .UseCollation("C");
 
+                    b.Property<int?>("DetectedSymmetryNumber")
+                        .HasColumnType("integer");
+
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)
@@ -1075,6 +1078,12 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<int>("Multiplicity")
                         .HasColumnType("integer");
 
+                    b.Property<string>("PointGroup")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("character varying(20)")
+                        .UseCollation("C");
+
                     b.Property<bool>("Retired")
                         .HasColumnType("boolean");
 
@@ -1088,7 +1097,19 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<int>("StudyId")
                         .HasColumnType("integer");
 
+                    b.Property<int?>("SymmetryCalculationId")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("SymmetryNote")
+                        .IsRequired()
+                        .HasMaxLength(1000)
+                        .HasColumnType("character varying(1000)")
+                        .UseCollation("C");
+
                     b.Property<int>("SymmetryNumber")
+                        .HasColumnType("integer");
+
+                    b.Property<int?>("SymmetryNumberOverride")
                         .HasColumnType("integer");
 
                     b.Property<long>("Version")

@@ -953,6 +953,9 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                         .HasMaxLength(4000)
                         .HasColumnType("TEXT");
 
+                    b.Property<int?>("DetectedSymmetryNumber")
+                        .HasColumnType("INTEGER");
+
                     b.Property<string>("Formula")
                         .IsRequired()
                         .HasMaxLength(200)
@@ -966,6 +969,11 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<int>("Multiplicity")
                         .HasColumnType("INTEGER");
 
+                    b.Property<string>("PointGroup")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
                     b.Property<bool>("Retired")
                         .HasColumnType("INTEGER");
 
@@ -978,7 +986,18 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<int>("StudyId")
                         .HasColumnType("INTEGER");
 
+                    b.Property<int?>("SymmetryCalculationId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("SymmetryNote")
+                        .IsRequired()
+                        .HasMaxLength(1000)
+                        .HasColumnType("TEXT");
+
                     b.Property<int>("SymmetryNumber")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("SymmetryNumberOverride")
                         .HasColumnType("INTEGER");
 
                     b.Property<long>("Version")

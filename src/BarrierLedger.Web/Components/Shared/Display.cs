@@ -54,16 +54,7 @@ public static class Display
     public static string Kelvin(double? t) => t is { } v ? $"{v:F2} K" : "—";
 
     /// <summary>A calculation kind in words: "saddle point", "relaxed scan".</summary>
-    public static string Kind(BarrierLedger.Core.Chemistry.CalculationKind kind) => kind switch
-    {
-        BarrierLedger.Core.Chemistry.CalculationKind.Minimum => "minimum",
-        BarrierLedger.Core.Chemistry.CalculationKind.SaddlePoint => "saddle point",
-        BarrierLedger.Core.Chemistry.CalculationKind.SinglePoint => "single point",
-        BarrierLedger.Core.Chemistry.CalculationKind.Frequencies => "frequencies",
-        BarrierLedger.Core.Chemistry.CalculationKind.RelaxedScan => "relaxed scan",
-        BarrierLedger.Core.Chemistry.CalculationKind.Endpoint => "IRC endpoint",
-        _ => kind.ToString(),
-    };
+    public static string Kind(BarrierLedger.Core.Chemistry.CalculationKind kind) => BarrierLedger.Core.Chemistry.CalculationKindWords.Words(kind);
 
     /// <summary>Imaginary wavenumbers as written on screen ("512i, 38i cm⁻¹"), or what is missing.</summary>
     public static string Imaginary(IReadOnlyList<double> imaginaryCm1, int frequencyCount, bool hasHessian)
