@@ -44,7 +44,6 @@ public static class AuthExtensions
                 o.User.RequireUniqueEmail = false;
                 o.Password.RequiredLength = 10;
                 o.Password.RequireNonAlphanumeric = false;
-                o.Lockout.MaxFailedAccessAttempts = 8;
             })
             .AddRoles<IdentityRole>()
             .AddEntityFrameworkStores<LedgerDbContext>()
