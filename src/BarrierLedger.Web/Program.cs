@@ -24,6 +24,7 @@ builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
 builder.Services.AddBarrierLedgerApi(builder.Configuration);
 builder.Services.AddLedgerExports();
 builder.Services.AddBarrierLedgerTransportSecurity(builder.Configuration);
+builder.Services.AddBarrierLedgerRequestLimits(builder.Configuration);
 
 var app = builder.Build();
 
@@ -37,8 +38,8 @@ if (!app.Environment.IsDevelopment())
 app.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true);
 app.UseStaticFiles();
 app.UseRouting();
-app.UseRateLimiter();
 app.UseAuthentication();
+app.UseBarrierLedgerRequestLimits();
 app.UseAuthorization();
 app.UseMustChangePassword();
 app.UseAntiforgery();

@@ -32,7 +32,9 @@ internal sealed class AppInstance : IAsyncDisposable
             RedirectStandardError = true,
             UseShellExecute = false,
         };
-        foreach (var a in new[] { webDll, "--urls", "http://127.0.0.1:0", $"--BarrierLedger:DataDirectory={dataDirectory}" }) start.ArgumentList.Add(a);
+        foreach (var a in new[] { webDll, "--urls", "http://127.0.0.1:0", $"--BarrierLedger:DataDirectory={dataDirectory}",
+                     // every simulated user signs in from 127.0.0.1; the per-address limits are for real clients
+                     "--BarrierLedger:Limits:SignInPostsPerMinute=100000", "--BarrierLedger:Limits:DownloadsPerMinute=100000" }) start.ArgumentList.Add(a);
         start.Environment["ASPNETCORE_ENVIRONMENT"] = "Production";
         _process = new Process { StartInfo = start, EnableRaisingEvents = true };
         _process.OutputDataReceived += (_, e) => OnLine(e.Data);

@@ -1,12 +1,9 @@
-using System.Globalization;
 using System.Security.Claims;
 using System.Text.Json.Serialization;
-using System.Threading.RateLimiting;
 using BarrierLedger.Ledger.Accounts;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Authentication.Cookies;
 using Microsoft.AspNetCore.Identity;
-using Microsoft.AspNetCore.RateLimiting;
 
 namespace BarrierLedger.Web.Endpoints;
 
@@ -14,13 +11,12 @@ namespace BarrierLedger.Web.Endpoints;
 public sealed record MeResponse(string UserId, string UserName, string? DisplayName, IReadOnlyList<string> Roles, string Scope, string TokenId);
 
 /// <summary>
-/// The HTTP API under /api/v1: personal-access-token authentication, per-token rate limiting, problem-details errors and an
+/// The HTTP API under /api/v1: personal-access-token authentication, per-token rate limiting (see Hosting/RequestLimits), problem-details errors and an
 /// OpenAPI document at /api/v1/openapi.json. Described for users in docs/api.md.
 /// </summary>
 public static class ApiExtensions
 {
     public const string Prefix = "/api/v1";
-    public const string RateLimitPolicy = "api-per-token";
 
     public static IServiceCollection AddBarrierLedgerApi(this IServiceCollection services, IConfiguration configuration)
     {
@@ -49,22 +45,6 @@ public static class ApiExtensions
         services.ConfigureHttpJsonOptions(o => o.SerializerOptions.Converters.Add(new JsonStringEnumConverter()));
         services.AddProblemDetails();
 
-        services.AddRateLimiter(o =>
-        {
-            o.RejectionStatusCode = StatusCodes.Status429TooManyRequests;
-            o.AddPolicy(RateLimitPolicy, http => RateLimitPartition.GetFixedWindowLimiter(PartitionKey(http), _ => new FixedWindowRateLimiterOptions
-            {
-                PermitLimit = options.RequestsPerMinute, Window = TimeSpan.FromMinutes(1), QueueLimit = 0, AutoReplenishment = true,
-            }));
-            o.OnRejected = async (c, ct) =>
-            {
-                var seconds = c.Lease.TryGetMetadata(MetadataName.RetryAfter, out var after) ? Math.Max(1, (int)Math.Ceiling(after.TotalSeconds)) : 60;
-                c.HttpContext.Response.Headers.RetryAfter = seconds.ToString(CultureInfo.InvariantCulture);
-                await ApiProblems.WriteAsync(c.HttpContext, StatusCodes.Status429TooManyRequests, "rate-limited", "Too many requests",
-                    $"At most {options.RequestsPerMinute} requests per minute per token; try again in {seconds} s.");
-            };
-        });
-
         services.AddOpenApi("v1", o =>
         {
             o.ShouldInclude = d => d.RelativePath?.StartsWith("api/v1/", StringComparison.Ordinal) == true;
@@ -84,9 +64,9 @@ public static class ApiExtensions
     public static RouteGroupBuilder MapBarrierLedgerApi(this IEndpointRouteBuilder endpoints)
     {
         var options = endpoints.ServiceProvider.GetRequiredService<ApiOptions>();
-        endpoints.MapOpenApi(Prefix + "/openapi.json").AllowAnonymous().RequireRateLimiting(RateLimitPolicy);
+        endpoints.MapOpenApi(Prefix + "/openapi.json").AllowAnonymous().RequireRateLimiting(BarrierLedger.Web.Hosting.RequestLimits.ApiPolicy);
 
-        var api = endpoints.MapGroup(Prefix).RequireRateLimiting(RateLimitPolicy).AddEndpointFilter(ProblemOnException);
+        var api = endpoints.MapGroup(Prefix).RequireRateLimiting(BarrierLedger.Web.Hosting.RequestLimits.ApiPolicy).AddEndpointFilter(ProblemOnException);
         api.MapGet("/me", (ClaimsPrincipal user) => TypedResults.Ok(new MeResponse(
                 user.FindFirstValue(ClaimTypes.NameIdentifier)!, user.Identity!.Name!, user.FindFirstValue("barrierledger:display-name"),
                 [.. user.FindAll(ClaimTypes.Role).Select(c => c.Value)], user.FindFirstValue(ApiClaims.Scope)!, user.FindFirstValue(ApiClaims.TokenId)!)))
@@ -102,15 +82,6 @@ public static class ApiExtensions
         endpoints.MapFallback("/api/{**rest}", (HttpContext c) => ApiProblems.NotFound($"No API endpoint at {c.Request.Method} {c.Request.Path}; see {Prefix}/openapi.json."))
             .AllowAnonymous().ExcludeFromDescription();
         return api;
-    }
-
-    /// <summary>Within /api/v1 the partition is the token id (well-formed tokens), otherwise the client address.</summary>
-    internal static string PartitionKey(HttpContext http)
-    {
-        var header = http.Request.Headers.Authorization.ToString();
-        if (header.StartsWith("Bearer ", StringComparison.OrdinalIgnoreCase) && AccessTokenService.TryParse(header[7..], out var id, out _))
-            return "token:" + id;
-        return "addr:" + (http.Connection.RemoteIpAddress?.ToString() ?? "unknown");
     }
 
     private static async ValueTask<object?> ProblemOnException(EndpointFilterInvocationContext context, EndpointFilterDelegate next)

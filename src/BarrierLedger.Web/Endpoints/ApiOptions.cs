@@ -8,6 +8,9 @@ public sealed class ApiOptions
     /// <summary>Largest accepted upload request (all parts together), in bytes; larger requests get 413 and nothing is stored.</summary>
     public long MaxUploadBytes { get; set; } = 64L * 1024 * 1024;
 
-    /// <summary>Requests per token (or per client address without a well-formed token) in each one-minute window.</summary>
+    /// <summary>Requests per verified token in each one-minute window.</summary>
     public int RequestsPerMinute { get; set; } = 120;
+
+    /// <summary>Requests per client address in each one-minute window when the token is missing or does not verify.</summary>
+    public int UnauthenticatedRequestsPerMinute { get; set; } = 30;
 }

@@ -24,7 +24,7 @@ public static class ExportEndpoints
 
     public static IEndpointRouteBuilder MapExportEndpoints(this IEndpointRouteBuilder endpoints)
     {
-        var group = endpoints.MapGroup(Prefix).RequireAuthorization(s_signedIn).ExcludeFromDescription();
+        var group = endpoints.MapGroup(Prefix).RequireAuthorization(s_signedIn).RequireRateLimiting(Hosting.RequestLimits.DownloadPolicy).ExcludeFromDescription();
         group.MapGet("/table", TableAsync);
         group.MapGet("/diagram/{reactionId:int}.{format}", DiagramAsync);
         group.MapGet("/coordinates", (int study, string? format, ExportService export, CancellationToken ct) => Guard(async () =>
@@ -40,7 +40,7 @@ public static class ExportEndpoints
             ReactionEndpoints.BundleAsync(reactionId, bundles, http, ct));
         group.MapGet("/isotope-effects/{reactionId:int}", (int reactionId, string? format, BarrierLedger.Ledger.IsotopeEffects.IsotopeEffectService service, CancellationToken ct) =>
             IsotopeEffectEndpoints.GetAsync(reactionId, format ?? "csv", service, ct));
-        endpoints.MapGet(Prefix + "/backup", BackupAsync).RequireAuthorization(Policies.Admin).ExcludeFromDescription();
+        endpoints.MapGet(Prefix + "/backup", BackupAsync).RequireAuthorization(Policies.Admin).RequireRateLimiting(Hosting.RequestLimits.DownloadPolicy).ExcludeFromDescription();
         return endpoints;
     }
 

@@ -38,6 +38,8 @@ public sealed partial class AppProcess : IAsyncDisposable
         start.ArgumentList.Add("--urls");
         start.ArgumentList.Add(BaseUrl);
         start.ArgumentList.Add($"--BarrierLedger:DataDirectory={DataDirectory}");
+        // Every simulated browser signs in from 127.0.0.1; the per-address sign-in limit is for real clients (RequestLimitTests check it).
+        start.ArgumentList.Add("--BarrierLedger:Limits:SignInPostsPerMinute=100000");
         foreach (var a in extraArgs) start.ArgumentList.Add(a);
         start.Environment["ASPNETCORE_ENVIRONMENT"] = "Production";
         _process = new Process { StartInfo = start, EnableRaisingEvents = true };

@@ -53,6 +53,18 @@ public sealed partial class CookieSession : IDisposable
         return session;
     }
 
+    /// <summary>One sign-in attempt from a fresh browser: the text the server answers with (the page, or a refusal).</summary>
+    public static async Task<string> TryPasswordAsync(ApiTestHost host, string userName, string password)
+    {
+        using var session = new CookieSession(host.BaseAddress);
+        var response = await session.PostFormAsync("/Account/Login", "/Account/Login", "signin", new()
+        {
+            ["Input.UserName"] = userName,
+            ["Input.Password"] = password,
+        });
+        return WebUtility.HtmlDecode(await response.Content.ReadAsStringAsync());
+    }
+
     /// <summary>GETs the page holding a server-rendered form, then posts the form (named for Blazor, or not) with its antiforgery token.</summary>
     public async Task<HttpResponseMessage> PostFormAsync(string pagePath, string action, string? formName, Dictionary<string, string> fields)
     {

@@ -44,7 +44,6 @@ public static class AuthExtensions
                 o.User.RequireUniqueEmail = false;
                 o.Password.RequiredLength = 10;
                 o.Password.RequireNonAlphanumeric = false;
-                o.Lockout.MaxFailedAccessAttempts = 8;
             })
             .AddRoles<IdentityRole>()
             .AddEntityFrameworkStores<LedgerDbContext>()
@@ -62,7 +61,10 @@ public static class AuthExtensions
         return services;
     }
 
-    /// <summary>An account with a one-time password reaches nothing but the change-password page until it is changed.</summary>
+    /// <summary>
+    /// An account with a one-time password reaches nothing but the change-password page until it is changed: only what anyone may
+    /// reach passes (decided by the endpoint's own rule, not by how its URL looks, so a download ending in ".svg" is held too).
+    /// </summary>
     public static IApplicationBuilder UseMustChangePassword(this IApplicationBuilder app) =>
         app.Use(async (context, next) =>
         {
@@ -71,8 +73,7 @@ public static class AuthExtensions
                 && !path.StartsWithSegments("/Account")
                 && !path.StartsWithSegments("/_framework")
                 && !path.StartsWithSegments("/_content")
-                && !path.StartsWithSegments("/health")
-                && !Path.HasExtension(path.Value))
+                && context.GetEndpoint()?.Metadata.GetMetadata<IAllowAnonymous>() is null) // static assets, sign-in, /health
             {
                 context.Response.Redirect(ChangePasswordPath);
                 return;
