@@ -43,6 +43,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<LedgerQueryService>();
         services.AddSingleton<ReactionQueryService>();
         services.AddSingleton<WorkspaceQueryService>();
+        services.AddSingleton<Conformers.ConformerQueryService>();
         services.AddSingleton<IsotopeEffects.IsotopeEffectService>();
         services.AddSingleton<RecordService>();
         services.AddSingleton<Reactions.ReactionBuilderService>();

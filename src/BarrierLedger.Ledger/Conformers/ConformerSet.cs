@@ -11,7 +11,8 @@ using Microsoft.EntityFrameworkCore;
 namespace BarrierLedger.Ledger.Conformers;
 
 /// <summary>One live calculation as the conformer grouping reads it.</summary>
-internal sealed record ConformerCalc(int Id, string Conformer, CalculationKind Kind, double? EnergyHartree, string EnergyKey, byte[]? AtomicNumbers, byte[]? Positions);
+internal sealed record ConformerCalc(int Id, string Conformer, CalculationKind Kind, double? EnergyHartree, string EnergyKey, byte[]? AtomicNumbers, byte[]? Positions,
+    string LevelOfTheory = "");
 
 /// <summary>One conformer of a species: its label, its calculations, and the one whose geometry (and energy) stands for it.</summary>
 /// <param name="Label">The conformer's label; empty for calculations given without one.</param>
@@ -21,7 +22,9 @@ internal sealed record ConformerCalc(int Id, string Conformer, CalculationKind K
 /// <param name="Geometry">That geometry.</param>
 /// <param name="EnergyHartree">That calculation's electronic energy.</param>
 /// <param name="EnergyKey">Its energy level (normalised), for telling whether two conformers' energies can be compared.</param>
-public sealed record ConformerGroup(string Label, ImmutableArray<int> CalculationIds, int? GeometryCalculationId, Molecule? Geometry, double? EnergyHartree, string EnergyKey);
+/// <param name="LevelOfTheory">That calculation's level of theory as stored, for people.</param>
+public sealed record ConformerGroup(string Label, ImmutableArray<int> CalculationIds, int? GeometryCalculationId, Molecule? Geometry, double? EnergyHartree, string EnergyKey,
+    string LevelOfTheory = "");
 
 /// <summary>The conformers of one species and what they are to each other.</summary>
 /// <param name="Conformers">The conformers in the order they were stored (the unlabelled one first).</param>
@@ -91,7 +94,7 @@ public sealed record ConformerSet(ImmutableArray<ConformerGroup> Conformers, Con
                 var rep = ordered.Where(c => c.AtomicNumbers is { Length: > 0 } && c.Kind is CalculationKind.Minimum or CalculationKind.SaddlePoint).LastOrDefault()
                           ?? ordered.Where(c => c.AtomicNumbers is { Length: > 0 } && c.Kind != CalculationKind.RelaxedScan).LastOrDefault();
                 var mol = rep is null ? null : Blobs.ToMolecule(rep.AtomicNumbers, rep.Positions, charge, multiplicity);
-                return new ConformerGroup(g.Key, [.. ordered.Select(c => c.Id)], rep?.Id, mol, rep?.EnergyHartree, rep?.EnergyKey ?? "");
+                return new ConformerGroup(g.Key, [.. ordered.Select(c => c.Id)], rep?.Id, mol, rep?.EnergyHartree, rep?.EnergyKey ?? "", rep?.LevelOfTheory ?? "");
             }).ToImmutableArray();
         var compared = Enumerable.Range(0, groups.Length).Where(k => groups[k].Geometry is not null).ToImmutableArray();
         if (compared.Length < 2) return new ConformerSet(groups, null, compared, false);
@@ -107,7 +110,7 @@ public sealed record ConformerSet(ImmutableArray<ConformerGroup> Conformers, Con
         var species = await db.Species.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.Id))
             .Select(s => new { s.Id, s.Charge, s.Multiplicity }).ToListAsync(ct);
         var calcs = (await db.Calculations.AsNoTracking().Where(c => EF.Parameter(speciesIds).Contains(c.SpeciesId) && !c.Retired)
-            .Select(c => new { c.SpeciesId, Calc = new ConformerCalc(c.Id, c.Conformer, c.Kind, c.EnergyHartree, c.EnergyLevelKey, c.AtomicNumbers, c.PositionsAngstrom) })
+            .Select(c => new { c.SpeciesId, Calc = new ConformerCalc(c.Id, c.Conformer, c.Kind, c.EnergyHartree, c.EnergyLevelKey, c.AtomicNumbers, c.PositionsAngstrom, c.LevelOfTheory) })
             .ToListAsync(ct)).ToLookup(c => c.SpeciesId, c => c.Calc);
         return species.ToDictionary(s => s.Id, s => Of(calcs[s.Id], s.Charge, s.Multiplicity));
     }

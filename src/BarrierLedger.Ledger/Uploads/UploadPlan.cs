@@ -353,7 +353,7 @@ internal sealed class UploadPlan
             var freqs = planned?.Frequencies ?? c.FrequenciesCm1;
             return new PreviewCalculation(c.Label, c.Species, c.Kind, c.LevelOfTheory.ToString(), c.Geometry?.AtomCount ?? 0,
                 c.Geometry is { } g ? Formula.Of(g).ToString() : "", c.EnergyHartree, freqs, freqs.Count(f => f < 0),
-                c.HessianHartreePerBohr2.Count > 0, DuplicateCalculationIds.Any(d => d.Label == c.Label), c.File);
+                c.HessianHartreePerBohr2.Count > 0, DuplicateCalculationIds.Any(d => d.Label == c.Label), c.File, c.Conformer);
         })],
         [.. Draft.Reactions.Select(r => new PreviewReaction(r.Label, string.Join(" → ", r.States.Select(s => s.Label)), _existingReactions.Contains(r.Label)))],
         [.. Draft.Scans.Select(s => new PreviewScan(s.Label, s.Species, $"{s.Coordinate.Kind} {string.Join("–", s.Coordinate.Atoms.Select(a => a + 1))}",

@@ -27,9 +27,12 @@ public sealed record PreviewFile(string FileName, long SizeBytes, string Sha256)
 public sealed record PreviewSpecies(string Label, int Charge, int Multiplicity, string Formula, bool Exists, string PointGroup = "",
     int? DetectedSymmetryNumber = null, int? GivenSymmetryNumber = null);
 
-/// <summary>A calculation found; <see cref="Duplicate"/> when the same file already gave this species this calculation.</summary>
+/// <summary>
+/// A calculation found; <see cref="Duplicate"/> when the same file already gave this species this calculation; <see cref="Conformer"/>
+/// the conformer of its species it will be stored as ("" = the species' only conformer).
+/// </summary>
 public sealed record PreviewCalculation(string Label, string Species, CalculationKind Kind, string LevelOfTheory, int AtomCount, string Formula,
-    double? EnergyHartree, IReadOnlyList<double> FrequenciesCm1, int ImaginaryCount, bool HasHessian, bool Duplicate, string? File);
+    double? EnergyHartree, IReadOnlyList<double> FrequenciesCm1, int ImaginaryCount, bool HasHessian, bool Duplicate, string? File, string Conformer = "");
 
 public sealed record PreviewReaction(string Label, string States, bool Exists);
 

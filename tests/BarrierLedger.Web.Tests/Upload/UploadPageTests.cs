@@ -96,4 +96,36 @@ public sealed class UploadPageTests
         // The scan stored with the saddle point (the same species, guessed for it) belongs to its step.
         Assert.True(builder.Find(".scan-choice input[type=checkbox]").HasAttribute("checked"));
     }
+
+    [Fact]
+    public async Task EachFileIsAConformer_NamesEachAfterItsFile_AndARowCanNameItsOwn()
+    {
+        using var l = await BunitLedger.CreateAsync();
+        var cut = l.Context.Render<UploadPage>();
+        cut.Find("#study").Change("Butane conformers");
+        // Two butane structures with energies (FlexibleMolecules, bond lengths from memory): anti and gauche.
+        cut.FindComponent<InputFile>().UploadFiles(
+            InputFileContent.CreateFromBinary(Encoding.UTF8.GetBytes(BarrierLedger.Core.Formats.XyzWriter.ToExtendedText(BarrierLedger.Core.Tests.Conformers.FlexibleMolecules.Butane(180), -158.4)), "anti.xyz"),
+            InputFileContent.CreateFromBinary(Encoding.UTF8.GetBytes(BarrierLedger.Core.Formats.XyzWriter.ToExtendedText(BarrierLedger.Core.Tests.Conformers.FlexibleMolecules.Butane(65), -158.3985)), "gauche.xyz"));
+        cut.WaitForAssertion(() => Assert.Equal(2, cut.FindAll("[data-testid=file-row]").Count), Wait);
+        foreach (var file in new[] { "anti.xyz", "gauche.xyz" })
+        {
+            Row(cut, file).QuerySelector("input[id$=-species]")!.Change("butane");
+            Row(cut, file).QuerySelector("select[id$=-kind]")!.Change(nameof(CalculationKind.SinglePoint));
+            Row(cut, file).QuerySelector("input[id$=-level]")!.Change("B3LYP-D3/def2-SVP");
+        }
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-testid=upload-errors]")), Wait);
+        Assert.All(cut.FindAll("[data-testid=preview-conformer]"), c => Assert.Equal("—", c.TextContent));
+
+        cut.Find("#conformer-per-file").Change(true);
+        cut.WaitForAssertion(() => Assert.Equal(["anti", "gauche"], cut.FindAll("[data-testid=preview-conformer]").Select(c => c.TextContent)), Wait);
+        Assert.Equal("gauche", Row(cut, "gauche.xyz").QuerySelector("input[id$=-conformer]")!.GetAttribute("placeholder"));
+
+        Row(cut, "gauche.xyz").QuerySelector("input[id$=-conformer]")!.Change("g+");
+        cut.WaitForAssertion(() => Assert.Equal(["anti", "g+"], cut.FindAll("[data-testid=preview-conformer]").Select(c => c.TextContent)), Wait);
+
+        cut.Find("button.btn-primary").Click();
+        cut.WaitForAssertion(() => Assert.Contains("Stored 2 calculations", cut.Find("[data-testid=upload-message]").TextContent), Wait);
+        Assert.Contains("species butane: 2 conformer(s)", cut.Find("[data-testid=upload-message]").TextContent);
+    }
 }

@@ -64,12 +64,13 @@ public class UploadPreviewViewTests
             Rows(cut, "Species"));
 
         var calcs = Rows(cut, "Calculations");
-        Assert.Equal("-1.655000", calcs[0][6]);
-        Assert.Equal("4 modes; imaginary 1500i; lowest 900, 900, 2000 cm⁻¹", calcs[0][7]);
-        Assert.Equal("", calcs[0][8]);
-        Assert.Equal("—", calcs[1][6]);
-        Assert.Equal("from Hessian", calcs[1][7]);
-        Assert.Equal("already stored: will not be stored again", calcs[1][8]);
+        Assert.Equal("—", calcs[0][2]); // no conformer named: the species' only one
+        Assert.Equal("-1.655000", calcs[0][7]);
+        Assert.Equal("4 modes; imaginary 1500i; lowest 900, 900, 2000 cm⁻¹", calcs[0][8]);
+        Assert.Equal("", calcs[0][9]);
+        Assert.Equal("—", calcs[1][7]);
+        Assert.Equal("from Hessian", calcs[1][8]);
+        Assert.Equal("already stored: will not be stored again", calcs[1][9]);
         Assert.Equal([["H exchange", "H2 + H → TS → H + H2", "new"]], Rows(cut, "Reactions"));
         Assert.Empty(cut.FindAll("table[aria-label=Scans]"));
     }

@@ -17,11 +17,14 @@ public sealed partial class FileRow(FileSuggestion suggestion)
     public int Multiplicity { get; set; } = suggestion.Multiplicity;
     /// <summary>The scanned coordinate's atoms as typed: "1 6", "1,6" or "C1–C6" all give atoms 1 and 6.</summary>
     public string ScanAtoms { get; set; } = "";
+    /// <summary>The conformer of its species this file is ("" = the species' only conformer, or its file name when each file is a conformer).</summary>
+    public string Conformer { get; set; } = "";
 
     public bool IsScan => Kind == nameof(CalculationKind.RelaxedScan);
 
     public FileChoices ToChoices() => new(Species.Trim(), Enum.TryParse<CalculationKind>(Kind, out var k) ? k : null, Level.Trim(), Charge, Multiplicity,
-        IsScan ? [.. Digits().Matches(ScanAtoms).Select(m => int.Parse(m.Value, System.Globalization.CultureInfo.InvariantCulture))] : null);
+        IsScan ? [.. Digits().Matches(ScanAtoms).Select(m => int.Parse(m.Value, System.Globalization.CultureInfo.InvariantCulture))] : null,
+        string.IsNullOrWhiteSpace(Conformer) ? null : Conformer.Trim());
 
     [GeneratedRegex(@"\d{1,6}")]
     private static partial Regex Digits();

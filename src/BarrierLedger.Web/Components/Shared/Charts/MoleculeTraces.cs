@@ -59,6 +59,37 @@ public static class MoleculeTraces
         return [atoms, sticks, ring];
     }
 
+    /// <summary>Colour of a second structure drawn over the first (a conformer overlay).</summary>
+    public const string OverlayColour = "#d97706";
+
+    /// <summary>
+    /// A second structure drawn over the first, all in one colour and half transparent so the first shows through: its atoms
+    /// (hover: "second: C4") and its bonds. Appended after the first structure's traces, so trace 0 stays the clickable atoms.
+    /// </summary>
+    public static IList<ITrace> Overlay(Molecule m, IReadOnlyList<(int A, int B)> bonds, string name)
+    {
+        var p = m.PositionsAngstrom;
+        var atoms = new Scatter3D
+        {
+            Name = name, Mode = ModeFlag.Markers, ShowLegend = false, Opacity = 0.55m,
+            X = p.Select(v => (object)v.X).ToList(), Y = p.Select(v => (object)v.Y).ToList(), Z = p.Select(v => (object)v.Z).ToList(),
+            HoverTextArray = Enumerable.Range(0, m.AtomCount).Select(i => $"{name}: {m.AtomLabel(i)}").ToList(),
+            HoverInfo = Plotly.Blazor.Traces.Scatter3DLib.HoverInfoFlag.Text,
+            Marker = new Marker { Color = OverlayColour, SizeArray = m.Elements.Select(e => (decimal?)(e.AtomicNumber == 1 ? 6 : 10)).ToList() },
+        };
+        var bx = new List<object?>(); var by = new List<object?>(); var bz = new List<object?>();
+        foreach (var (a, b) in bonds)
+        {
+            bx.AddRange([p[a].X, p[b].X, null]); by.AddRange([p[a].Y, p[b].Y, null]); bz.AddRange([p[a].Z, p[b].Z, null]);
+        }
+        var sticks = new Scatter3D
+        {
+            Name = name + " bonds", Mode = ModeFlag.Lines, ShowLegend = false, Opacity = 0.55m, HoverInfo = Plotly.Blazor.Traces.Scatter3DLib.HoverInfoFlag.Skip,
+            X = bx!, Y = by!, Z = bz!, Line = new Line { Color = OverlayColour, Width = 4 },
+        };
+        return [atoms, sticks];
+    }
+
     /// <summary>
     /// A 3D scene that holds the whole molecule in every orientation: one cube centred on the molecule's bounding box, its side the
     /// box's longest edge plus <paramref name="padAngstrom"/> on each side (for the atom markers and, when animated, the largest
