@@ -27,6 +27,14 @@ public static class ConformerChoiceText
         ConformerChoice.BoltzmannEnsemble => "Boltzmann-weighted conformer ensemble",
         _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown conformer choice."),
     };
+
+    /// <summary>The choice as the model banner and every export header state it, with the formula of the ensemble.</summary>
+    public static string Sentence(ConformerChoice c) => c switch
+    {
+        ConformerChoice.Lowest => "conformers: lowest conformer of each species (by G)",
+        ConformerChoice.BoltzmannEnsemble => "conformers: Boltzmann-weighted ensemble of each species, G = −RT ln Σ exp(−G_i/RT)",
+        _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown conformer choice."),
+    };
 }
 
 /// <summary>One conformer of a species as a derivation sees it: its absolute energies under the model (per molecule).</summary>

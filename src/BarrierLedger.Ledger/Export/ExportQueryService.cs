@@ -38,7 +38,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
         var distinct = levels.SelectMany(l => l.Split("; ", StringSplitOptions.RemoveEmptyEntries)).Distinct(StringComparer.OrdinalIgnoreCase).ToList();
         var level = distinct.Count > 0 ? string.Join("; ", distinct) : m.EnergyLevel.Length > 0 ? m.EnergyLevel : "each state's own calculation";
         return new ExportModel(level, m.TemperatureKelvin, m.StandardState, m.Treatment, m.QuasiRrhoCutoffCm1,
-            m.Tunnelling == TunnellingCorrection.Wigner ? "Wigner" : "none", m.Uncertainty);
+            m.Tunnelling == TunnellingCorrection.Wigner ? "Wigner" : "none", m.Uncertainty) { Conformers = m.Conformers };
     }
 
     /// <summary>
