@@ -87,7 +87,7 @@ public sealed record ModelSettings(
         return e;
     }
 
-    public string Fingerprint => Hash(string.Join("|", "v1", EnergyLevels.Key(EnergyLevel), EnergyLevels.Key(ThermalLevel), Num(TemperatureKelvin),
+    public string Fingerprint => Hash(string.Join("|", "v2", EnergyLevels.Key(EnergyLevel), EnergyLevels.Key(ThermalLevel), Num(TemperatureKelvin),
         StandardState, Treatment, Num(QuasiRrhoCutoffCm1), Tunnelling, CheckFingerprint)
         // Only the ensemble adds a part, so a model that keeps the lowest conformer keeps the fingerprint it had.
         + (Conformers == Core.Conformers.ConformerChoice.Lowest ? "" : "|conformers=" + Conformers));
