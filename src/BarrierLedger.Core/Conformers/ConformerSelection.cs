@@ -86,6 +86,15 @@ public static class ConformerSelection
     public const string UncheckedSaddleConformerCode = "conformers.unchecked-saddle-conformer";
     public const string DuplicatesInEnsembleCode = "conformers.duplicates-in-ensemble";
 
+    /// <summary>A few words for a reason code of this class (for a list where the full sentence is one click or hover away), or null for another code.</summary>
+    public static string? ShortText(string code) => code switch
+    {
+        LowerConformerCode => "a lower reactant conformer exists",
+        UncheckedSaddleConformerCode => "an unchecked saddle-point conformer within 1 kcal/mol",
+        DuplicatesInEnsembleCode => "duplicates counted twice in the Boltzmann sum",
+        _ => null,
+    };
+
     /// <summary>A saddle-point conformer this close to the one used must have passed its check (issue 21: 1 kcal/mol).</summary>
     public const double NearSaddleKcalPerMol = 1.0;
 

@@ -119,6 +119,12 @@ public sealed record BarrierRow(
 {
     public bool IsVerified => Review == ReviewState.Verified;
     public bool IsConsistent => ConsistencyProblems.Count == 0;
+
+    /// <summary>
+    /// Reasons that do not make the barrier inconsistent but can mislead a reader, each footnoted (the conformer checks: a lower
+    /// conformer than the one used, an unchecked saddle-point conformer nearby, duplicates counted twice in a Boltzmann sum).
+    /// </summary>
+    public IReadOnlyList<string> Cautions { get; init; } = [];
 }
 
 /// <summary>What a barrier table is made from: a study, its energy model and its rows.</summary>
