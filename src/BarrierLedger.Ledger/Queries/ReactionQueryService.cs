@@ -33,7 +33,11 @@ public sealed record ReactionDetail(
     EnergyModelView Model, bool Derived, bool Stale, Energy? BarrierGibbs, Energy? ReactionGibbs, double? RateConstantPerSecond, double? HalfLifeSeconds,
     string LevelOfTheory, bool Consistent, IReadOnlyList<ConsistencyReason> ConsistencyReasons,
     IReadOnlyList<StateView> States, IReadOnlyList<DerivedState> StateEnergies, IReadOnlyList<DerivedStep> Steps,
-    IReadOnlyList<SaddleCheckView> SaddleChecks, IReadOnlyList<ScanView> Scans);
+    IReadOnlyList<SaddleCheckView> SaddleChecks, IReadOnlyList<ScanView> Scans)
+{
+    /// <summary>What the reaction's definition says about its kinetics (competing channels, run conditions), or null.</summary>
+    public Core.Kinetics.KineticsSetup? Kinetics { get; init; }
+}
 
 /// <summary>The reaction screen's query: a fixed number of round trips whatever the number of states, scans or checks.</summary>
 public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> factory)
@@ -46,7 +50,7 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
         {
             x.Id, x.Label, x.Description, x.StudyId, StudyName = x.Study!.Name, x.OwnerUserId, x.Retired, x.Version, x.InputsRevision,
             OwnerName = db.Users.Where(u => u.Id == x.OwnerUserId).Select(u => u.DisplayName != "" ? u.DisplayName : u.UserName).FirstOrDefault(),
-            x.Derivation,
+            x.Derivation, x.Kinetics,
         }).FirstOrDefaultAsync(ct);
         if (r is null) return null;
         var (settings, modelRow) = await DerivationService.EffectiveModelAsync(db, r.StudyId, ct);
@@ -111,6 +115,6 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
             d?.ReactionGibbsHartree is { } rg ? Energy.FromHartree(rg) : null, d?.RateConstantPerSecond, d?.HalfLifeSeconds, d?.LevelOfTheory ?? "",
             d?.Consistent ?? false, d is null ? [] : DerivedJson.Read<List<ConsistencyReason>>(d.ConsistencyJson), stateViews,
             d is null ? [] : DerivedJson.Read<List<DerivedState>>(d.StatesJson), d is null ? [] : DerivedJson.Read<List<DerivedStep>>(d.StepsJson),
-            checkViews, scanViews);
+            checkViews, scanViews) { Kinetics = Reactions.ReactionDefinition.ReadKinetics(r.Kinetics) };
     }
 }

@@ -24,7 +24,7 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
     {
         await using var db = await factory.CreateDbContextAsync(ct);
         var r = await db.Reactions.AsNoTracking().Where(x => x.Id == reactionId)
-            .Select(x => new { x.Id, x.StudyId, x.Label, x.Description, x.Version, x.Retired }).FirstOrDefaultAsync(ct);
+            .Select(x => new { x.Id, x.StudyId, x.Label, x.Description, x.Version, x.Retired, x.Kinetics }).FirstOrDefaultAsync(ct);
         if (r is null) return null;
         var states = await db.ReactionStates.AsNoTracking().Where(s => s.ReactionId == reactionId).OrderBy(s => s.Position)
             .Include(s => s.Terms).Include(s => s.CoordinatePairs).AsSplitQuery().ToListAsync(ct);
@@ -36,7 +36,7 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
         var definition = new ReactionDefinition(r.Label, r.Description, [.. states.Select(s => new StateDefinition(s.Label, s.Kind,
             [.. s.Terms.OrderBy(t => t.Id).Select(t => new TermDefinition(t.SpeciesId, t.Coefficient))], s.SaddleCalculationId,
             [.. s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new AtomPair(p.AtomA, p.AtomB))],
-            s.SaddleCalculationId is { } c && saddleSpecies.TryGetValue(c, out var sp) ? [.. scans[sp]] : []))]);
+            s.SaddleCalculationId is { } c && saddleSpecies.TryGetValue(c, out var sp) ? [.. scans[sp]] : []))], ReactionDefinition.ReadKinetics(r.Kinetics));
         return new StoredDefinition(r.Id, r.StudyId, r.Version, r.Retired, definition);
     }
 
@@ -85,7 +85,8 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
             var r = await ResolveAsync(db, studyId, definition, null, token);
             if (r.Problems.Count > 0) return ReactionSaveResult.Invalid(r.Problems);
             var before = await CheckFingerprintsAsync(db, r.Calculations.Keys, token);
-            var reaction = new Reaction { StudyId = studyId, Label = definition.Label.Trim(), Description = definition.Description.Trim(), OwnerUserId = userId };
+            var reaction = new Reaction { StudyId = studyId, Label = definition.Label.Trim(), Description = definition.Description.Trim(), OwnerUserId = userId,
+                Kinetics = ReactionDefinition.KineticsJson(definition.Kinetics) };
             for (var i = 0; i < definition.States.Count; i++)
             {
                 var state = new ReactionState { Position = i };
@@ -132,6 +133,7 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
             db.Entry(reaction).State = EntityState.Modified; // a new version even when only its states change
             reaction.Label = definition.Label.Trim();
             reaction.Description = definition.Description.Trim();
+            reaction.Kinetics = ReactionDefinition.KineticsJson(definition.Kinetics);
             var states = reaction.States.OrderBy(s => s.Position).ToList();
             for (var i = 0; i < definition.States.Count; i++)
             {
@@ -250,6 +252,8 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
         else if (await db.Reactions.AnyAsync(x => x.StudyId == studyId && !x.Retired && x.Label == d.Label.Trim() && x.Id != (reactionId ?? 0), ct))
             problems.Add(new(null, $"the study already has a reaction labelled '{d.Label.Trim()}'; give this one another label"));
         if (d.States.Any(s => s.Label.Length > 200)) problems.Add(new(null, "a state label is longer than 200 characters"));
+        foreach (var (key, message) in d.Kinetics?.Problems([.. d.States.Select(s => (s.Label, s.Kind == StateKind.SaddlePoint))]) ?? [])
+            problems.Add(new(null, $"kinetics, {key.Replace('_', ' ')} {message}"));
 
         var speciesIds = d.States.SelectMany(s => s.Terms).Select(t => t.SpeciesId).Distinct().ToList();
         var species = await db.Species.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.Id) && s.StudyId == studyId)

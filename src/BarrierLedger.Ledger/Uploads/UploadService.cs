@@ -216,7 +216,8 @@ public sealed class UploadService(
         var newReactions = new List<Reaction>(plan.NewReactions.Count);
         foreach (var r in plan.NewReactions)
         {
-            var reaction = new Reaction { StudyId = study.Id, Label = r.Label, Description = r.Description, OwnerUserId = user };
+            var reaction = new Reaction { StudyId = study.Id, Label = r.Label, Description = r.Description, OwnerUserId = user,
+                Kinetics = Reactions.ReactionDefinition.KineticsJson(r.Kinetics) };
             var position = 0;
             foreach (var s in r.States)
             {
