@@ -54,7 +54,12 @@ public sealed record ConnectionCheckInput(
 /// The path's frame nearest the saddle geometry must lie within this RMSD of it, or the path may start from another saddle
 /// point. Default 0.3 Å: common practice, no source.
 /// </param>
-public sealed record ConnectionCheckOptions(EndpointMatchOptions? Endpoints = null, double SaddleFrameRmsdAngstrom = 0.3)
+/// <param name="TieRmsdAngstrom">
+/// Two states an end matches bond for bond whose RMSDs differ by no more than this are a tie (default 0.001 Å, below the precision
+/// of most stored geometries: common practice, no source). A tie between the two neighbouring states (an identity reaction such as
+/// H2 + H → H + H2, or a conformational change) is settled for the pair of ends, so that they reach different sides when they can.
+/// </param>
+public sealed record ConnectionCheckOptions(EndpointMatchOptions? Endpoints = null, double SaddleFrameRmsdAngstrom = 0.3, double TieRmsdAngstrom = 0.001)
 {
     public static ConnectionCheckOptions Default { get; } = new();
 }
@@ -160,12 +165,12 @@ public static class ConnectionCheck
         if (input.After is { } a && a.Formula == formula) candidates.Add((a, true));
         candidates.AddRange(input.OtherStates.Where(s => s.Formula == formula).Select(s => (s, false)));
 
-        var examined = ends.Select(e =>
-        {
-            var comparisons = candidates.Select(c => (c, m: EndpointMatch.AgainstState(e.Geometry, c.State, eo))).ToList();
-            var reached = comparisons.Where(x => x.m.SameBonds).OrderBy(x => x.m.RmsdAngstrom).ThenBy(x => x.c.Neighbour ? 0 : 1).FirstOrDefault();
-            return new ConnectionEnd(e.Name, e.Geometry, reached.m, reached.m is not null && reached.c.Neighbour, [.. comparisons.Select(x => x.m)]);
-        }).ToImmutableArray();
+        // Each end against every candidate; it reaches the lowest-RMSD state with its bonds, a neighbour first among ties.
+        var matches = ends.Select(e => candidates.Select(c => EndpointMatch.AgainstState(e.Geometry, c.State, eo)).ToArray()).ToList();
+        var reachedIndex = matches.Select(m => Best(m, candidates, o.TieRmsdAngstrom)).ToArray();
+        SettleNeighbourTie(ends.Select(e => e.Geometry).ToList(), matches, reachedIndex, candidates, o.TieRmsdAngstrom, eo.Connectivity);
+        var examined = ends.Select((e, k) => new ConnectionEnd(e.Name, e.Geometry, reachedIndex[k] is { } i ? matches[k][i] : null,
+            reachedIndex[k] is { } j && candidates[j].Neighbour, [.. matches[k]])).ToImmutableArray();
 
         if (input.Before is { } sb && input.After is { } sa && sb.Formula == formula && sa.Formula == formula)
         {
@@ -175,8 +180,8 @@ public static class ConnectionCheck
                     $"{sb.Label} and {sa.Label} have the same bonds (a conformational change?), so bonds cannot tell the two sides apart; the RMSD values decide which side an end reaches."));
         }
 
-        var neighbours = new[] { input.Before?.Label, input.After?.Label };
-        var reachedNeighbours = examined.Where(e => e.ReachedIsNeighbour).Select(e => e.Reached!.State).Distinct().ToList();
+        // Counted by candidate, not by label: the two sides of an identity reaction may carry the same label.
+        var reachedNeighbours = reachedIndex.Where(i => i is { } n && candidates[n].Neighbour).Distinct().ToList();
         Connection connection;
         string headline;
         if (problems.Count > 0)
@@ -196,16 +201,17 @@ public static class ConnectionCheck
                 reasons.Add(new(ConnectionCheckCodes.BothSides, CheckSeverity.Info,
                     $"The saddle point connects both sides: the {e1.Name} reaches {e1.Reached!.State} ({e1.Reached.Explanation}) and the {e2.Name} reaches {e2.Reached!.State} ({e2.Reached.Explanation})."));
                 headline = $"connects {e1.Reached.State} and {e2.Reached.State}";
-                if (input.Path is null && e1.Reached.State == input.Before!.Label)
+                if (input.Path is null && reachedIndex[0] == 0) // candidate 0 is the state before
                     reasons.Add(new(ConnectionCheckCodes.Reversed, CheckSeverity.Info,
-                        $"The forward end reaches the state before the saddle point ({input.Before.Label}) and the backward end the state after it: the direction labels are the other way round, the chemistry is the same."));
+                        $"The forward end reaches the state before the saddle point ({input.Before!.Label}) and the backward end the state after it: the direction labels are the other way round, the chemistry is the same."));
             }
             else if (reachedNeighbours.Count == 1)
             {
                 connection = Connection.OneSide;
                 var hit = e1.ReachedIsNeighbour ? e1 : e2;
                 var miss = ReferenceEquals(hit, e1) ? e2 : e1;
-                var missing = neighbours.First(l => l != hit.Reached!.State)!;
+                var hitIndex = reachedIndex[ReferenceEquals(hit, e1) ? 0 : 1]!.Value;
+                var missing = candidates.Select((c, i) => (c, i)).First(x => x.c.Neighbour && x.i != hitIndex).c.State.Label;
                 var where = miss.ReachedIsNeighbour ? $"falls back to {miss.Reached!.State} as well" : Landing(miss);
                 reasons.Add(new(ConnectionCheckCodes.OneSide, CheckSeverity.Failure,
                     $"The saddle point connects one side only: the {hit.Name} reaches {hit.Reached!.State}, but the {miss.Name} {where}, not {missing}. " +
@@ -256,6 +262,34 @@ public static class ConnectionCheck
 
         var ordered = reasons.OrderByDescending(r => r.Severity).ToList();
         return new ConnectionCheckResult(connection, CheckReason.VerdictOf(ordered), ordered, headline, examined, bondEvents, saddleRmsd);
+    }
+
+    /// <summary>The candidate an end reaches: same bonds, lowest RMSD; among states within <paramref name="tie"/> of it, a neighbour first.</summary>
+    private static int? Best(StateMatchResult[] m, List<(StateStructure State, bool Neighbour)> candidates, double tie)
+    {
+        var same = Enumerable.Range(0, m.Length).Where(i => m[i].SameBonds).ToList();
+        if (same.Count == 0) return null;
+        var lowest = same.Min(i => m[i].RmsdAngstrom);
+        return same.Where(i => m[i].RmsdAngstrom <= lowest + tie).OrderBy(i => candidates[i].Neighbour ? 0 : 1).ThenBy(i => m[i].RmsdAngstrom).First();
+    }
+
+    /// <summary>
+    /// Both ends reach the same neighbour although one of them ties with the other neighbour (same bonds, RMSD within
+    /// <paramref name="tie"/>): that end is moved to the other neighbour (the one that gives up least RMSD), so a symmetric pair of
+    /// ends is not read as "one side". Only ends with different bonds (in the saddle point's atom order) are split: two ends with the
+    /// same bonds are one minimum, and without a tie nothing changes either, so ends that really fall back to one state stay there.
+    /// </summary>
+    private static void SettleNeighbourTie(List<Molecule> ends, List<StateMatchResult[]> matches, int?[] reached,
+        List<(StateStructure State, bool Neighbour)> candidates, double tie, ConnectivityOptions? bonds)
+    {
+        if (reached.Length != 2 || reached[0] is not { } a || reached[0] != reached[1] || !candidates[a].Neighbour) return;
+        if (Connectivity.Of(ends[0], bonds).SameAs(Connectivity.Of(ends[1], bonds))) return;
+        var other = Enumerable.Range(0, candidates.Count).Where(i => i != a && candidates[i].Neighbour).Cast<int?>().FirstOrDefault();
+        if (other is not { } b) return;
+        var movable = Enumerable.Range(0, 2)
+            .Where(k => matches[k][b].SameBonds && matches[k][b].RmsdAngstrom <= matches[k][a].RmsdAngstrom + tie)
+            .OrderBy(k => matches[k][b].RmsdAngstrom - matches[k][a].RmsdAngstrom).Cast<int?>().FirstOrDefault();
+        if (movable is { } k) reached[k] = b;
     }
 
     private static ConnectionCheckResult CannotTell(List<CheckReason> reasons, string message, ImmutableArray<PathBondEvent> events, double? saddleRmsd)

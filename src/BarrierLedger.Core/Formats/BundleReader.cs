@@ -19,8 +19,15 @@ public static class BundleReader
         var issues = new IssueCollector(fileName, limits.MaxIssues);
         var bytes = TextInput.ReadBytes(stream, limits.MaxBytes, issues);
         if (bytes is null) return issues.Result<Bundle>(null);
-        if (bytes.Length >= 4 && bytes[0] == 'P' && bytes[1] == 'K' && bytes[2] == 3 && bytes[3] == 4)
+        if (FileFormats.HasZipSignature(bytes))
             return BundleZip.Read(bytes, fileName, limits, issues);
+        if (fileName.EndsWith(".zip", StringComparison.OrdinalIgnoreCase))
+        {
+            issues.Error(null, bytes.Length == 0
+                ? "the file is empty; expected a zip archive holding bundle.json"
+                : "not a zip archive (it does not begin with a zip signature); expected a zip holding bundle.json. Was the copy cut short, or is it another kind of file named .zip?");
+            return issues.Result<Bundle>(null);
+        }
         var files = new BundleFiles(fileName, limits, openFile, null);
         return issues.Result(BundleManifestReader.Read(bytes, issues, limits, files));
     }

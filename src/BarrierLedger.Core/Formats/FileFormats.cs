@@ -21,13 +21,17 @@ public enum FileFormat
 /// <summary>Tells the format of an upload from its name and first bytes.</summary>
 public static class FileFormats
 {
+    /// <summary>A zip archive's first bytes: a local file header (PK 3 4) or, for an archive with no entries, the end record (PK 5 6).</summary>
+    public static bool HasZipSignature(ReadOnlySpan<byte> head) =>
+        head.Length >= 4 && head[0] == 'P' && head[1] == 'K' && ((head[2] == 3 && head[3] == 4) || (head[2] == 5 && head[3] == 6));
+
     /// <summary>
     /// Zip by its signature; JSON by a leading '{' (QCSchema when it mentions "schema_name", else a bundle);
     /// otherwise by extension: .xyz/.extxyz, .csv/.tsv/.txt/.dat.
     /// </summary>
     public static FileFormat Detect(string fileName, ReadOnlySpan<byte> head)
     {
-        if (head.Length >= 4 && head[0] == 'P' && head[1] == 'K' && head[2] == 3 && head[3] == 4) return FileFormat.BundleZip;
+        if (HasZipSignature(head)) return FileFormat.BundleZip;
         var ext = Path.GetExtension(fileName).ToLowerInvariant();
         var text = Encoding.UTF8.GetString(head).TrimStart('\uFEFF', ' ', '\t', '\r', '\n');
         if (text.StartsWith('{') || ext == ".json")

@@ -4,7 +4,8 @@ namespace BarrierLedger.Core.Formats;
 internal sealed class IssueCollector(string fileName, int maxIssues)
 {
     private readonly List<ReadIssue> _issues = [];
-    private int _dropped;
+    private int _droppedErrors;
+    private int _droppedWarnings;
 
     public string FileName { get; } = fileName;
     public bool HasErrors { get; private set; }
@@ -15,11 +16,20 @@ internal sealed class IssueCollector(string fileName, int maxIssues)
     public void ErrorAt(string jsonPath, string message) => Add(new ReadIssue(IssueSeverity.Error, FileName, null, jsonPath, message));
     public void WarningAt(string jsonPath, string message) => Add(new ReadIssue(IssueSeverity.Warning, FileName, null, jsonPath, message));
 
+    /// <summary>
+    /// Keeps issues in file order up to the limit; an error arriving at the limit takes the place of the last kept warning, so
+    /// thousands of warnings never hide the error that refuses the file.
+    /// </summary>
     public void Add(ReadIssue issue)
     {
         if (issue.IsError) HasErrors = true;
-        if (_issues.Count < maxIssues) _issues.Add(issue);
-        else _dropped++;
+        if (_issues.Count < maxIssues) { _issues.Add(issue); return; }
+        if (!issue.IsError) { _droppedWarnings++; return; }
+        var lastWarning = _issues.FindLastIndex(i => !i.IsError);
+        if (lastWarning < 0) { _droppedErrors++; return; }
+        _issues.RemoveAt(lastWarning);
+        _droppedWarnings++;
+        _issues.Add(issue);
     }
 
     public void AddRange(IEnumerable<ReadIssue> issues)
@@ -29,13 +39,12 @@ internal sealed class IssueCollector(string fileName, int maxIssues)
 
     public IReadOnlyList<ReadIssue> ToList()
     {
-        if (_dropped == 0) return _issues;
-        var all = new List<ReadIssue>(_issues)
-        {
-            new(HasErrors ? IssueSeverity.Error : IssueSeverity.Warning, FileName, null, null,
-                $"{_dropped} further issue(s) not listed (limit {maxIssues} per file)"),
-        };
-        return all;
+        if (_droppedErrors + _droppedWarnings == 0) return _issues;
+        var parts = new List<string>();
+        if (_droppedErrors > 0) parts.Add($"{_droppedErrors} further error(s)");
+        if (_droppedWarnings > 0) parts.Add($"{_droppedWarnings} further warning(s)");
+        return [.. _issues, new(_droppedErrors > 0 ? IssueSeverity.Error : IssueSeverity.Warning, FileName, null, null,
+            $"{string.Join(" and ", parts)} not listed (limit {maxIssues} per file; errors are kept before warnings)")];
     }
 
     public ReadResult<T> Result<T>(T? value) where T : class => new(HasErrors ? null : value, ToList());

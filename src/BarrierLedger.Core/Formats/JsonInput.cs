@@ -24,6 +24,13 @@ internal sealed class JsonInput(IssueCollector issues)
         {
             var span = bytes.AsSpan();
             if (span.StartsWith("\xEF\xBB\xBF"u8)) span = span[3..];
+            // The parser checks UTF-8 only when a string is read, long after parsing; check it first, with its place.
+            if (!System.Text.Unicode.Utf8.IsValid(span))
+            {
+                var (line, column) = FirstInvalidUtf8(span);
+                issues.Error(line, $"not UTF-8 text (byte {column} of the line is not valid UTF-8): save the file as UTF-8 and upload it again");
+                return null;
+            }
             return JsonDocument.Parse(span.ToArray(), s_options);
         }
         catch (JsonException ex)
@@ -37,6 +44,22 @@ internal sealed class JsonInput(IssueCollector issues)
             issues.Error(line, $"not valid JSON{col}: {message}");
             return null;
         }
+    }
+
+    /// <summary>Line (1-based) and byte in that line (1-based) of the first byte that is not valid UTF-8.</summary>
+    internal static (int Line, int Byte) FirstInvalidUtf8(ReadOnlySpan<byte> text)
+    {
+        var at = 0;
+        while (at < text.Length)
+        {
+            var status = System.Text.Rune.DecodeFromUtf8(text[at..], out _, out var used);
+            if (status != System.Buffers.OperationStatus.Done) break;
+            at += used;
+        }
+        var before = text[..at];
+        var line = before.Count((byte)'\n') + 1;
+        var lineStart = before.LastIndexOf((byte)'\n') + 1;
+        return (line, at - lineStart + 1);
     }
 
     public static string Child(string path, string name) => $"{path}.{name}";
@@ -89,6 +112,9 @@ internal sealed class JsonInput(IssueCollector issues)
         if (v.Value.ValueKind != JsonValueKind.String) { Issues.ErrorAt(p, $"expected a string, found {KindName(v.Value.ValueKind)}"); return null; }
         var s = v.Value.GetString()!;
         if (!allowEmpty && string.IsNullOrWhiteSpace(s)) { Issues.ErrorAt(p, "is empty; expected a non-empty string"); return null; }
+        // Text that is free prose (descriptions, notes) may span lines; everything else is a one-line name, label or path.
+        var problem = allowEmpty ? Text.TextRules.FreeTextProblem(s, "text") : Text.TextRules.LabelProblem(s, "value");
+        if (problem is not null) { Issues.ErrorAt(p, problem); return null; }
         return s;
     }
 

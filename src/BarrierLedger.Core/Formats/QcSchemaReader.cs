@@ -190,7 +190,7 @@ public static class QcSchemaReader
         var bohr = PhysicalConstants.BohrAngstrom;
         var positions = Enumerable.Range(0, count).Select(i => new Vec3(xyz[3 * i] * bohr, xyz[3 * i + 1] * bohr, xyz[3 * i + 2] * bohr));
         var molecule = new Molecule(elements, positions, charge, multiplicity);
-        foreach (var msg in StructureChecks.DuplicateAtomMessages(molecule)) j.Issues.ErrorAt("$.molecule.geometry", msg);
+        foreach (var msg in StructureChecks.GeometryMessages(molecule)) j.Issues.ErrorAt("$.molecule.geometry", msg);
         if (molecule.ElectronCount % 2 == multiplicity % 2)
             j.Issues.ErrorAt("$.molecule.molecular_multiplicity",
                 $"{molecule.ElectronCount} electrons cannot have spin multiplicity {multiplicity} (an even electron count needs an odd multiplicity and vice versa)");

@@ -73,6 +73,33 @@ public static class StructureChecks
     }
 
     /// <summary>Messages for duplicate atoms, each naming both atoms as users count them (C4, H7).</summary>
+    /// <summary>
+    /// Farthest an atom may lie from the origin, in Å. The largest molecules a group optimises span a few hundred Å; a
+    /// coordinate beyond this is a unit mix-up or a corrupt file, and squared distances of such numbers overflow.
+    /// Common practice, no source.
+    /// </summary>
+    public const double MaxCoordinateAngstrom = 1.0e4;
+
+    /// <summary>Why a coordinate cannot belong to a molecule (beyond <see cref="MaxCoordinateAngstrom"/>), or null.</summary>
+    public static string? ImplausibleCoordinate(double angstrom) =>
+        Math.Abs(angstrom) > MaxCoordinateAngstrom
+            ? $"{Numbers.Format(angstrom)} Å lies beyond ±{MaxCoordinateAngstrom:0} Å of the origin, which no molecule does (a unit mix-up or a corrupt file?)"
+            : null;
+
+    /// <summary>The first atoms that lie beyond <see cref="MaxCoordinateAngstrom"/>, then atoms at the same position.</summary>
+    public static IEnumerable<string> GeometryMessages(Molecule molecule)
+    {
+        var far = 0;
+        for (var i = 0; i < molecule.AtomCount && far < 20; i++)
+        {
+            var p = molecule.PositionsAngstrom[i];
+            var worst = Math.Max(Math.Abs(p.X), Math.Max(Math.Abs(p.Y), Math.Abs(p.Z)));
+            if (ImplausibleCoordinate(worst) is { } why) { far++; yield return $"atom {molecule.AtomLabel(i)}: {why}"; }
+        }
+        if (far > 0) yield break; // distances between such atoms mean nothing
+        foreach (var m in DuplicateAtomMessages(molecule)) yield return m;
+    }
+
     public static IEnumerable<string> DuplicateAtomMessages(Molecule molecule) =>
         DuplicateAtoms(molecule).Select(p =>
             $"atoms {molecule.AtomLabel(p.First)} and {molecule.AtomLabel(p.Second)} are at the same position " +

@@ -204,6 +204,11 @@ public static class XyzReader
                         issues.Error(lineNo, $"coordinate {"xyz"[c]} of atom {a + 1} is {f}, expected a finite number");
                         coordOk = false;
                     }
+                    else if (StructureChecks.ImplausibleCoordinate(xyz[c]) is { } far)
+                    {
+                        issues.Error(lineNo, $"coordinate {"xyz"[c]} of atom {a + 1}: {far}");
+                        coordOk = false;
+                    }
                 }
                 frameOk &= coordOk;
                 if (element is not null) elements[a] = element;

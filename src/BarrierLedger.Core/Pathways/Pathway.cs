@@ -17,11 +17,16 @@ namespace BarrierLedger.Core.Pathways;
 /// <param name="Source">Where they come from, e.g. "reported" or "computed (RRHO)".</param>
 public sealed record ThermalCorrection(
     Energy ZeroPoint, Energy Enthalpy, Energy Gibbs, LevelOfTheory Level, double TemperatureKelvin,
-    StandardState StandardState = StandardState.Gas1Atm, string Source = "reported");
+    StandardState StandardState = StandardState.Gas1Atm, string Source = "reported")
+{
+    /// <summary>True when computed here from geometry and frequencies, false when reported by the program.</summary>
+    public bool IsComputed => Source.StartsWith("computed", StringComparison.Ordinal);
+}
 
 /// <summary>
 /// One species as a pathway uses it: identity (formula, charge, multiplicity), its electronic energy with level of theory,
-/// and optionally reported thermal corrections and/or the geometry and frequencies to compute them.
+/// and optionally reported thermal corrections and/or the geometry and frequencies to compute them, with the rotational
+/// symmetry number σ and (for display only) the point group it came from.
 /// </summary>
 public sealed record SpeciesRecord(
     string Label,
@@ -34,7 +39,8 @@ public sealed record SpeciesRecord(
     Molecule? Geometry = null,
     IReadOnlyList<double>? FrequenciesCm1 = null,
     LevelOfTheory? FrequencyLevel = null,
-    int SymmetryNumber = 1)
+    int SymmetryNumber = 1,
+    string? PointGroup = null)
 {
     /// <summary>Electrons: Σ Z − charge.</summary>
     public int ElectronCount => Formula.NuclearCharge - Charge;
@@ -50,8 +56,11 @@ public enum StateKind
 /// <summary>A species with its (positive, integer) coefficient in a state.</summary>
 public sealed record StateTerm(SpeciesRecord Species, int Coefficient = 1);
 
-/// <summary>One state of a pathway: a sum of species, e.g. "A + B", "TS1", "P + H2O".</summary>
-public sealed record PathwayState(string Label, StateKind Kind, IReadOnlyList<StateTerm> Terms)
+/// <summary>
+/// One state of a pathway: a sum of species, e.g. "A + B", "TS1", "P + H2O". A saddle point may give its imaginary frequency
+/// (cm⁻¹, negative as programs print it) for the tunnelling correction of its step.
+/// </summary>
+public sealed record PathwayState(string Label, StateKind Kind, IReadOnlyList<StateTerm> Terms, double? ImaginaryFrequencyCm1 = null)
 {
     /// <summary>Elemental formula of the whole state.</summary>
     public Formula Formula => Formula.Sum(Terms.Select(t => (t.Species.Formula, t.Coefficient)));

@@ -11,23 +11,47 @@ public enum ThermalSource
 {
     /// <summary>Each species' reported corrections (<see cref="SpeciesRecord.Thermal"/>), moved to the model's standard state.</summary>
     Reported,
-    /// <summary>Computed by Core thermochemistry from each species' geometry and frequencies at the model's temperature.</summary>
+    /// <summary>
+    /// Computed by Core thermochemistry from each species' geometry and frequencies at the model's temperature, standard state,
+    /// treatment and the species' σ; a species without geometry and frequencies falls back to its reported corrections.
+    /// </summary>
     Computed,
     /// <summary>Electronic energies only: no ΔH, ΔG, rate constants or energetic span.</summary>
     ElectronicOnly,
 }
 
+/// <summary>The tunnelling correction applied to each step's Eyring rate constant.</summary>
+public enum StepTunnelling
+{
+    /// <summary>κ = 1 (times <see cref="EnergyModel.TransmissionCoefficient"/>).</summary>
+    None,
+    /// <summary>Wigner's κ from the saddle point's imaginary frequency (<see cref="Tunnelling.Wigner"/>).</summary>
+    Wigner,
+}
+
 /// <summary>
 /// An energy model: which thermal corrections are used, at which temperature, standard state and treatment (all in
-/// <see cref="Thermo"/>), and the transmission coefficient κ for Eyring rate constants.
+/// <see cref="Thermo"/>), a constant transmission coefficient for Eyring rate constants, and the tunnelling correction that
+/// multiplies it per step.
 /// </summary>
-public sealed record EnergyModel(ThermalSource Thermal = ThermalSource.Reported, ThermoOptions? Thermo = null, double TransmissionCoefficient = 1.0)
+public sealed record EnergyModel(ThermalSource Thermal = ThermalSource.Reported, ThermoOptions? Thermo = null, double TransmissionCoefficient = 1.0,
+    StepTunnelling Tunnelling = StepTunnelling.None)
 {
     public ThermoOptions ThermoOrDefault => Thermo ?? ThermoOptions.Default;
 }
 
-/// <summary>Energies of one state: absolute sums and values relative to the first state (null where a correction is missing).</summary>
-public sealed record StateEnergies(string Label, StateKind Kind, Energy Electronic, Energy? Enthalpy, Energy? Gibbs, Energy RelativeElectronic, Energy? RelativeEnthalpy, Energy? RelativeGibbs);
+/// <summary>One species of a state as the derivation used it: the record with the thermal correction actually applied (null if none).</summary>
+public sealed record TermEnergies(SpeciesRecord Species, int Coefficient);
+
+/// <summary>
+/// Energies of one state: absolute sums and values relative to the first state (null where a correction is missing), and its
+/// terms in the order given, each with the thermal correction used.
+/// </summary>
+public sealed record StateEnergies(string Label, StateKind Kind, Energy Electronic, Energy? Enthalpy, Energy? Gibbs, Energy RelativeElectronic, Energy? RelativeEnthalpy,
+    Energy? RelativeGibbs)
+{
+    public IReadOnlyList<TermEnergies> Terms { get; init; } = [];
+}
 
 /// <summary>
 /// One step minimum → saddle point → minimum.
@@ -40,13 +64,26 @@ public sealed record StateEnergies(string Label, StateKind Kind, Energy Electron
 /// <param name="ElectronicReactionEnergy">ΔE_r = E(to) − E(from).</param>
 /// <param name="GibbsReactionEnergy">ΔG_r = G(to) − G(from), or null.</param>
 /// <param name="Molecularity">Molecules in "from" minus molecules in the saddle point, plus one.</param>
-/// <param name="RateConstant">Eyring k from ΔG‡ (s⁻¹ for unimolecular, M⁻¹ s⁻¹ for bimolecular, referred to the model's standard state), or null.</param>
+/// <param name="RateConstant">Eyring k from ΔG‡ with κ (s⁻¹ for unimolecular, M⁻¹ s⁻¹ for bimolecular, referred to the model's standard state), or null.</param>
 /// <param name="RateConstantUnit">"s⁻¹", "M⁻¹ s⁻¹" or "M⁻² s⁻¹".</param>
 /// <param name="HalfLifeSeconds">t½ = ln 2 / k for a unimolecular step; null otherwise (it depends on concentrations).</param>
+/// <param name="EnthalpyBarrier">ΔH‡ = H(saddle) − H(from), or null.</param>
+/// <param name="ImaginaryFrequencyCm1">The saddle point's imaginary frequency as given (negative), or null.</param>
+/// <param name="TransmissionCoefficient">κ used in <paramref name="RateConstant"/>.</param>
 public sealed record StepEnergies(
     string From, string SaddlePoint, string To,
     Energy ElectronicBarrier, Energy? GibbsBarrier, Energy ElectronicReactionEnergy, Energy? GibbsReactionEnergy,
-    int Molecularity, double? RateConstant, string RateConstantUnit, double? HalfLifeSeconds);
+    int Molecularity, double? RateConstant, string RateConstantUnit, double? HalfLifeSeconds,
+    Energy? EnthalpyBarrier = null, double? ImaginaryFrequencyCm1 = null, double TransmissionCoefficient = 1.0);
+
+/// <summary>
+/// The pathway's headline numbers: the Gibbs barrier is the energetic span δE when it can be formed (Kozuch and Shaik,
+/// Acc. Chem. Res. 2011, 44, 101), else the highest step ΔG‡; <see cref="DeterminingSaddlePoint"/> is the TDTS or that step's
+/// saddle point; k_eff = κ (k_B T/h) exp(−ΔG‡/RT) with that saddle point's κ (first order, <see cref="Eyring"/>), t½ = ln 2 / k_eff.
+/// <see cref="ElectronicBarrier"/> is the highest step ΔE‡; <see cref="ReactionGibbs"/> is G(last) − G(first).
+/// </summary>
+public sealed record OverallEnergies(Energy? GibbsBarrier, Energy? ElectronicBarrier, Energy? ReactionGibbs, string? DeterminingSaddlePoint,
+    double TransmissionCoefficient, double? RateConstantPerSecond, double? HalfLifeSeconds);
 
 /// <summary>Everything derived for a pathway under an energy model, with the consistency verdict and reasons it carries.</summary>
 public sealed record PathwayEnergyResult(
@@ -57,6 +94,9 @@ public sealed record PathwayEnergyResult(
     Verdict Verdict,
     IReadOnlyList<CheckReason> Reasons)
 {
+    /// <summary>The headline barrier, rate constant and half-life (see <see cref="OverallEnergies"/>).</summary>
+    public OverallEnergies Overall { get; init; } = new(null, null, null, null, 1.0, null, null);
+
     public string Report() => CheckReport.Format(Verdict, Reasons);
 }
 
@@ -67,13 +107,16 @@ public static class PathwayEnergyCodes
     public const string MissingFrequencies = "energies.missing-frequencies";
     public const string NoRateConstant = "energies.no-rate-constant";
     public const string StandardStateConverted = "energies.standard-state-converted";
+    public const string ThermochemistryFailed = "energies.thermochemistry-failed";
 }
 
 /// <summary>
+/// The one derivation of every number of a pathway (the ledger, its exports, the API and the command line all read its result).
 /// Derived energies of a pathway: E, H and G of every state (Σ coefficient × species value; H = E + enthalpy correction,
 /// G = E + Gibbs correction in the model's standard state) relative to the first state; for every saddle point with minima on
 /// both sides, ΔE‡, ΔG‡, ΔE_r, ΔG_r, the Eyring rate constant k = κ (k_B T/h)(c°)^{1−m} exp(−ΔG‡/RT) (<see cref="Eyring"/>)
-/// and for unimolecular steps t½ = ln 2 / k; and the overall barrier by the energetic-span model (<see cref="EnergeticSpan"/>,
+/// with κ from the model's tunnelling correction and the saddle point's imaginary frequency (Wigner 1932, <see cref="Tunnelling.Wigner"/>),
+/// and for unimolecular steps t½ = ln 2 / k; the headline numbers (<see cref="OverallEnergies"/>); and the overall barrier by the energetic-span model (<see cref="EnergeticSpan"/>,
 /// Kozuch and Shaik, Acc. Chem. Res. 2011, 44, 101) over the states before the last, with ΔG_r = G(last) − G(first).
 /// The consistency check (<see cref="BarrierConsistency"/>) runs on the thermal corrections actually used; its reasons are
 /// part of the result and set its verdict, so a barrier from mixed levels of theory is never shown without saying so.
@@ -112,7 +155,10 @@ public static class PathwayEnergies
             var e = s.ElectronicEnergy;
             var h = Sum(s, c => c.Enthalpy);
             var g = Sum(s, c => c.Gibbs);
-            return new StateEnergies(s.Label, s.Kind, e, h, g, e - e0, h - h0, g - g0);
+            return new StateEnergies(s.Label, s.Kind, e, h, g, e - e0, h - h0, g - g0)
+            {
+                Terms = [.. s.Terms.Select(x => new TermEnergies(x.Species, x.Coefficient))],
+            };
         }).ToList();
 
         var steps = new List<StepEnergies>();
@@ -124,13 +170,15 @@ public static class PathwayEnergies
             var (a, ts, b) = (states[i - 1], states[i], states[i + 1]);
             var molecularity = used.States[i - 1].MoleculeCount - used.States[i].MoleculeCount + 1;
             var dg = ts.Gibbs - a.Gibbs;
+            var imaginary = used.States[i].ImaginaryFrequencyCm1;
+            var kappa = Kappa(m, imaginary, t);
             double? k = null, half = null;
             var unit = molecularity switch { 1 => "s⁻¹", 2 => "M⁻¹ s⁻¹", 3 => "M⁻² s⁻¹", _ => "" };
             if (dg is { } barrier)
             {
                 if (molecularity is >= 1 and <= 3)
                 {
-                    k = Eyring.RateConstant(barrier, t, m.TransmissionCoefficient, molecularity, StandardConcentration(thermo));
+                    k = Eyring.RateConstant(barrier, t, kappa, molecularity, StandardConcentration(thermo));
                     if (molecularity == 1) half = Eyring.HalfLifeSeconds(k.Value);
                 }
                 else
@@ -141,7 +189,7 @@ public static class PathwayEnergies
                 }
             }
             steps.Add(new StepEnergies(a.Label, ts.Label, b.Label, ts.Electronic - a.Electronic, dg, b.Electronic - a.Electronic, b.Gibbs - a.Gibbs,
-                molecularity, k, unit, half));
+                molecularity, k, unit, half, ts.Enthalpy - a.Enthalpy, imaginary, kappa));
         }
 
         EnergeticSpanResult? span = null;
@@ -155,7 +203,41 @@ public static class PathwayEnergies
         }
 
         var reasons = consistency.Reasons.Concat(extra).OrderByDescending(r => r.Severity).ToList();
-        return new PathwayEnergyResult(m, states, steps, span, CheckReason.VerdictOf(reasons), reasons);
+        return new PathwayEnergyResult(m, states, steps, span, CheckReason.VerdictOf(reasons), reasons)
+        {
+            Overall = Overall(steps, span, states[^1].RelativeGibbs, t),
+        };
+    }
+
+    private static OverallEnergies Overall(List<StepEnergies> steps, EnergeticSpanResult? span, Energy? reactionGibbs, double t)
+    {
+        var highest = steps.Where(s => s.GibbsBarrier is not null).MaxBy(s => s.GibbsBarrier!.Value.Hartree);
+        var determining = span is not null ? steps.FirstOrDefault(s => s.SaddlePoint == span.Tdts.Label) : highest;
+        var barrier = span?.EnergeticSpanEnergy ?? highest?.GibbsBarrier;
+        var kappa = determining?.TransmissionCoefficient ?? 1.0;
+        double? k = barrier is { } bg ? Eyring.RateConstant(bg, t, kappa) : null;
+        var electronic = steps.Count == 0 ? (Energy?)null : steps.MaxBy(s => s.ElectronicBarrier.Hartree)!.ElectronicBarrier;
+        return new OverallEnergies(barrier, electronic, reactionGibbs, span?.Tdts.Label ?? highest?.SaddlePoint, kappa, k,
+            k is > 0 ? Eyring.HalfLifeSeconds(k.Value) : null);
+    }
+
+    /// <summary>κ of a step: the model's constant times Wigner's correction when asked for and the saddle point has an imaginary mode.</summary>
+    private static double Kappa(EnergyModel m, double? imaginaryCm1, double t) =>
+        m.TransmissionCoefficient * (m.Tunnelling == StepTunnelling.Wigner && imaginaryCm1 is { } v && v < 0 ? Tunnelling.Wigner(Math.Abs(v), t) : 1.0);
+
+    /// <summary>
+    /// The thermal correction one species gets under <paramref name="model"/>: exactly the one a pathway containing it would use
+    /// (computed from its geometry and frequencies, else reported and moved to the model's standard state), with the reasons
+    /// found; null when there is none. For listing a species on its own (a structure in no pathway).
+    /// </summary>
+    public static ThermalCorrection? ThermalCorrectionOf(SpeciesRecord species, EnergyModel? model, out IReadOnlyList<CheckReason> reasons)
+    {
+        ArgumentNullException.ThrowIfNull(species);
+        var m = model ?? new EnergyModel();
+        var list = new List<CheckReason>();
+        var result = Resolve(species, m, m.ThermoOrDefault, list);
+        reasons = list;
+        return result;
     }
 
     /// <summary>c° in mol/L of the model's standard state: c for a solution, p/(RT) for a gas.</summary>
@@ -186,11 +268,23 @@ public static class PathwayEnergies
             default:
                 if (sp.Geometry is null || sp.FrequenciesCm1 is null)
                 {
+                    if (sp.Thermal is not null) return Resolve(sp, m with { Thermal = ThermalSource.Reported }, thermo, extra);
                     extra.Add(new(PathwayEnergyCodes.MissingFrequencies, CheckSeverity.Attention,
                         $"{sp.Label}: no geometry and frequencies, so its thermal corrections cannot be computed."));
                     return null;
                 }
-                var result = Thermochemistry.Thermochemistry.Compute(sp.Geometry, sp.FrequenciesCm1, thermo with { SymmetryNumber = sp.SymmetryNumber });
+                ThermoResult result;
+                try
+                {
+                    result = Thermochemistry.Thermochemistry.Compute(sp.Geometry, sp.FrequenciesCm1, thermo with { SymmetryNumber = Math.Max(1, sp.SymmetryNumber) });
+                }
+                catch (ArgumentException ex)
+                {
+                    if (sp.Thermal is not null) return Resolve(sp, m with { Thermal = ThermalSource.Reported }, thermo, extra);
+                    extra.Add(new(PathwayEnergyCodes.ThermochemistryFailed, CheckSeverity.Attention,
+                        $"{sp.Label}: its thermal corrections cannot be computed from its geometry and frequencies ({ex.Message})."));
+                    return null;
+                }
                 var level = sp.FrequencyLevel ?? sp.ElectronicLevel.GeometryLevel ?? sp.ElectronicLevel;
                 return new ThermalCorrection(result.ZeroPointEnergy, result.EnthalpyCorrection, result.GibbsCorrection, level, t, thermo.StandardState,
                     $"computed ({thermo.Treatment})");

@@ -11,7 +11,7 @@ internal sealed record ReactionInput(int Id, int StudyId, long InputsRevision, S
 
 /// <summary>A species as the derivation reads it; <see cref="SymmetryNumber"/> is the σ in use (override, else detected, else 1).</summary>
 internal sealed record SpeciesInput(int Id, string Label, int Charge, int Multiplicity, string Formula, int SymmetryNumber, int? SymmetryNumberOverride,
-    int? SymmetryCalculationId);
+    int? SymmetryCalculationId, string? PointGroup = null);
 
 internal sealed record CalcInput(int Id, int SpeciesId, CalculationKind Kind, string LevelOfTheory, string EnergyKey, string GeometryKey, double? EnergyHartree,
     byte[]? AtomicNumbers, byte[]? Positions, byte[]? Frequencies, double? ThermalTemperatureKelvin, double? ZeroPointHartree,
@@ -67,7 +67,7 @@ internal sealed class DerivationInputs
         var speciesIds = reactionInputs.SelectMany(r => r.States).SelectMany(s => s.Terms).Select(t => t.SpeciesId).Concat(moreSpeciesIds ?? []).Distinct().ToList();
         var species = await db.Species.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.Id))
             .Select(s => new SpeciesInput(s.Id, s.Label, s.Charge, s.Multiplicity, s.Formula, s.SymmetryNumber, s.SymmetryNumberOverride,
-                s.SymmetryCalculationId)).ToListAsync(ct);
+                s.SymmetryCalculationId, s.PointGroup)).ToListAsync(ct);
         var calcs = await db.Calculations.AsNoTracking().Where(c => EF.Parameter(speciesIds).Contains(c.SpeciesId) && !c.Retired)
             .OrderBy(c => c.Id)
             .Select(c => new CalcInput(c.Id, c.SpeciesId, c.Kind, c.LevelOfTheory, c.EnergyLevelKey, c.GeometryLevel, c.EnergyHartree,

@@ -5,10 +5,20 @@ namespace BarrierLedger.Ledger.Derivation;
 
 /// <summary>
 /// One state's energies relative to the pathway's first state, per molecule in hartree (null when not available).
-/// <see cref="EnergyCalculationIds"/> and <see cref="ThermalCalculationIds"/> name the calculations used.
+/// <see cref="EnergyCalculationIds"/> and <see cref="ThermalCalculationIds"/> name the calculations used; <see cref="Terms"/>
+/// gives each species' own values as the derivation used them (null in values stored before they were kept).
 /// </summary>
 public sealed record DerivedState(int Position, string Label, string Kind, double? DeltaEHartree, double? DeltaHHartree, double? DeltaGHartree,
-    IReadOnlyList<int> EnergyCalculationIds, IReadOnlyList<int> ThermalCalculationIds, string LevelOfTheory);
+    IReadOnlyList<int> EnergyCalculationIds, IReadOnlyList<int> ThermalCalculationIds, string LevelOfTheory, IReadOnlyList<DerivedTerm>? Terms = null);
+
+/// <summary>
+/// One species of a state as the derivation used it (hartree per molecule): its electronic energy and the calculation it came
+/// from; the thermal correction applied (zero-point, enthalpy and Gibbs corrections, where it came from: "computed (…)" or
+/// "reported") and its calculation, or nulls when there is none; the point group and σ used.
+/// </summary>
+public sealed record DerivedTerm(int SpeciesId, string Label, int Coefficient, int EnergyCalculationId, double ElectronicHartree, string LevelOfTheory,
+    int? ThermalCalculationId, double? ZeroPointHartree, double? EnthalpyCorrectionHartree, double? GibbsCorrectionHartree, string? ThermalSource,
+    string? PointGroup, int SymmetryNumber);
 
 /// <summary>
 /// One elementary step minimum → saddle point → minimum (Core <c>PathwayEnergies</c>): barriers from the minimum before, reaction
@@ -17,7 +27,7 @@ public sealed record DerivedState(int Position, string Label, string Kind, doubl
 /// </summary>
 public sealed record DerivedStep(int SaddlePosition, string Label, string From, string To, double BarrierEHartree, double? BarrierGHartree,
     double ReactionEHartree, double? ReactionGHartree, int Molecularity, double? RateConstant, string RateConstantUnit, double? HalfLifeSeconds,
-    double? ImaginaryCm1, double TransmissionCoefficient);
+    double? ImaginaryCm1, double TransmissionCoefficient, double? BarrierHHartree = null);
 
 /// <summary>One state of a pathway that is not stored yet, as the builder holds it: species ids with coefficients, the saddle point's calculation and its atom pairs (1-based).</summary>
 public sealed record PreviewState(string Label, Records.StateKind Kind, int? SaddleCalculationId, IReadOnlyList<(int SpeciesId, int Coefficient)> Terms,

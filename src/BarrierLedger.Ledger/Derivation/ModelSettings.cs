@@ -82,7 +82,7 @@ public sealed record ModelSettings(
         return e;
     }
 
-    public string Fingerprint => Hash(string.Join("|", "v1", EnergyLevels.Key(EnergyLevel), EnergyLevels.Key(ThermalLevel), Num(TemperatureKelvin),
+    public string Fingerprint => Hash(string.Join("|", "v2", EnergyLevels.Key(EnergyLevel), EnergyLevels.Key(ThermalLevel), Num(TemperatureKelvin),
         StandardState, Treatment, Num(QuasiRrhoCutoffCm1), Tunnelling, CheckFingerprint));
 
     public string CheckFingerprint => Hash(string.Join("|", "c1", Num(SignificantImaginaryCm1), Num(ScanJumpKcalPerMol)));

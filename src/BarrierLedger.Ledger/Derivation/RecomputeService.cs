@@ -58,6 +58,26 @@ public sealed class RecomputeService(IDbContextFactory<LedgerDbContext> factory,
         }
     }
 
+    /// <summary>
+    /// Asks for a pass over every study whose stored values were derived under another model fingerprint than the one now in
+    /// force (an energy model changed while no instance ran, or this version derives more than the one that stored them), so
+    /// nothing stays marked out of date after an upgrade. Returns how many studies were asked for.
+    /// </summary>
+    public async Task<int> RequestOutdatedAsync(CancellationToken ct = default)
+    {
+        await using var db = await factory.CreateDbContextAsync(ct);
+        var stored = await db.Reactions.AsNoTracking().Where(r => !r.Retired && r.Derivation != null)
+            .Select(r => new { r.StudyId, r.Derivation!.ModelFingerprint }).Distinct().ToListAsync(ct);
+        var outdated = new List<int>();
+        foreach (var g in stored.GroupBy(x => x.StudyId))
+        {
+            var (model, _) = await DerivationService.EffectiveModelAsync(db, g.Key, ct);
+            if (g.Any(x => x.ModelFingerprint != model.Fingerprint)) outdated.Add(g.Key);
+        }
+        foreach (var id in outdated) _ = Request(id);
+        return outdated.Count;
+    }
+
     /// <summary>Waits for the background passes requested so far.</summary>
     public Task WhenIdleAsync()
     {

@@ -38,7 +38,7 @@ internal static class SpeciesSymmetry
             if (source is null || source.Id == sp.SymmetryCalculationId) continue;
             if (Detect(source, sp) is not { } f) continue;
             found.Add(f);
-            inputs.Species[sp.Id] = sp with { SymmetryCalculationId = f.CalculationId, SymmetryNumber = Effective(sp.SymmetryNumberOverride, f.SymmetryNumber) };
+            inputs.Species[sp.Id] = sp with { SymmetryCalculationId = f.CalculationId, PointGroup = f.PointGroup, SymmetryNumber = Effective(sp.SymmetryNumberOverride, f.SymmetryNumber) };
         }
         return found;
     }

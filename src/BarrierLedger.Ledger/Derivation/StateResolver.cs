@@ -1,15 +1,92 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
+using BarrierLedger.Core.Thermochemistry;
+using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Storage;
+using CoreEnergyModel = BarrierLedger.Core.Pathways.EnergyModel;
 
 namespace BarrierLedger.Ledger.Derivation;
 
 /// <summary>
+/// One species resolved for a state under an energy model: the Core record the derivation computes with (electronic energy,
+/// geometry and frequencies for the thermal correction, the program-reported correction as fallback, σ), the calculations it
+/// came from, and the reasons found while choosing them. <see cref="Record"/> is null when the species has no usable energy.
+/// </summary>
+internal sealed record ResolvedSpecies(SpeciesRecord? Record, CalcInput? Energy, CalcInput? Thermal, CalcInput? Reported, IReadOnlyList<ConsistencyReason> Reasons)
+{
+    /// <summary>The calculation behind the thermal correction the derivation actually applied (see <see cref="ThermalCorrection.IsComputed"/>).</summary>
+    public CalcInput? ThermalUsed(ThermalCorrection? applied) => applied is null ? null : applied.IsComputed ? Thermal : Reported;
+}
+
+/// <summary>
 /// The one rule for which stored calculation supplies a species' electronic energy and its thermal correction under an energy
 /// model. Everything that needs "the energy of this species" (the derivation of reactions, the point group kept on the
-/// species) asks here; exports and screens read what the derivation stored.
+/// species, the supporting-information export of a species in no reaction) asks here; exports and screens read what the
+/// derivation stored. One instance per model and inputs; it keeps one record per species and preferred calculation, so a
+/// species shared by several states (a catalyst, a spectator) is the same record in each.
 /// </summary>
-internal static class StateResolver
+internal sealed class StateResolver(ModelSettings model, DerivationInputs inputs)
 {
+    // "A//B" in the model means energies at A on geometries from B: calculations store A as their energy level and B
+    // as their geometry level, so both parts are matched, each on its own.
+    private readonly string _energyKey = EnergyLevels.Key(model.EnergyLevel.Split("//", 2)[0]);
+    private readonly string _energyGeometryKey = model.EnergyLevel.Contains("//", StringComparison.Ordinal)
+        ? EnergyLevels.Key(model.EnergyLevel.Split("//", 2)[1]) : "";
+    private readonly string _thermalKey = EnergyLevels.Key(model.ThermalLevel);
+    private readonly Dictionary<(int, int?), ResolvedSpecies> _resolved = [];
+    private readonly Dictionary<string, Formula> _formulas = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, LevelOfTheory> _levels = new(StringComparer.Ordinal);
+
+    /// <summary>The Core energy model these settings stand for: thermal corrections computed (else reported), the model's tunnelling.</summary>
+    public CoreEnergyModel CoreModel { get; } = new(ThermalSource.Computed, model.ThermoOptions(1), 1.0,
+        model.Tunnelling == TunnellingCorrection.Wigner ? StepTunnelling.Wigner : StepTunnelling.None);
+
+    public DerivationInputs Inputs => inputs;
+
+    /// <summary>
+    /// The species as a state uses it. <paramref name="preferredCalcId"/> is the state's own saddle calculation; it is preferred
+    /// only for its own species (in "TS1 + fluoride" it says nothing about fluoride). <paramref name="state"/> names the state
+    /// in the reasons.
+    /// </summary>
+    public ResolvedSpecies Resolve(SpeciesInput sp, int? preferredCalcId, string state)
+    {
+        if (preferredCalcId is { } pid && (!inputs.Calculations.TryGetValue(pid, out var pc) || pc.SpeciesId != sp.Id)) preferredCalcId = null;
+        if (!_resolved.TryGetValue((sp.Id, preferredCalcId), out var r)) _resolved[(sp.Id, preferredCalcId)] = r = Build(sp, preferredCalcId, state);
+        return r;
+    }
+
+    private ResolvedSpecies Build(SpeciesInput sp, int? preferredCalcId, string state)
+    {
+        var reasons = new List<ConsistencyReason>();
+        var calcs = inputs.CalculationsBySpecies[sp.Id];
+        CalcInput? preferred = preferredCalcId is { } pid && inputs.Calculations.TryGetValue(pid, out var p) ? p : null;
+
+        var energy = EnergyCalculation(calcs, _energyKey, _energyGeometryKey, preferred);
+        if (energy is null)
+        {
+            reasons.Add(new(LedgerReasonCodes.MissingEnergy, "Failure",
+                $"State {state}: species {sp.Label} has no electronic energy" + (_energyKey.Length > 0 ? $" at {model.EnergyLevel}" : "") + ", so the pathway has no energies."));
+            return new(null, null, null, null, reasons);
+        }
+        if (sp.Formula.Length == 0)
+            reasons.Add(new(LedgerReasonCodes.FormulaUnknown, "Failure", $"Species {sp.Label} has no geometry stored, so conservation of atoms cannot be checked."));
+
+        var thermal = ThermalCalculation(calcs, _thermalKey, preferred);
+        var reported = ReportedCalculation(calcs, model.TemperatureKelvin);
+        var molecule = thermal is null ? null : Blobs.ToMolecule(thermal.AtomicNumbers, thermal.Positions, sp.Charge, sp.Multiplicity);
+        var thermalLevel = thermal is null ? null : Level(thermal.LevelOfTheory);
+        var record = new SpeciesRecord(sp.Label, FormulaOf(sp.Formula), sp.Charge, sp.Multiplicity, Energy.FromHartree(energy.EnergyHartree!.Value),
+            Level(energy.LevelOfTheory),
+            // Programs report gas-phase corrections at 1 atm (common practice, no source); Core converts the standard state.
+            reported is null ? null : new ThermalCorrection(Energy.FromHartree(reported.ZeroPointHartree ?? 0), Energy.FromHartree(reported.EnthalpyCorrectionHartree!.Value),
+                Energy.FromHartree(reported.GibbsCorrectionHartree!.Value), Level(reported.LevelOfTheory), reported.ThermalTemperatureKelvin!.Value, StandardState.Gas1Atm, "reported"),
+            molecule, molecule is null ? null : Blobs.ToDoubles(thermal!.Frequencies), thermalLevel is null ? null : thermalLevel.GeometryLevel ?? thermalLevel,
+            Math.Max(1, sp.SymmetryNumber), sp.PointGroup);
+        return new(record, energy, molecule is null ? null : thermal, reported, reasons);
+    }
+
     /// <summary>
     /// The electronic energy: with a model energy level ("A" or "A//B"), the newest calculation at A (on a geometry from B when
     /// given), the state's own saddle calculation first; without one, the state's own calculation, else the newest optimised
@@ -38,5 +115,26 @@ internal static class StateResolver
             ? withFreqs.Where(c => c.EnergyKey == thermalKey || EnergyLevels.Key(c.GeometryKey) == thermalKey)
                 .OrderByDescending(c => preferred is not null && c.Id == preferred.Id).ThenByDescending(c => c.Id).FirstOrDefault()
             : (preferred is not null && withFreqs.Contains(preferred) ? preferred : withFreqs.LastOrDefault());
+    }
+
+    /// <summary>
+    /// The program-reported thermal correction used when none can be computed: the newest at the model temperature, else the
+    /// newest at any temperature (Core then says that its temperature is not the model's).
+    /// </summary>
+    public static CalcInput? ReportedCalculation(IEnumerable<CalcInput> calcs, double temperatureKelvin) =>
+        calcs.Where(c => c.EnthalpyCorrectionHartree is not null && c.GibbsCorrectionHartree is not null && c.ThermalTemperatureKelvin is not null)
+            .OrderByDescending(c => Math.Abs(c.ThermalTemperatureKelvin!.Value - temperatureKelvin) < 0.01).ThenByDescending(c => c.Id).FirstOrDefault();
+
+    private Formula FormulaOf(string text)
+    {
+        if (text.Length == 0) return Formula.Empty;
+        if (!_formulas.TryGetValue(text, out var f)) _formulas[text] = f = Formula.Parse(text);
+        return f;
+    }
+
+    public LevelOfTheory Level(string text)
+    {
+        if (!_levels.TryGetValue(text, out var l)) _levels[text] = l = LevelOfTheory.TryParse(text, out var parsed, out _) ? parsed : new LevelOfTheory(text, "");
+        return l;
     }
 }

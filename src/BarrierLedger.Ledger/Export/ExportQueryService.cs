@@ -1,12 +1,10 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
-using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.EntityFrameworkCore;
-using CoreThermo = BarrierLedger.Core.Thermochemistry.Thermochemistry;
 
 namespace BarrierLedger.Ledger.Export;
 
@@ -72,18 +70,14 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
                 continue;
             }
             var steps = DerivedJson.Read<List<DerivedStep>>(r.Derivation.StepsJson);
-            var states = DerivedJson.Read<List<DerivedState>>(r.Derivation.StatesJson);
             var problems = DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson).Where(c => c.Blocking).Select(c => c.Message).ToList();
             if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
             foreach (var s in steps)
             {
                 var calcId = r.States.FirstOrDefault(x => x.Position == s.SaddlePosition)?.SaddleCalculationId;
                 var (verdict, reasons) = CheckOf(calcId, checks);
-                var saddle = states.FirstOrDefault(x => x.Position == s.SaddlePosition);
-                var from = states.Where(x => x.Position < s.SaddlePosition && x.Label == s.From).OrderBy(x => x.Position).LastOrDefault();
-                var barrierH = saddle?.DeltaHHartree is { } hs && from?.DeltaHHartree is { } hf ? hs - hf : (double?)null;
                 rows.Add(new BarrierRow(r.Label, $"{s.From} → {s.To}", s.Label,
-                    H(s.BarrierEHartree), H(barrierH), H(s.BarrierGHartree), H(s.ReactionGHartree),
+                    H(s.BarrierEHartree), H(s.BarrierHHartree), H(s.BarrierGHartree), H(s.ReactionGHartree),
                     s.RateConstant, s.HalfLifeSeconds, s.ImaginaryCm1, verdict, reasons,
                     calcId is { } id && reviews.TryGetValue(id, out var rv) ? rv : ReviewState.AwaitingReview,
                     r.Derivation.LevelOfTheory, problems, s.RateConstantUnit));
@@ -123,9 +117,11 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
     }
 
     /// <summary>
-    /// Every live species of the study that has a geometry: the electronic energy from the model's energy level (else a single
-    /// point, else any energy), thermal corrections computed from its frequencies at the model's settings (else the reported
-    /// ones at the model temperature), its imaginary frequencies, and its geometry.
+    /// Every live species of the study that has a geometry, with exactly the values the derivation used: for a species in a
+    /// reaction, its stored terms (electronic energy, zero-point, enthalpy and Gibbs corrections, point group and σ, and the
+    /// calculations behind them; a species used with different calculations in different reactions is listed once per set);
+    /// for a species in no reaction, the same <see cref="StateResolver"/> and Core derivation a reaction would use. Nothing is
+    /// chosen or computed here by rules of its own.
     /// </summary>
     public async Task<(string Study, ExportModel Model, IReadOnlyList<SiStructure> Structures)> GetSupportingInfoAsync(int studyId, CancellationToken ct = default)
     {
@@ -133,53 +129,76 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
         var study = await db.Studies.AsNoTracking().FirstOrDefaultAsync(s => s.Id == studyId && !s.Retired, ct)
             ?? throw new ArgumentException($"There is no study with id {studyId}.", nameof(studyId));
         var (settings, _) = await DerivationService.EffectiveModelAsync(db, studyId, ct);
-        var species = await db.Species.AsNoTracking().Where(s => s.StudyId == studyId && !s.Retired).OrderBy(s => s.Label).ToListAsync(ct);
+        var species = await db.Species.AsNoTracking().Where(s => s.StudyId == studyId && !s.Retired).OrderBy(s => s.Label)
+            .Select(s => new { s.Id, s.Label, s.Charge, s.Multiplicity }).ToListAsync(ct);
         var ids = species.Select(s => s.Id).ToList();
-        var calcs = (await db.Calculations.AsNoTracking().Where(c => ids.Contains(c.SpeciesId) && !c.Retired).OrderBy(c => c.Id).ToListAsync(ct)).ToLookup(c => c.SpeciesId);
+        var calcs = (await db.Calculations.AsNoTracking().Where(c => ids.Contains(c.SpeciesId) && !c.Retired).OrderBy(c => c.Id)
+            .Select(c => new { c.Id, c.SpeciesId, c.Kind, c.LevelOfTheory, c.AtomicNumbers, c.PositionsAngstrom, c.FrequenciesCm1 }).ToListAsync(ct));
+        var calcById = calcs.ToDictionary(c => c.Id);
+        var calcsBySpecies = calcs.ToLookup(c => c.SpeciesId);
         var saddleSpecies = (await db.ReactionStateTerms.AsNoTracking()
             .Where(t => db.ReactionStates.Any(s => s.Id == t.ReactionStateId && s.Kind == StateKind.SaddlePoint && !s.Reaction!.Retired))
             .Select(t => t.SpeciesId).ToListAsync(ct)).ToHashSet();
-        var energyKey = EnergyLevels.Key(settings.EnergyLevel);
-        var thermalKey = EnergyLevels.Key(settings.ThermalLevel);
+
+        // What the stored derivations used, per species, in reaction order.
+        var derived = await db.Reactions.AsNoTracking().Where(r => r.StudyId == studyId && !r.Retired && r.Derivation != null).OrderBy(r => r.Label)
+            .Select(r => r.Derivation!.StatesJson).ToListAsync(ct);
+        var used = derived.SelectMany(json => DerivedJson.Read<List<DerivedState>>(json)).SelectMany(s => s.Terms ?? [])
+            .GroupBy(t => t.SpeciesId).ToDictionary(g => g.Key, g => g.DistinctBy(t => (t.EnergyCalculationId, t.ThermalCalculationId)).ToList());
+
+        // A species in no reaction: the one resolver and the one Core derivation, as if it stood in a state of its own.
+        var alone = species.Where(s => !used.ContainsKey(s.Id)).Select(s => s.Id).ToList();
+        if (alone.Count > 0)
+        {
+            var inputs = await DerivationInputs.ForReactionsAsync(db, [], ct, alone);
+            var resolver = new StateResolver(settings, inputs);
+            foreach (var id in alone)
+            {
+                if (!inputs.Species.TryGetValue(id, out var sp)) continue;
+                var rs = resolver.Resolve(sp, null, sp.Label);
+                if (rs.Record is not { } record) continue;
+                var thermal = Core.Pathways.PathwayEnergies.ThermalCorrectionOf(record, resolver.CoreModel, out _);
+                used[id] = [new DerivedTerm(id, sp.Label, 1, rs.Energy!.Id, record.ElectronicEnergy.Hartree, record.ElectronicLevel.ToString(),
+                    rs.ThermalUsed(thermal)?.Id, thermal?.ZeroPoint.Hartree, thermal?.Enthalpy.Hartree, thermal?.Gibbs.Hartree, thermal?.Source,
+                    record.PointGroup, record.SymmetryNumber)];
+            }
+        }
 
         var structures = new List<SiStructure>();
         foreach (var sp in species)
         {
-            var list = calcs[sp.Id].ToList();
-            var energy = (energyKey.Length > 0 ? list.LastOrDefault(c => c.EnergyHartree != null && c.EnergyLevelKey == energyKey) : null)
-                ?? list.LastOrDefault(c => c.EnergyHartree != null && c.Kind == CalculationKind.SinglePoint)
-                ?? list.LastOrDefault(c => c.EnergyHartree != null);
-            var thermal = (thermalKey.Length > 0 ? list.LastOrDefault(c => c.FrequenciesCm1 != null && EnergyLevels.Key(c.LevelOfTheory).StartsWith(thermalKey, StringComparison.Ordinal)) : null)
-                ?? list.LastOrDefault(c => c.FrequenciesCm1 is { Length: > 0 });
-            var geometryCalc = thermal?.AtomicNumbers is not null ? thermal : list.LastOrDefault(c => c.AtomicNumbers is { Length: > 0 } && c.PositionsAngstrom is not null);
-            var molecule = geometryCalc is null ? null : Blobs.ToMolecule(geometryCalc.AtomicNumbers, geometryCalc.PositionsAngstrom, sp.Charge, sp.Multiplicity);
-            if (molecule is null) continue;
-            var level = energy?.LevelOfTheory ?? geometryCalc!.LevelOfTheory;
-            if (!level.Contains("//") && geometryCalc is not null && !EnergyLevels.Key(geometryCalc.LevelOfTheory).Equals(EnergyLevels.Key(level), StringComparison.Ordinal))
-                level = $"{level}//{geometryCalc.LevelOfTheory}";
-            var frequencies = thermal is null ? [] : Blobs.ToDoubles(thermal.FrequenciesCm1);
-            double? zpe = null, h = null, g = null;
-            if (thermal is not null && frequencies.Length > 0)
+            var list = calcsBySpecies[sp.Id].ToList();
+            var terms = used.TryGetValue(sp.Id, out var t) ? t : [];
+            foreach (var term in terms.Count > 0 ? terms.Cast<DerivedTerm?>() : [null])
             {
-                try
-                {
-                    var thermalMolecule = Blobs.ToMolecule(thermal.AtomicNumbers, thermal.PositionsAngstrom, sp.Charge, sp.Multiplicity) ?? molecule;
-                    var t = CoreThermo.Compute(thermalMolecule, frequencies, settings.ThermoOptions(sp.SymmetryNumber));
-                    (zpe, h, g) = (t.ZeroPointEnergy.Hartree, t.EnthalpyCorrection.Hartree, t.GibbsCorrection.Hartree);
-                }
-                catch (ArgumentException)
-                {
-                    // Frequencies the thermochemistry cannot use: fall back to reported corrections below.
-                }
+                var energy = term is null ? null : calcById.GetValueOrDefault(term.EnergyCalculationId);
+                var thermal = term?.ThermalCalculationId is { } tid ? calcById.GetValueOrDefault(tid) : null;
+                var geometryCalc = new[] { thermal, energy }.FirstOrDefault(c => c?.AtomicNumbers is { Length: > 0 } && c.PositionsAngstrom is not null)
+                    ?? list.LastOrDefault(c => c.AtomicNumbers is { Length: > 0 } && c.PositionsAngstrom is not null);
+                var molecule = geometryCalc is null ? null : Blobs.ToMolecule(geometryCalc.AtomicNumbers, geometryCalc.PositionsAngstrom, sp.Charge, sp.Multiplicity);
+                if (molecule is null) continue;
+                var level = term?.LevelOfTheory ?? geometryCalc!.LevelOfTheory;
+                if (!level.Contains("//") && !EnergyLevels.Key(geometryCalc!.LevelOfTheory).Equals(EnergyLevels.Key(level), StringComparison.Ordinal))
+                    level = $"{level}//{geometryCalc.LevelOfTheory}";
+                var frequencies = Blobs.ToDoubles((thermal ?? energy)?.FrequenciesCm1);
+                var role = saddleSpecies.Contains(sp.Id) || list.Any(c => c.Kind == CalculationKind.SaddlePoint) ? "saddle point" : "minimum";
+                var label = terms.Count > 1 ? $"{sp.Label} (calculation {term!.EnergyCalculationId})" : sp.Label;
+                structures.Add(new SiStructure(label, role, level, term?.ElectronicHartree, term?.ZeroPointHartree, term?.EnthalpyCorrectionHartree,
+                    term?.GibbsCorrectionHartree, [.. frequencies.Where(f => f < 0)], molecule, term?.PointGroup, term?.SymmetryNumber ?? 1,
+                    ThermalWords(term?.ThermalSource)));
             }
-            if (zpe is null && list.LastOrDefault(c => c.ZeroPointHartree != null && c.ThermalTemperatureKelvin is { } tk && Math.Abs(tk - settings.TemperatureKelvin) < 0.01) is { } reported)
-                (zpe, h, g) = (reported.ZeroPointHartree, reported.EnthalpyCorrectionHartree, reported.GibbsCorrectionHartree);
-            var role = saddleSpecies.Contains(sp.Id) || list.Any(c => c.Kind == CalculationKind.SaddlePoint) ? "saddle point" : "minimum";
-            structures.Add(new SiStructure(sp.Label, role, level, energy?.EnergyHartree, zpe, h, g, [.. frequencies.Where(f => f < 0)], molecule));
         }
         var model = await ModelAsync(db, studyId, structures.Select(s => s.LevelOfTheory), ct);
         return (study.Name, model, structures);
     }
+
+    /// <summary>Where a thermal correction came from, in words for the supporting information.</summary>
+    private static string ThermalWords(string? source) => source switch
+    {
+        null => "none (no frequencies and no reported corrections)",
+        _ when source.StartsWith("computed", StringComparison.Ordinal) => "computed from the frequencies under the model above",
+        _ => "as reported by the program, moved to the model's standard state",
+    };
 
     private static Energy? H(double? hartree) => hartree is { } v ? Energy.FromHartree(v) : null;
 

@@ -18,7 +18,7 @@ namespace BarrierLedger.Ledger.Export;
 /// <param name="Geometry">Cartesian coordinates in Å.</param>
 public sealed record SiStructure(string Label, string Role, string LevelOfTheory, double? ElectronicEnergyHartree,
     double? ZeroPointHartree, double? EnthalpyCorrectionHartree, double? GibbsCorrectionHartree,
-    IReadOnlyList<double> ImaginaryFrequenciesCm1, Molecule Geometry);
+    IReadOnlyList<double> ImaginaryFrequenciesCm1, Molecule Geometry, string? PointGroup = null, int SymmetryNumber = 1, string? ThermalSource = null);
 
 /// <summary>
 /// Supporting-information coordinates: one text file per study (each structure's label, role, level of theory, energies,
@@ -43,6 +43,8 @@ public static class SupportingInfoWriter
             sb.Append($"Role: {s.Role}\n");
             sb.Append($"Level of theory: {s.LevelOfTheory}\n");
             sb.Append($"Charge: {s.Geometry.Charge}; multiplicity: {s.Geometry.Multiplicity}\n");
+            sb.Append($"Point group: {(string.IsNullOrEmpty(s.PointGroup) ? "not determined" : s.PointGroup)}; rotational symmetry number σ = {s.SymmetryNumber}\n");
+            sb.Append($"Thermal corrections: {s.ThermalSource ?? "none"}\n");
             sb.Append($"Electronic energy (Eh): {Opt(s.ElectronicEnergyHartree, 8)}\n");
             sb.Append($"Zero-point energy (Eh): {Opt(s.ZeroPointHartree, 6)}\n");
             sb.Append($"Enthalpy correction (Eh): {Opt(s.EnthalpyCorrectionHartree, 6)}\n");

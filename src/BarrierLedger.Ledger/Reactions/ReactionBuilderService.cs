@@ -251,7 +251,8 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
         if (RecordService.LabelProblem(d.Label, "reaction label") is { } lp) problems.Add(new(null, lp));
         else if (await db.Reactions.AnyAsync(x => x.StudyId == studyId && !x.Retired && x.Label == d.Label.Trim() && x.Id != (reactionId ?? 0), ct))
             problems.Add(new(null, $"the study already has a reaction labelled '{d.Label.Trim()}'; give this one another label"));
-        if (d.States.Any(s => s.Label.Length > 200)) problems.Add(new(null, "a state label is longer than 200 characters"));
+        for (var i = 0; i < d.States.Count; i++)
+            if (!string.IsNullOrWhiteSpace(d.States[i].Label) && RecordService.LabelProblem(d.States[i].Label, "state label") is { } sp) problems.Add(new(i, sp));
         foreach (var (key, message) in d.Kinetics?.Problems([.. d.States.Select(s => (s.Label, s.Kind == StateKind.SaddlePoint))]) ?? [])
             problems.Add(new(null, $"kinetics, {key.Replace('_', ' ')} {message}"));
 

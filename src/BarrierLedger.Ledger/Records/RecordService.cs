@@ -173,15 +173,8 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
         _ => inputsChanged);
     }
 
-    /// <summary>What is wrong with a label a person typed, or null: not empty, at most 200 characters, one line.</summary>
-    internal static string? LabelProblem(string? label, string what)
-    {
-        var t = label?.Trim() ?? "";
-        if (t.Length == 0) return $"the {what} is empty";
-        if (t.Length > 200) return $"the {what} has {t.Length} characters; at most 200";
-        if (t.Any(char.IsControl)) return $"the {what} contains a line break or another control character";
-        return null;
-    }
+    /// <summary>What is wrong with a label a person typed, or null (the one rule of <see cref="Core.Text.TextRules"/>).</summary>
+    internal static string? LabelProblem(string? label, string what) => Core.Text.TextRules.LabelProblem(label, what);
 
     public Task<EditResult> RetireAsync(RecordKind kind, int id, long expectedVersion, string userId, string reason, CancellationToken ct = default) =>
         SetRetiredAsync(kind, id, expectedVersion, userId, true, reason, ct);

@@ -76,6 +76,7 @@ internal sealed class UploadPlan
         {
             var name = (choices.NewStudyName ?? draft.StudyName)?.Trim();
             if (string.IsNullOrEmpty(name)) plan.Error(primary, "no study: choose a study or give a name for a new one");
+            else if (Core.Text.TextRules.LabelProblem(name, "study name") is { } bad) plan.Error(primary, bad);
             else
             {
                 plan.Study = await db.Studies.FirstOrDefaultAsync(s => s.Name == name && !s.Retired, ct);

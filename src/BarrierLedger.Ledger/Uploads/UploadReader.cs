@@ -238,6 +238,16 @@ public static class UploadReader
             draft.Issues.Add(new UploadIssue(fileName, null, null, "this file does not name its species: choose or type a species label"));
             ok = false;
         }
+        else if (Core.Text.TextRules.LabelProblem(species, "species label") is { } bad)
+        {
+            draft.Issues.Add(new UploadIssue(fileName, null, null, bad));
+            ok = false;
+        }
+        if (!string.IsNullOrWhiteSpace(choices.Conformer) && Core.Text.TextRules.LabelProblem(choices.Conformer, "conformer label") is { } badConformer)
+        {
+            draft.Issues.Add(new UploadIssue(fileName, null, null, badConformer));
+            ok = false;
+        }
         if (choices.Kind is null)
         {
             draft.Issues.Add(new UploadIssue(fileName, null, null, "this file does not say what it is: choose a kind (minimum, saddle point, ...)"));

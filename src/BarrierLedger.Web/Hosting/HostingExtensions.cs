@@ -1,3 +1,4 @@
+using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Web.Components.Account;
 using Microsoft.EntityFrameworkCore;
@@ -53,5 +54,7 @@ public static class HostingExtensions
         var bootstrap = scope.ServiceProvider.GetRequiredService<AccountBootstrap>();
         var storeWasEmpty = await bootstrap.EnsureRolesAndFirstAdminAsync(Console.Out);
         await scope.ServiceProvider.GetRequiredService<DemoSetup>().LoadIfEmptyAsync(storeWasEmpty);
+        // Values derived by an earlier version (or under a model changed while no instance ran) are derived again in the background.
+        await app.Services.GetRequiredService<RecomputeService>().RequestOutdatedAsync();
     }
 }

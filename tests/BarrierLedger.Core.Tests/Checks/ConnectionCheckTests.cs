@@ -154,6 +154,48 @@ public class ConnectionCheckTests
         Assert.Equal("its C2H6 piece is not ethane: it has C1–H8 in addition and it lacks C2–H8", m.Explanation);
     }
 
+    /// <summary>
+    /// The identity reaction H2 + H → H + H2 on a line: saddle H1···H2···H3 at 0.93 Å spacing; one end H1–H2 0.741 Å with H3 2.5 Å
+    /// further, the other its mirror image (H2–H3 bonded). Both states are made of the same two species, so each end matches both
+    /// sides bond for bond at the same RMSD (0 by construction, Kabsch).
+    /// </summary>
+    private static (Molecule Saddle, Molecule Left, Molecule Right, StateStructure Before, StateStructure After) HydrogenExchange(string afterLabel = "H + H2")
+    {
+        var h = Enumerable.Repeat(Elements.H, 3).ToArray();
+        Molecule Line(double x1, double x2, double x3, int multiplicity = 2) => new(h, [new Vec3(x1, 0, 0), new Vec3(x2, 0, 0), new Vec3(x3, 0, 0)], 0, multiplicity);
+        var dihydrogen = new StateSpecies("dihydrogen", new Molecule(h[..2], [new Vec3(5, 5, 5), new Vec3(5, 5.741, 5)], 0, 1));
+        var atom = new StateSpecies("hydrogen atom", new Molecule(h[..1], [new Vec3(-3, 1, 0)], 0, 2));
+        return (Line(0, 0.93, 1.86), Line(0, 0.741, 3.241), Line(-1.381, 1.119, 1.86),
+            new StateStructure("H2 + H", [dihydrogen, atom]), new StateStructure(afterLabel, [atom, dihydrogen]));
+    }
+
+    [Theory]
+    [InlineData("H + H2")]
+    [InlineData("H2 + H")] // both sides labelled alike: the sides are still told apart by which state each end reached
+    public void IdentityReaction_EndsOnEitherSide_ConnectsBothSides(string afterLabel)
+    {
+        var (ts, left, right, before, after) = HydrogenExchange(afterLabel);
+        foreach (var (forward, backward) in new[] { (left, right), (right, left) })
+        {
+            var result = ConnectionCheck.Run(new ConnectionCheckInput(ts, before, after, [], ForwardEnd: forward, BackwardEnd: backward));
+            // Each end ties between the two sides (same bonds, equal RMSD); the tie is settled for the pair, not end by end.
+            Assert.True(result.Connection == Connection.BothSides, result.Report());
+            Assert.NotEqual(Verdict.Failed, result.Verdict);
+            Assert.All(result.Ends, e => Close.Absolute(0, e.Reached!.RmsdAngstrom, 1e-10, "per-piece RMSD of an end", "construction; Kabsch, Acta Cryst. A 1976, 32, 922"));
+            Assert.Contains(result.Reasons, x => x.Code == ConnectionCheckCodes.SameBonds);
+        }
+    }
+
+    [Fact]
+    public void IdentityReaction_BothEndsTheSameMinimum_StaysOneSide()
+    {
+        // Both ends are H1–H2 + H3: one minimum, even though it ties between the two sides. The tie-break must not split them.
+        var (ts, left, _, before, after) = HydrogenExchange();
+        var result = ConnectionCheck.Run(new ConnectionCheckInput(ts, before, after, [], ForwardEnd: left, BackwardEnd: left));
+        Assert.Equal(Connection.OneSide, result.Connection);
+        Assert.Equal(Verdict.Failed, result.Verdict);
+    }
+
     private static Molecule Blend(Molecule a, Molecule b, double t) =>
         new(a.Elements, a.PositionsAngstrom.Zip(b.PositionsAngstrom, (x, y) => x + t * (y - x)), a.Charge, a.Multiplicity);
 }

@@ -148,6 +148,6 @@ public class XyzReaderTests
         var lines = string.Concat(Enumerable.Repeat("1\n\nQq 0 0 0\n", 30));
         var r = XyzReader.Read(Utf8(lines), "t.xyz", new ReaderLimits(MaxIssues: 5));
         Assert.Equal(6, r.Issues.Length);
-        Assert.Contains("25 further issue(s)", r.Issues[^1].Message);
+        Assert.Contains("25 further error(s)", r.Issues[^1].Message);
     }
 }

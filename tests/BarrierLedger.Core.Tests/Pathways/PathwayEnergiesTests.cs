@@ -124,6 +124,47 @@ public class PathwayEnergiesTests
     }
 
     [Fact]
+    public void Derive_WignerTunnelling_KappaEntersTheStepAndTheHeadlineRate()
+    {
+        // TS1 with an imaginary mode of 1500i cm⁻¹; TS2 gives none, so its κ stays 1.
+        var p = TwoSteps();
+        var path = p with { States = [.. p.States.Select(s => s.Label == "TS1" ? s with { ImaginaryFrequencyCm1 = -1500 } : s)] };
+        var r = PathwayEnergies.Derive(path, new EnergyModel(Tunnelling: StepTunnelling.Wigner));
+
+        // Wigner, Z. Phys. Chem. B 19, 203 (1932): κ = 1 + (1/24)(h c ν̃ / k_B T)², CODATA 2018 exact h, c, k_B.
+        const double c = 299792458.0, t = 298.15;
+        var u = H * c * 1500 * 100 / (KB * t);
+        var kappa = 1 + u * u / 24;
+        Close.Relative(kappa, r.Steps[0].TransmissionCoefficient, 1e-12, "κ(TS1)", "Wigner 1932 by hand");
+        Assert.Equal(1.0, r.Steps[1].TransmissionCoefficient);
+        Assert.Equal(-1500, r.Steps[0].ImaginaryFrequencyCm1);
+
+        // Headline: the energetic span 0.040 hartree with TDTS = TS1 (see TwoSteps), k_eff = κ (k_B T/h) exp(−ΔG‡/RT) (Eyring 1935).
+        Assert.Equal("TS1", r.Overall.DeterminingSaddlePoint);
+        Close.Absolute(0.040, r.Overall.GibbsBarrier!.Value.Hartree, 1e-12, "headline ΔG‡", "Kozuch–Shaik rule by hand");
+        var k = kappa * KB * t / H * Math.Exp(-0.040 * KcalPerHartree * 4184 / (R * t));
+        Close.Relative(k, r.Overall.RateConstantPerSecond!.Value, 1e-9, "k_eff", "Eyring with Wigner κ by hand, CODATA 2018");
+        Close.Relative(Math.Log(2) / k, r.Overall.HalfLifeSeconds!.Value, 1e-9, "t½", "ln 2 / k");
+        Close.Absolute(-0.058, r.Overall.ReactionGibbs!.Value.Hartree, 1e-12, "ΔG_r", "hand arithmetic in TwoSteps");
+        // ΔE‡ is 0.030 hartree for both steps; ΔH‡(TS1) = (−234.42 + 0.150) − (−234.45 + 0.145) = 0.035 hartree (hand arithmetic).
+        Close.Absolute(0.030, r.Overall.ElectronicBarrier!.Value.Hartree, 1e-12, "highest ΔE‡", "hand arithmetic in TwoSteps");
+        Close.Absolute(0.035, r.Steps[0].EnthalpyBarrier!.Value.Hartree, 1e-12, "ΔH‡(TS1)", "hand arithmetic");
+    }
+
+    [Fact]
+    public void Derive_ComputedModel_SpeciesWithOnlyReportedCorrections_UsesThemAndThermalCorrectionOfAgrees()
+    {
+        var r = PathwayEnergies.Derive(TwoSteps(), new EnergyModel(ThermalSource.Computed));
+        // No geometry or frequencies anywhere in TwoSteps: the reported corrections give the same ΔG‡ as the reported model.
+        Close.Absolute(0.040, r.Steps[0].GibbsBarrier!.Value.Hartree, 1e-12, "ΔG‡(TS1)", "hand arithmetic in TwoSteps");
+        Assert.DoesNotContain(r.Reasons, x => x.Code == PathwayEnergyCodes.MissingFrequencies);
+        var ts1 = r.States[1].Terms.Single().Species;
+        var alone = PathwayEnergies.ThermalCorrectionOf(ts1 with { Thermal = T(0.150, 0.100) }, new EnergyModel(ThermalSource.Computed), out _);
+        Assert.Equal(ts1.Thermal, alone);
+        Assert.False(alone!.IsComputed);
+    }
+
+    [Fact]
     public void Equal_but_separately_built_species_records_are_resolved_alike()
     {
         // A spectator catalyst written as two separate but equal records (as a caller building states one by one does).

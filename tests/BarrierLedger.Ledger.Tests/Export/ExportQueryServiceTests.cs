@@ -55,6 +55,46 @@ public class ExportQueryServiceTests
     }
 
     [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task DemoStudy_SupportingInformation_QuotesTheValuesTheStoredBarriersWereDerivedFrom(StoreProvider store)
+    {
+        var (ledger, studyId) = await DemoLedger.CreateAsync(store);
+        await using var _ = ledger;
+        var (_, _, structures) = await new ExportQueryService(ledger.Factory).GetSupportingInfoAsync(studyId);
+        var byLabel = structures.ToDictionary(s => s.Label);
+        var detail = new Ledger.Queries.ReactionQueryService(ledger.Factory);
+        var ids = (await new ExportQueryService(ledger.Factory).ListStudiesAsync()).Single(s => s.Id == studyId).Reactions.Select(r => r.Id).ToList();
+        var checkedSteps = 0;
+        foreach (var id in ids)
+        {
+            var r = (await detail.GetReactionAsync(id))!;
+            foreach (var state in r.StateEnergies)
+            foreach (var term in state.Terms!)
+            {
+                // Every species a barrier was derived from is listed with exactly the values the derivation used.
+                var si = byLabel[term.Label];
+                Assert.Equal(term.ElectronicHartree, si.ElectronicEnergyHartree);
+                Assert.Equal(term.GibbsCorrectionHartree, si.GibbsCorrectionHartree);
+                Assert.Equal(term.EnthalpyCorrectionHartree, si.EnthalpyCorrectionHartree);
+                Assert.Equal(term.SymmetryNumber, si.SymmetryNumber);
+            }
+            // A reader of the supporting information recomputes each step's ΔG‡ by hand: G = Σ coefficient × (E + G correction)
+            // over the state's species (the definition in DESIGN.md), saddle point minus the minimum before it.
+            foreach (var step in r.Steps.Where(s => s.BarrierGHartree is not null))
+            {
+                var saddle = r.StateEnergies.Single(s => s.Position == step.SaddlePosition);
+                var from = r.StateEnergies.Where(s => s.Position < step.SaddlePosition).MaxBy(s => s.Position)!;
+                double G(BarrierLedger.Ledger.Derivation.DerivedState s) => s.Terms!.Sum(t => t.Coefficient * (byLabel[t.Label].ElectronicEnergyHartree!.Value + byLabel[t.Label].GibbsCorrectionHartree!.Value));
+                Close(step.BarrierGHartree!.Value, G(saddle) - G(from), 1e-9, $"{r.Label} {step.Label}: ΔG‡ from the supporting information by hand");
+                checkedSteps++;
+            }
+        }
+        Assert.True(checkedSteps >= 5, $"only {checkedSteps} steps had a ΔG‡ to check");
+    }
+
+    private static void Close(double expected, double actual, double tolerance, string what) =>
+        Assert.True(Math.Abs(expected - actual) <= tolerance, $"{what}: expected {expected:R}, got {actual:R} (tolerance {tolerance})");
+
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
     public async Task UnknownStudyOrReaction_IsAClearError(StoreProvider store)
     {
         await using var ledger = await Support.TempLedger.CreateAsync(store);
