@@ -42,6 +42,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<ReviewService>();
         services.AddSingleton<LedgerQueryService>();
         services.AddSingleton<ReactionQueryService>();
+        services.AddSingleton<IrcQueryService>();
         services.AddSingleton<WorkspaceQueryService>();
         services.AddSingleton<Conformers.ConformerQueryService>();
         services.AddSingleton<IsotopeEffects.IsotopeEffectService>();

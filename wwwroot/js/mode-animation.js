@@ -2,7 +2,7 @@
 // Trace 0 holds the atoms, trace 1 the bonds (pairs of points separated by nulls).
 const running = new Map();
 
-function waitForPlot(id, timeoutMs) {
+export function waitForPlot(id, timeoutMs) {
     return new Promise((resolve, reject) => {
         const started = performance.now();
         (function poll() {

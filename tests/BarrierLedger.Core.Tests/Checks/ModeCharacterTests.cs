@@ -112,4 +112,28 @@ public class ModeCharacterTests
         var failure = result.Reasons.Single(r => r.Code == SaddleCheckCodes.ModeMissesReactionBond);
         Assert.Contains("C1···C5 2.40 Å (long contact, 1.58 × the covalent-radius sum) shortens", failure.Message);
     }
+    [Fact]
+    public void DemoDielsAlderSaddle_TheFormingBondsBeyondTheCutOff_AreTheLeadingDistanceChanges_EvenWithWrongDeclaredBonds()
+    {
+        // TS-DA of the demo: C1···C6 and C4···C5 form at 2.2–2.6 Å, beyond the 1.2 × radius-sum bond cut-off (1.82 Å for C–C,
+        // Cordero et al., Dalton Trans. 2008, 2832), so the bond graph holds neither. Declared here: C1–H7 only (wrong on purpose).
+        var (_, _, saddle, _, _) = DemoBundleStates.Saddles().Single(s => s.Reaction == "DA");
+        var m = saddle.Geometry!;
+        var mode = DemoBundleStates.ImaginaryMode(saddle);
+        var c = ModeCharacter.Describe(m, mode, [(0, 6)]);
+        var top = c.DistanceChanges.Take(2).ToList();
+        Assert.Equal([new Bond(0, 5), new Bond(3, 4)], top.Select(t => t.Pair).OrderBy(b => b.A).ToList());
+        foreach (var t in top)
+        {
+            Assert.Equal(PairRelation.LongContact, t.Relation);
+            Assert.InRange(t.DistanceAngstrom, 2.2, 2.6);
+            Close.Absolute(t.DistanceAngstrom / 1.52, t.RadiusSumMultiple, 1e-12, "distance / (R_C + R_C)", "Cordero et al., Dalton Trans. 2008, 2832 (R_C = 0.76 Å)");
+        }
+        // Both forming bonds change at the same rate (the saddle point is symmetric, both bonds form together).
+        Close.Absolute(Math.Abs(top[0].ChangePerUnitDisplacement), Math.Abs(top[1].ChangePerUnitDisplacement), 1e-3, "|dr/ds| of the two forming bonds", "mirror symmetry of the demo saddle point");
+        var result = SaddleCheck.Run(new SaddleCheckInput(m, [mode], [(0, 6)]));
+        var failure = result.Reasons.Single(r => r.Code == SaddleCheckCodes.ModeMissesReactionBond);
+        Assert.Contains("long contact", failure.Message);
+        Assert.True(failure.Message.Contains("C1···C6") || failure.Message.Contains("C4···C5"), failure.Message);
+    }
 }

@@ -96,9 +96,11 @@ public static class MoleculeTraces
     /// displacement), with equal scales on the three axes. Left to Plotly's autorange the box follows the data of each frame and
     /// long bonds or displaced atoms can leave the frame.
     /// </summary>
-    public static Plotly.Blazor.LayoutLib.Scene Scene(Molecule m, double padAngstrom)
+    public static Plotly.Blazor.LayoutLib.Scene Scene(Molecule m, double padAngstrom) => Scene(m.PositionsAngstrom, padAngstrom);
+
+    /// <summary>The same cube around any set of points (e.g. every frame of a path, so that no frame leaves the picture).</summary>
+    public static Plotly.Blazor.LayoutLib.Scene Scene(IReadOnlyList<Vec3> p, double padAngstrom)
     {
-        var p = m.PositionsAngstrom;
         double Mid(Func<Vec3, double> f) => (p.Max(f) + p.Min(f)) / 2;
         var half = Math.Max(new[] { p.Max(v => v.X) - p.Min(v => v.X), p.Max(v => v.Y) - p.Min(v => v.Y), p.Max(v => v.Z) - p.Min(v => v.Z) }.Max() / 2, 0.5) + padAngstrom;
         List<object> Range(double c) => [c - half, c + half];
