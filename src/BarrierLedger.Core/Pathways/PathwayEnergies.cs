@@ -108,6 +108,8 @@ public static class PathwayEnergyCodes
     public const string NoRateConstant = "energies.no-rate-constant";
     public const string StandardStateConverted = "energies.standard-state-converted";
     public const string ThermochemistryFailed = "energies.thermochemistry-failed";
+    public const string NegativeBarrier = "energies.negative-barrier";
+    public const string RateAboveLimit = "energies.rate-above-limit";
 }
 
 /// <summary>
@@ -174,7 +176,18 @@ public static class PathwayEnergies
             var kappa = Kappa(m, imaginary, t);
             double? k = null, half = null;
             var unit = molecularity switch { 1 => "s⁻¹", 2 => "M⁻¹ s⁻¹", 3 => "M⁻² s⁻¹", _ => "" };
-            if (dg is { } barrier)
+            if (dg is { } negative && negative.Hartree < 0)
+            {
+                extra.Add(new(PathwayEnergyCodes.NegativeBarrier, CheckSeverity.Failure,
+                    $"Step {a.Label} → {ts.Label}: the saddle point lies {Kcal(-negative.KcalPerMol)} kcal/mol below the minimum before it under this energy model " +
+                    $"(ΔG‡ = −{Kcal(-negative.KcalPerMol)} kcal/mol). A saddle point cannot lie below the minimum it is reached from, so that minimum, the saddle point " +
+                    "or the levels of theory need another look; no rate constant is given for this step."));
+            }
+            else if (dg is { } high && AboveLimit(high, t, kappa))
+            {
+                extra.Add(RateLimitReason($"Step {a.Label} → {ts.Label}", high, t, kappa));
+            }
+            else if (dg is { } barrier)
             {
                 if (molecularity is >= 1 and <= 3)
                 {
@@ -202,10 +215,16 @@ public static class PathwayEnergies
             span = EnergeticSpan.Analyze(cycle, states[^1].RelativeGibbs!.Value, t);
         }
 
+        var overall = Overall(steps, span, states[^1].RelativeGibbs, t);
+        if (overall.GibbsBarrier is { } head && overall.RateConstantPerSecond is null && !extra.Any(x => x.Code is PathwayEnergyCodes.NegativeBarrier or PathwayEnergyCodes.RateAboveLimit))
+            extra.Add(head.Hartree < 0
+                ? new(PathwayEnergyCodes.NegativeBarrier, CheckSeverity.Failure,
+                    $"The pathway's overall barrier is −{Kcal(-head.KcalPerMol)} kcal/mol; no effective rate constant or half-life is given for it.")
+                : RateLimitReason("The pathway's overall barrier", head, t, overall.TransmissionCoefficient));
         var reasons = consistency.Reasons.Concat(extra).OrderByDescending(r => r.Severity).ToList();
         return new PathwayEnergyResult(m, states, steps, span, CheckReason.VerdictOf(reasons), reasons)
         {
-            Overall = Overall(steps, span, states[^1].RelativeGibbs, t),
+            Overall = overall,
         };
     }
 
@@ -215,11 +234,26 @@ public static class PathwayEnergies
         var determining = span is not null ? steps.FirstOrDefault(s => s.SaddlePoint == span.Tdts.Label) : highest;
         var barrier = span?.EnergeticSpanEnergy ?? highest?.GibbsBarrier;
         var kappa = determining?.TransmissionCoefficient ?? 1.0;
-        double? k = barrier is { } bg ? Eyring.RateConstant(bg, t, kappa) : null;
+        double? k = barrier is { } bg && bg.Hartree >= 0 && !AboveLimit(bg, t, kappa) ? Eyring.RateConstant(bg, t, kappa) : null;
         var electronic = steps.Count == 0 ? (Energy?)null : steps.MaxBy(s => s.ElectronicBarrier.Hartree)!.ElectronicBarrier;
         return new OverallEnergies(barrier, electronic, reactionGibbs, span?.Tdts.Label ?? highest?.SaddlePoint, kappa, k,
             k is > 0 ? Eyring.HalfLifeSeconds(k.Value) : null);
     }
+
+    /// <summary>
+    /// Whether Eyring would give more than the universal frequency k_B T/h: κ exp(−ΔG‡/RT) > 1. Transition-state theory assumes a
+    /// barrier well above RT (Eyring, J. Chem. Phys. 3, 107 (1935)); such a value is never presented as a rate constant.
+    /// </summary>
+    private static bool AboveLimit(Energy barrier, double t, double kappa) =>
+        Math.Log(kappa) - barrier.KJPerMol * 1000.0 / (PhysicalConstants.GasConstantJoulePerMoleKelvin * t) > 0;
+
+    private static CheckReason RateLimitReason(string what, Energy barrier, double t, double kappa) =>
+        new(PathwayEnergyCodes.RateAboveLimit, CheckSeverity.Failure,
+            $"{what} ({Kcal(barrier.KcalPerMol)} kcal/mol{(kappa > 1 ? $", κ = {kappa.ToString("0.###", CultureInfo.InvariantCulture)}" : "")}) would give a rate constant " +
+            $"above k_BT/h = {Eyring.FrequencyFactorPerSecond(t).ToString("0.00E+0", CultureInfo.InvariantCulture)} s⁻¹ at {F(t)} K, where transition-state theory does not hold; " +
+            "no rate constant or half-life is given for it.");
+
+    private static string Kcal(double x) => x.ToString("0.0", CultureInfo.InvariantCulture);
 
     /// <summary>κ of a step: the model's constant times Wigner's correction when asked for and the saddle point has an imaginary mode.</summary>
     private static double Kappa(EnergyModel m, double? imaginaryCm1, double t) =>

@@ -164,6 +164,47 @@ public class PathwayEnergiesTests
         Assert.False(alone!.IsComputed);
     }
 
+    /// <summary>A → TS → B, one molecule each, with Gibbs corrections 0.050 hartree everywhere; E(TS) − E(A) = <paramref name="barrierHartree"/>.</summary>
+    private static Pathway OneStep(double barrierHartree, double? imaginaryCm1 = null) => new("one step",
+    [
+        new("A", StateKind.Minimum, [new(Species("A", "C2H4O", -153.00, thermal: T(0.060, 0.050)))]),
+        new("TS", StateKind.SaddlePoint, [new(Species("TS", "C2H4O", -153.00 + barrierHartree, thermal: T(0.060, 0.050)))], imaginaryCm1),
+        new("B", StateKind.Minimum, [new(Species("B", "C2H4O", -153.05, thermal: T(0.060, 0.050)))]),
+    ]);
+
+    [Fact]
+    public void Derive_SaddlePointBelowTheMinimumBeforeIt_IsAConsistencyFailureAndGivesNoRate()
+    {
+        var r = PathwayEnergies.Derive(OneStep(-0.002));
+        // ΔG‡ = −0.002 hartree = −1.255 kcal/mol (CODATA 2018: 627.5094740631 kcal/mol per hartree).
+        Close.Absolute(-0.002, r.Steps[0].GibbsBarrier!.Value.Hartree, 1e-12, "ΔG‡", "hand arithmetic");
+        Assert.Equal(Verdict.Failed, r.Verdict);
+        Assert.Contains(r.Reasons, x => x.Code == PathwayEnergyCodes.NegativeBarrier && x.Severity == CheckSeverity.Failure && x.Message.Contains("1.3 kcal/mol below"));
+        Assert.Null(r.Steps[0].RateConstant);
+        Assert.Null(r.Steps[0].HalfLifeSeconds);
+        Assert.Null(r.Overall.RateConstantPerSecond);
+        Assert.Null(r.Overall.HalfLifeSeconds);
+    }
+
+    [Fact]
+    public void Derive_RateAboveKbTOverH_IsNeverGivenAndSaysWhy()
+    {
+        // ΔG‡ = 0.0002 hartree (0.13 kcal/mol) with Wigner κ at 2000i cm⁻¹: κ = 1 + u²/24, u = h c ν̃ / k_B T ≈ 9.65, κ ≈ 4.9, so
+        // κ exp(−ΔG‡/RT) ≈ 3.9 > 1 and Eyring would exceed k_B T/h = 6.21×10¹² s⁻¹ (CODATA 2018 exact k_B, h; Eyring 1935).
+        const double c = 299792458.0, t = 298.15;
+        var u = H * c * 2000 * 100 / (KB * t);
+        var kappa = 1 + u * u / 24;
+        Assert.True(kappa * Math.Exp(-0.0002 * KcalPerHartree * 4184 / (R * t)) > 1, "the example must lie above the limit");
+        var r = PathwayEnergies.Derive(OneStep(0.0002, -2000), new EnergyModel(Tunnelling: StepTunnelling.Wigner));
+        Assert.Null(r.Steps[0].RateConstant);
+        Assert.Null(r.Overall.RateConstantPerSecond);
+        Assert.Contains(r.Reasons, x => x.Code == PathwayEnergyCodes.RateAboveLimit && x.Severity == CheckSeverity.Failure && x.Message.Contains("6.21E+12 s⁻¹"));
+        // Without tunnelling the same barrier stays below the limit: k = (k_B T/h) exp(−ΔG‡/RT), given.
+        var plain = PathwayEnergies.Derive(OneStep(0.0002));
+        Close.Relative(KB * t / H * Math.Exp(-0.0002 * KcalPerHartree * 4184 / (R * t)), plain.Steps[0].RateConstant!.Value, 1e-9, "k", "Eyring by hand");
+        Assert.DoesNotContain(plain.Reasons, x => x.Code == PathwayEnergyCodes.RateAboveLimit);
+    }
+
     [Fact]
     public void Equal_but_separately_built_species_records_are_resolved_alike()
     {
