@@ -12,7 +12,7 @@ using Npgsql.EntityFrameworkCore.PostgreSQL.Metadata;
 namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 {
     [DbContext(typeof(PostgreSqlLedgerDbContext))]
-    [Migration("20261205083820_ReactionKineticsSetup")]
+    [Migration("20261205100921_ReactionKineticsSetup")]
     partial class ReactionKineticsSetup
     {
         /// <inheritdoc />
@@ -364,6 +364,9 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasColumnType("integer");
 
                     NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<int>("Conformers")
+                        .HasColumnType("integer");
 
                     b.Property<string>("DisplayUnit")
                         .IsRequired()

@@ -11,7 +11,7 @@ using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 namespace BarrierLedger.Ledger.Migrations.Sqlite
 {
     [DbContext(typeof(LedgerDbContext))]
-    [Migration("20261205083808_ReactionKineticsSetup")]
+    [Migration("20261205100910_ReactionKineticsSetup")]
     partial class ReactionKineticsSetup
     {
         /// <inheritdoc />
@@ -319,6 +319,9 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                 {
                     b.Property<int>("Id")
                         .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Conformers")
                         .HasColumnType("INTEGER");
 
                     b.Property<string>("DisplayUnit")
