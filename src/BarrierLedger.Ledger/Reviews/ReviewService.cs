@@ -127,22 +127,13 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
     /// Signs off a saddle-point calculation. Throws <see cref="ReviewerRequiredException"/> for a non-reviewer, and
     /// <see cref="ArgumentException"/> when the saddle point failed its check and no comment says why it is accepted anyway.
     /// </summary>
-    public Task<ReviewEntry> VerifyAsync(int calculationId, string reviewerUserId, string? comment, CancellationToken ct = default) =>
-        DecideAsync(calculationId, reviewerUserId, comment ?? "", ReviewOutcome.Verified, null, ct);
-
-    /// <summary>Verifies only if the saddle point is still as the reviewer saw it (<paramref name="basis"/>); else <see cref="ReviewConflictException"/>.</summary>
-    public Task<ReviewEntry> VerifyAsync(int calculationId, string reviewerUserId, string? comment, ReviewBasis basis, CancellationToken ct = default) =>
+    /// <param name="basis">What the reviewer saw; if the saddle point changed since, <see cref="ReviewConflictException"/> and nothing is
+    /// recorded. Null only for callers that decide without a screen (tests, tools).</param>
+    public Task<ReviewEntry> VerifyAsync(int calculationId, string reviewerUserId, string? comment, ReviewBasis? basis = null, CancellationToken ct = default) =>
         DecideAsync(calculationId, reviewerUserId, comment ?? "", ReviewOutcome.Verified, basis, ct);
 
     /// <summary>Returns a saddle-point calculation to its owner with a comment (required: the owner must learn what to fix).</summary>
-    public Task<ReviewEntry> ReturnAsync(int calculationId, string reviewerUserId, string comment, CancellationToken ct = default)
-    {
-        if (string.IsNullOrWhiteSpace(comment)) throw new ArgumentException("Say why the saddle point is returned, so its owner knows what to fix.", nameof(comment));
-        return DecideAsync(calculationId, reviewerUserId, comment, ReviewOutcome.Returned, null, ct);
-    }
-
-    /// <summary>Returns only if the saddle point is still as the reviewer saw it (<paramref name="basis"/>); else <see cref="ReviewConflictException"/>.</summary>
-    public Task<ReviewEntry> ReturnAsync(int calculationId, string reviewerUserId, string comment, ReviewBasis basis, CancellationToken ct = default)
+    public Task<ReviewEntry> ReturnAsync(int calculationId, string reviewerUserId, string comment, ReviewBasis? basis = null, CancellationToken ct = default)
     {
         if (string.IsNullOrWhiteSpace(comment)) throw new ArgumentException("Say why the saddle point is returned, so its owner knows what to fix.", nameof(comment));
         return DecideAsync(calculationId, reviewerUserId, comment, ReviewOutcome.Returned, basis, ct);
