@@ -17,7 +17,7 @@ public sealed record StateTermView(int SpeciesId, string SpeciesLabel, int Coeff
 
 /// <summary>A state of the pathway with its species, its saddle-point calculation and reaction-coordinate pairs ("C1–H5").</summary>
 public sealed record StateView(int Id, int Position, string Label, StateKind Kind, IReadOnlyList<StateTermView> Terms, int? SaddleCalculationId,
-    IReadOnlyList<(int A, int B)> CoordinatePairs, IReadOnlyList<string> CoordinateLabels, ReviewStatus? ReviewStatus, IReadOnlyList<ReviewEntry> ReviewHistory);
+    IReadOnlyList<(int A, int B)> CoordinatePairs, IReadOnlyList<string> CoordinateLabels, ReviewState? ReviewStatus, IReadOnlyList<ReviewEntry> ReviewHistory);
 
 /// <summary>A saddle point's frequency check with what the screen needs to animate its modes.</summary>
 public sealed record SaddleCheckView(int StateId, int CalculationId, string CalculationLabel, string LevelOfTheory, string UploadedByUserId, DateTimeOffset UploadedAt,
@@ -74,8 +74,8 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
             var pairs = s.CoordinatePairs.OrderBy(p => p.Id).Select(p => (p.AtomA, p.AtomB)).ToList();
             var labels = pairs.Select(p => mol is not null && p.AtomA <= mol.AtomCount && p.AtomB <= mol.AtomCount
                 ? $"{mol.AtomLabel(p.AtomA - 1)}–{mol.AtomLabel(p.AtomB - 1)}" : $"{p.AtomA}–{p.AtomB}").ToList();
-            ReviewStatus? status = s.Kind == StateKind.SaddlePoint
-                ? ReviewStatusText.FromLatest(calc is not null && latest.TryGetValue(calc.Id, out var o) ? o : null) : null;
+            ReviewState? status = s.Kind == StateKind.SaddlePoint
+                ? ReviewStates.After(calc is not null && latest.TryGetValue(calc.Id, out var o) ? o : null) : null;
             stateViews.Add(new StateView(s.Id, s.Position, s.Label, s.Kind,
                 [.. s.Terms.OrderBy(t => t.Id).Select(t => new StateTermView(t.SpeciesId, t.Species!.Label, t.Coefficient, t.Species.Formula,
                     t.Species.PointGroup, t.Species.SymmetryNumber, t.Species.SymmetryNumberOverride is not null))],

@@ -4,6 +4,7 @@ using BarrierLedger.Core.Geometry;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.EntityFrameworkCore;
 
@@ -205,17 +206,12 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
         foreach (var (label, id) in saddles)
         {
             if (!before.TryGetValue(id, out var was) || !after.TryGetValue(id, out var now) || was == now) continue;
-            var last = await db.Reviews.Where(v => v.CalculationId == id).OrderByDescending(v => v.Id).FirstOrDefaultAsync(ct);
-            if (last is not { Outcome: ReviewOutcome.Verified or ReviewOutcome.Returned }) continue;
-            var calcLabel = r.Calculations[id].Label;
-            db.Reviews.Add(new Review
-            {
-                CalculationId = id, Outcome = ReviewOutcome.Reopened, ReviewerUserId = userId, At = time.GetUtcNow(),
-                Comment = $"Reaction '{reaction.Label}' was edited: the bonds or scan of state '{label}' changed, so its check changed; it awaits review again.",
-            });
+            if (await ReviewStates.ReopenIfDecidedAsync(db, id, userId, time.GetUtcNow(),
+                    $"Reaction '{reaction.Label}' was edited: the bonds or scan of state '{label}' changed, so its check changed; it awaits review again.", ct)
+                is not { } last) continue;
             audit.Record(db, userId, "review.reopened", nameof(Calculation), id,
-                $"Saddle point '{calcLabel}' in state '{label}' of reaction '{reaction.Label}': its check evidence changed after it was {last.Outcome.ToString().ToLowerInvariant()}; it awaits review again.",
-                before: last.Outcome.ToString(), after: "awaiting review");
+                $"Saddle point '{r.Calculations[id].Label}' in state '{label}' of reaction '{reaction.Label}': its check evidence changed after it was {last.ToString().ToLowerInvariant()}; it awaits review again.",
+                before: last.ToString(), after: "awaiting review");
             reopened.Add(id);
         }
         if (reopened.Count == 0) return;

@@ -29,7 +29,7 @@ public class Reaction : IVersioned, IRetirable
     /// <summary>The worst frequency-check verdict of its saddle points (a saddle point without a check counts as failed); null without saddle points.</summary>
     public Verdict? CheckVerdict { get; set; }
     /// <summary>Verified only when every saddle point is, Returned when any is, else awaiting review; null without saddle points.</summary>
-    public ReviewStatus? ReviewStatus { get; set; }
+    public ReviewState? ReviewStatus { get; set; }
 
     public List<ReactionState> States { get; set; } = [];
     public ReactionDerivation? Derivation { get; set; }
