@@ -49,6 +49,9 @@ public sealed record DemoReaction(string Label, string Description, IReadOnlyLis
 /// <summary>A relaxed scan of one species, with a geometry per point (written as multi-frame extended XYZ).</summary>
 public sealed record DemoScan(string Label, string Slug, string Species, string Level, ScanCoordinateKind Kind, IReadOnlyList<int> Atoms1Based, IReadOnlyList<ScanPoint> Points);
 
+/// <summary>An IRC path of one saddle-point species: frames in path order, each with its energy (written as multi-frame extended XYZ).</summary>
+public sealed record DemoIrc(string Label, string Slug, string Saddle, string Level, IReadOnlyList<(Molecule Geometry, double EnergyHartree)> Frames);
+
 /// <summary>A whole demo study, ready to be written as a bundle.</summary>
 public sealed record DemoStudy(
     string Name,
@@ -56,4 +59,5 @@ public sealed record DemoStudy(
     string GeometryLevel,
     IReadOnlyList<DemoSpecies> Species,
     IReadOnlyList<DemoReaction> Reactions,
-    IReadOnlyList<DemoScan> Scans);
+    IReadOnlyList<DemoScan> Scans,
+    IReadOnlyList<DemoIrc>? Ircs = null);

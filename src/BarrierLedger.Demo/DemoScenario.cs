@@ -20,7 +20,9 @@ namespace BarrierLedger.Demo;
 /// methyl turn that moves none of the declared bonds. Fails.</item>
 /// <item>CB: conrotatory ring opening of cyclobutene; its relaxed scan has a jump where a CH2 group flips.</item>
 /// <item>KE: 1,3-hydrogen shift from acetaldehyde to vinyl alcohol; vinyl alcohol comes from another protocol (def2-TZVP
-/// geometry), so the reaction energy mixes levels of theory whichever energies the energy model takes.</item>
+/// geometry), so the reaction energy mixes levels of theory whichever energies the energy model takes. Its IRC connects both sides.</item>
+/// <item>EO: acetaldehyde to oxirane as its owner drew it; the stored saddle point (found again from another guess) is the
+/// 1,3-hydrogen shift of KE, and its IRC lands on vinyl alcohol, not oxirane. Fails.</item>
 /// </list>
 /// </summary>
 public static class DemoScenario
@@ -39,9 +41,10 @@ public static class DemoScenario
         "made up within plausible ranges. No real person, group, paper or product is behind them. " +
         "Protocol as written on the calculations: geometries and Hessians at wB97X-D/def2-SVP in the gas phase; electronic energies " +
         "from single points at revDSD-PBEP86-D4/def2-QZVPP with a continuum model of acetonitrile. " +
-        "The six reactions are chosen to show every check: DA passes and can be verified; MT needs attention (two soft methyl " +
+        "The seven reactions are chosen to show every check: DA passes and can be verified; MT needs attention (two soft methyl " +
         "rotations); IX is a two-step pathway with a catalyst; EL fails (the stored saddle point is a rotamer); CB has a relaxed " +
-        "scan with a jump; KE mixes levels of theory (vinyl alcohol was computed with def2-TZVP geometries).";
+        "scan with a jump; KE mixes levels of theory (vinyl alcohol was computed with def2-TZVP geometries) and its IRC connects " +
+        "both sides; EO fails because the IRC of its saddle point lands on vinyl alcohol instead of the oxirane drawn.";
 
     private static double Kcal(double x) => Energy.FromKcalPerMol(x).Hartree;
 
@@ -147,6 +150,14 @@ public static class DemoScenario
             spLevel: OtherSinglePointLevel, geometryLevel: OtherGeometryLevel,
             note: "Taken over from an earlier project that optimised with def2-TZVP; not yet recomputed with this study's protocol.");
 
+        // EO: acetaldehyde → oxirane as drawn; the saddle point stored for it is KE's 1,3-hydrogen shift again (another guess,
+        // another orientation), so its IRC lands on vinyl alcohol.
+        Add("oxirane", "oxirane", DemoStructures.Oxirane, min, plain, acetaldehyde + Kcal(27.0), 2.0);
+        Add("TS-EO", "ts-eo", Turned(DemoStructures.HydrogenShiftSaddle, 40.0), ts,
+            new ForceFieldSpec(Reaction: [new ReactionCurvature([(2, 3, 1.0), (1, 3, -1.0)], -1.6)]),
+            acetaldehyde + Kcal(67.25), 3.9,
+            note: "Optimised from a guess with C2 close to O3, meant as the ring closure to oxirane.");
+
         var reactions = new List<DemoReaction>
         {
             new("DA", "Diels–Alder cycloaddition of butadiene and ethylene (concerted, both C–C bonds form together). " +
@@ -193,6 +204,13 @@ public static class DemoScenario
                 DemoState.Saddle("TS", "TS-KE", [], (2, 4), (3, 4)),
                 DemoState.Minimum("vinyl alcohol", "vinyl alcohol"),
             ]),
+            new("EO", "Ring closure of acetaldehyde to oxirane as its owner drew it (H4 to C1, C2–O3 forming). The saddle point stored " +
+                      "for it is the 1,3-hydrogen shift of KE found again: its IRC lands on vinyl alcohol, not oxirane, so the check fails.",
+            [
+                DemoState.Minimum("acetaldehyde", "acetaldehyde"),
+                DemoState.Saddle("TS", "TS-EO", [], (2, 3), (2, 4), (1, 4)),
+                DemoState.Minimum("oxirane", "oxirane"),
+            ]),
         };
 
         var byLabel = species.ToDictionary(s => s.Label);
@@ -201,7 +219,16 @@ public static class DemoScenario
             DielsAlderScan(byLabel["TS-DA"]),
             RingOpeningScan(byLabel["TS-CB"]),
         };
-        return new DemoStudy(StudyName, StudyDescription, GeometryLevel, species, reactions, scans);
+        // IRC energies at the geometry level; vinyl alcohol's there is invented (+11.1 kcal/mol over acetaldehyde), since its
+        // stored optimisation is at the other protocol.
+        var aldehyde = byLabel["acetaldehyde"].OptEnergyHartree;
+        var enol = R8(aldehyde + Kcal(11.1));
+        var ircs = new List<DemoIrc>
+        {
+            IrcPath("TS-KE IRC", "ts-ke-irc", byLabel["TS-KE"], DemoStructures.Acetaldehyde, aldehyde, DemoStructures.VinylAlcohol, enol),
+            IrcPath("TS-EO IRC", "ts-eo-irc", byLabel["TS-EO"], DemoStructures.Acetaldehyde, aldehyde, DemoStructures.VinylAlcohol, enol),
+        };
+        return new DemoStudy(StudyName, StudyDescription, GeometryLevel, species, reactions, scans, ircs);
     }
 
     /// <summary>What each reaction is meant to show and the verdicts it is meant to get (tests check them independently).</summary>
@@ -212,7 +239,8 @@ public static class DemoScenario
         ("IX", "two-step pathway with a catalyst (iodide) in several states", "Passed for TS1 and TS2", "Passed"),
         ("EL", "a saddle point that is not the reaction", "Failed: the significant mode turns the methyl group; C1–F3, C2–H6, F3–H6 do not move", "Passed"),
         ("CB", "relaxed scan with a jump (C3–C4, between 2.6 and 2.7 Å a CH2 group flips)", "Passed (the scan is flagged, not the saddle point)", "Passed"),
-        ("KE", "barrier mixing levels of theory (one state at another level)", "Passed", "Failed: vinyl alcohol was optimised and single-pointed on def2-TZVP geometries"),
+        ("KE", "barrier mixing levels of theory (one state at another level); an IRC that connects both sides", "Passed: the IRC connects acetaldehyde and vinyl alcohol", "Failed: vinyl alcohol was optimised and single-pointed on def2-TZVP geometries"),
+        ("EO", "an IRC that lands on another minimum than the one drawn", "Failed: the IRC connects acetaldehyde with vinyl alcohol (KE), not oxirane", "Passed"),
     ];
 
     /// <summary>
@@ -299,6 +327,33 @@ public static class DemoScenario
             points.Add(new ScanPoint(d, R8(e), true, m));
         }
         return new DemoScan("CB scan C3–C4", "cb-scan", saddle.Label, GeometryLevel, ScanCoordinateKind.Distance, [3, 4], points);
+    }
+
+    /// <summary>
+    /// An invented IRC path of <paramref name="saddle"/>: <paramref name="perSide"/> frames on each side, linear in Cartesians between
+    /// the saddle point and each end (superposed on it, geminal hydrogens on C2 paired), the ends exactly the given minima. Energy
+    /// E‡ − (E‡ − E_end)·tanh²(2.5 t)/tanh²(2.5) at the fraction t of the way to an end, so the ends carry the minima's energies.
+    /// </summary>
+    private static DemoIrc IrcPath(string label, string slug, DemoSpecies saddle, Molecule start, double startEnergy, Molecule end, double endEnergy, int perSide = 20)
+    {
+        var ts = saddle.Geometry;
+        var tsPos = ts.PositionsAngstrom.ToArray();
+        var a = PairGeminal(Align(start, ts), ts, [(5, 6)]);
+        var b = PairGeminal(Align(end, ts), ts, [(5, 6)]);
+        double E(double t, double target) => R8(saddle.OptEnergyHartree - (saddle.OptEnergyHartree - target) * Math.Pow(Math.Tanh(2.5 * t) / Math.Tanh(2.5), 2));
+        Molecule M(Vec3[] pos) => GeometryBuilder.Rounded(new Molecule(ts.Elements, pos, ts.Charge, ts.Multiplicity));
+        var frames = new List<(Molecule, double)>();
+        for (var k = perSide; k >= 1; k--) frames.Add((M(Lerp(tsPos, a, (double)k / perSide)), E((double)k / perSide, startEnergy)));
+        frames.Add((ts, saddle.OptEnergyHartree));
+        for (var k = 1; k <= perSide; k++) frames.Add((M(Lerp(tsPos, b, (double)k / perSide)), E((double)k / perSide, endEnergy)));
+        return new DemoIrc(label, slug, saddle.Label, GeometryLevel, frames);
+    }
+
+    /// <summary>The molecule turned by <paramref name="degrees"/> about the z axis through the origin (the same structure, other coordinates).</summary>
+    private static Molecule Turned(Molecule m, double degrees)
+    {
+        var t = degrees * Math.PI / 180;
+        return GeometryBuilder.Rounded(new Molecule(m.Elements, m.PositionsAngstrom.Select(p => new Vec3(Math.Cos(t) * p.X - Math.Sin(t) * p.Y, Math.Sin(t) * p.X + Math.Cos(t) * p.Y, p.Z)), m.Charge, m.Multiplicity));
     }
 
     private static Vec3[] Align(Molecule mobile, Molecule reference) =>

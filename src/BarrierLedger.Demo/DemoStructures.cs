@@ -387,4 +387,26 @@ internal static class DemoStructures
             return Done(g);
         }
     }
+
+    /// <summary>
+    /// Oxirane (ethylene oxide) C1, C2, O3, H4–H7 (H4, H5 on C1; H6, H7 on C2): C–C 1.470 Å, C–O 1.431 Å, C–H 1.085 Å, H–C–H 116°.
+    /// Standard values for a three-membered ring, rounded (from memory); the demo only needs a plausible, consistent minimum.
+    /// </summary>
+    public static Molecule Oxirane
+    {
+        get
+        {
+            var g = new GeometryBuilder();
+            var c1 = g.At(C, Vec3.Zero);
+            var c2 = g.At(C, new Vec3(1.470, 0, 0));
+            var o3 = g.At(O, new Vec3(0.735, 0, Math.Sqrt(1.431 * 1.431 - 0.735 * 0.735)));
+            var (h4, h5) = GeometryBuilder.Tetrahedral(g[c1], g[c2], g[o3], 1.085, 116.0);
+            g.At(H, h4);
+            g.At(H, h5);
+            var (h6, h7) = GeometryBuilder.Tetrahedral(g[c2], g[c1], g[o3], 1.085, 116.0);
+            g.At(H, h6);
+            g.At(H, h7);
+            return Done(g);
+        }
+    }
 }

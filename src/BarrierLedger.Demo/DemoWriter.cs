@@ -127,6 +127,17 @@ public static class DemoWriter
             files.Add(new DemoFile(prefix + path, text.ToString()));
         }
 
+        var ircs = new JsonArray();
+        foreach (var irc in study.Ircs ?? [])
+        {
+            var path = $"irc/{irc.Slug}.xyz";
+            var saddle = study.Species.Single(x => x.Label == irc.Saddle);
+            ircs.Add(new JsonObject { ["label"] = irc.Label, ["saddle_point"] = OptLabel(saddle), ["level_of_theory"] = irc.Level, ["path_file"] = path });
+            var text = new StringBuilder();
+            foreach (var (g, e) in irc.Frames) text.Append(XyzWriter.ToExtendedText(g, e));
+            files.Add(new DemoFile(prefix + path, text.ToString()));
+        }
+
         var manifest = new JsonObject
         {
             ["format"] = "barrierledger-bundle",
@@ -149,6 +160,7 @@ public static class DemoWriter
             ["reactions"] = reactions,
             ["scans"] = scans,
         };
+        if (ircs.Count > 0) manifest["ircs"] = ircs;
         files.Insert(0, new DemoFile(prefix + ManifestName, manifest.ToJsonString(JsonOptions) + "\n"));
         return files;
     }

@@ -47,9 +47,9 @@ public class DemoScaleTests
     [Fact]
     public void Copies_of_a_reaction_have_their_own_saddle_geometry_and_the_ledger_keeps_every_verdict()
     {
-        var bundle = ReadAll(DemoData.Scale(13)).Single();
+        var bundle = ReadAll(DemoData.Scale(15)).Single();
         var da = bundle.Calculations.Where(c => c.Kind == CalculationKind.SaddlePoint && c.Species.StartsWith("TS-DA-", StringComparison.Ordinal)).ToList();
-        Assert.Equal(3, da.Count); // reactions 1, 7, 13
+        Assert.Equal(3, da.Count); // reactions 1, 8, 15 (seven template reactions)
         Assert.False(da[0].Geometry!.SameAs(da[1].Geometry!, 1e-4));
 
         var verdicts = new HashSet<Verdict>();

@@ -3,6 +3,7 @@ using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Paths;
 using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Tests.Formats;
@@ -52,7 +53,7 @@ public class DemoShowcaseTests
         var result = BundleReader.Read(manifest, DemoWriter.ManifestName, openFile: p => File.OpenRead(Path.Combine(Folder, p)));
         Assert.Empty(result.Issues);
         Assert.Contains("invented", result.Value!.Study.Description, StringComparison.Ordinal);
-        Assert.Equal(6, result.Value.Reactions.Length);
+        Assert.Equal(7, result.Value.Reactions.Length);
     }
 
     /// <summary>What each saddle point must get from the frequency check, and why.</summary>
@@ -71,6 +72,9 @@ public class DemoShowcaseTests
         { "CB", "TS", Verdict.Passed, SaddleCheckCodes.NearScanMaximum },
         // A clean hydrogen-transfer mode; what is wrong in KE is the levels of theory, not the saddle point.
         { "KE", "TS", Verdict.Passed, SaddleCheckCodes.ReactionMode },
+        // KE's hydrogen shift again: its mode moves C2–H4, one of the declared bonds, so the mode alone does not catch it; the
+        // IRC does (Each_IRC_gets_its_intended_connection_verdict).
+        { "EO", "TS", Verdict.Passed, SaddleCheckCodes.ReactionMode },
     };
 
     [Theory]
@@ -125,6 +129,7 @@ public class DemoShowcaseTests
         { "EL", Verdict.Passed },     // the frequency check fails, the energies are still consistent
         { "CB", Verdict.Passed },
         { "KE", Verdict.Failed },     // vinyl alcohol's single point sits on a def2-TZVP geometry: two electronic levels
+        { "EO", Verdict.Passed },     // the saddle point belongs to another reaction, but the energies are consistent
     };
 
     [Theory]
@@ -223,6 +228,38 @@ public class DemoShowcaseTests
                 Assert.True(down > 0, $"{r.Label} {p.States[i].Label} is below the next state");
             }
         }
+    }
+
+    /// <summary>Where each demo IRC must lead (issue 20), and the headline the review queue shows.</summary>
+    public static TheoryData<string, Connection, string> IrcVerdicts => new()
+    {
+        // The 1,3-hydrogen shift's IRC runs from acetaldehyde to vinyl alcohol: both neighbours of TS-KE.
+        { "KE", Connection.BothSides, "connects acetaldehyde and vinyl alcohol" },
+        // The same shift stored as the saddle point of a ring closure: one end is acetaldehyde, the other vinyl alcohol (a state
+        // of KE), not the oxirane drawn; oxirane's bond graph (C2–O3, C1–H4) differs from vinyl alcohol's (O3–H4, no C2–O3).
+        { "EO", Connection.OneSide, "connects acetaldehyde with vinyl alcohol (KE), not oxirane" },
+    };
+
+    [Theory]
+    [MemberData(nameof(IrcVerdicts))]
+    public void Each_IRC_gets_its_intended_connection_verdict(string reaction, Connection connection, string headline)
+    {
+        var r = Bundle.Reactions.Single(x => x.Label == reaction);
+        var calc = Bundle.Calculations.Single(c => c.Label == r.States[1].Calculation);
+        var irc = Bundle.Ircs.Single(i => i.SaddlePoint == calc.Label);
+        var formula = Formula.Of(calc.Geometry!);
+        StateStructure Of(BundleState s, string label) => new(label, [.. s.Terms.Select(t => new StateSpecies(t.Species,
+            Bundle.Calculations.First(c => c.Species == t.Species && c.Kind == CalculationKind.Minimum).Geometry!, t.Coefficient))]);
+        var others = Bundle.Reactions.Where(x => x.Label != reaction)
+            .SelectMany(x => x.States.Where(s => s.Kind == BundleStateKind.Minimum).Select(s => Of(s, $"{s.Label} ({x.Label})")))
+            .Where(s => s.Formula == formula).ToList();
+        var path = IrcPath.FromFrames([.. irc.Structures.Structures.Select(f => f.Geometry)], [.. irc.Structures.Structures.Select(f => f.EnergyHartree!.Value)], calc.Geometry);
+        var result = ConnectionCheck.Run(new ConnectionCheckInput(calc.Geometry!, Of(r.States[0], r.States[0].Label), Of(r.States[2], r.States[2].Label), others, path));
+        Assert.True(connection == result.Connection, result.Report());
+        Assert.Equal(headline, result.Headline);
+        Assert.Equal(connection == Connection.BothSides ? Verdict.Passed : Verdict.Failed, result.Verdict);
+        // The ends are the minima themselves (superposed, rounded to 1e-6 Å in the files): RMSD below 1e-5 Å (construction).
+        Assert.All(result.Ends, e => Assert.InRange(e.Reached!.RmsdAngstrom, 0, 1e-5));
     }
 
     private static SaddleCheckResult Check(string reaction, string stateLabel)

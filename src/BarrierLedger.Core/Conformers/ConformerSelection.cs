@@ -27,6 +27,14 @@ public static class ConformerChoiceText
         ConformerChoice.BoltzmannEnsemble => "Boltzmann-weighted conformer ensemble",
         _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown conformer choice."),
     };
+
+    /// <summary>The choice as the model banner and every export header state it, with the formula of the ensemble.</summary>
+    public static string Sentence(ConformerChoice c) => c switch
+    {
+        ConformerChoice.Lowest => "conformers: lowest conformer of each species (by G)",
+        ConformerChoice.BoltzmannEnsemble => "conformers: Boltzmann-weighted ensemble of each species, G = −RT ln Σ exp(−G_i/RT)",
+        _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown conformer choice."),
+    };
 }
 
 /// <summary>One conformer of a species as a derivation sees it: its absolute energies under the model (per molecule).</summary>
@@ -77,6 +85,15 @@ public static class ConformerSelection
     public const string LowerConformerCode = "conformers.lower-conformer-exists";
     public const string UncheckedSaddleConformerCode = "conformers.unchecked-saddle-conformer";
     public const string DuplicatesInEnsembleCode = "conformers.duplicates-in-ensemble";
+
+    /// <summary>A few words for a reason code of this class (for a list where the full sentence is one click or hover away), or null for another code.</summary>
+    public static string? ShortText(string code) => code switch
+    {
+        LowerConformerCode => "a lower reactant conformer exists",
+        UncheckedSaddleConformerCode => "an unchecked saddle-point conformer within 1 kcal/mol",
+        DuplicatesInEnsembleCode => "duplicates counted twice in the Boltzmann sum",
+        _ => null,
+    };
 
     /// <summary>A saddle-point conformer this close to the one used must have passed its check (issue 21: 1 kcal/mol).</summary>
     public const double NearSaddleKcalPerMol = 1.0;

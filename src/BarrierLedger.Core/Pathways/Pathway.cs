@@ -40,11 +40,20 @@ public sealed record SpeciesRecord(
     IReadOnlyList<double>? FrequenciesCm1 = null,
     LevelOfTheory? FrequencyLevel = null,
     int SymmetryNumber = 1,
-    string? PointGroup = null)
+    string? PointGroup = null,
+    IReadOnlyList<ConformerRecord>? Conformers = null)
 {
     /// <summary>Electrons: Σ Z − charge.</summary>
     public int ElectronCount => Formula.NuclearCharge - Charge;
 }
+
+/// <summary>
+/// One conformer of a species with several (<see cref="SpeciesRecord.Conformers"/>): its own record (energy, geometry and
+/// frequencies or reported corrections), whether a saddle-point conformer passed its frequency check, and the conformer it
+/// duplicates (index into the same list) with how close they are. The energy model's <see cref="Conformers.ConformerChoice"/>
+/// decides how they make the species' energies (<see cref="Conformers.ConformerSelection"/>).
+/// </summary>
+public sealed record ConformerRecord(string Label, SpeciesRecord Record, bool CheckPassed = true, int? DuplicateOf = null, string? DuplicateNote = null);
 
 /// <summary>Whether a state is a minimum (reactant, intermediate, product) or a saddle point.</summary>
 public enum StateKind

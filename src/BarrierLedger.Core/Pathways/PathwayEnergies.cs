@@ -1,5 +1,6 @@
 using System.Globalization;
 using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Conformers;
 using BarrierLedger.Core.Kinetics;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
@@ -35,13 +36,27 @@ public enum StepTunnelling
 /// multiplies it per step.
 /// </summary>
 public sealed record EnergyModel(ThermalSource Thermal = ThermalSource.Reported, ThermoOptions? Thermo = null, double TransmissionCoefficient = 1.0,
-    StepTunnelling Tunnelling = StepTunnelling.None)
+    StepTunnelling Tunnelling = StepTunnelling.None, ConformerChoice Conformers = ConformerChoice.Lowest)
 {
     public ThermoOptions ThermoOrDefault => Thermo ?? ThermoOptions.Default;
 }
 
-/// <summary>One species of a state as the derivation used it: the record with the thermal correction actually applied (null if none).</summary>
-public sealed record TermEnergies(SpeciesRecord Species, int Coefficient);
+/// <summary>
+/// One species of a state as the derivation used it: the record with the thermal correction actually applied (null if none); for a
+/// species with several conformers, the record of the conformer used (its lowest) or of the ensemble, and <see cref="Conformer"/>.
+/// </summary>
+public sealed record TermEnergies(SpeciesRecord Species, int Coefficient)
+{
+    /// <summary>Which conformer(s) made its energies; null for a species with one conformer.</summary>
+    public ConformerUse? Conformer { get; init; }
+}
+
+/// <summary>
+/// The conformers a species' energies came from: <see cref="Lowest"/> is the label of its lowest conformer that takes part (the one
+/// used under <see cref="ConformerChoice.Lowest"/>), <see cref="Description"/> the words ("conformer c2 (lowest of 3)", "ensemble of 3
+/// conformers (c1 61 %, …)"), <see cref="Energies"/> and <see cref="Selection"/> every conformer's energies and what was made of them.
+/// </summary>
+public sealed record ConformerUse(string Lowest, string Description, IReadOnlyList<ConformerEnergies> Energies, ConformerSelectionResult Selection);
 
 /// <summary>
 /// Energies of one state: absolute sums and values relative to the first state (null where a correction is missing), and its
@@ -136,8 +151,22 @@ public static class PathwayEnergies
 
         // Keyed by record equality, the same equality Distinct uses: equal records built separately resolve to one entry.
         var resolved = new Dictionary<SpeciesRecord, SpeciesRecord>();
+        var conformers = new Dictionary<SpeciesRecord, ConformerUse>();
         foreach (var sp in pathway.States.SelectMany(s => s.Terms).Select(x => x.Species).Distinct())
-            resolved[sp] = sp with { Thermal = Resolve(sp, m, thermo, extra) };
+        {
+            if (sp.Conformers is { Count: > 1 } list)
+            {
+                var (record, use) = Ensemble(sp, list, m, thermo, extra);
+                resolved[sp] = record;
+                conformers[sp] = use;
+            }
+            else resolved[sp] = sp with { Thermal = Resolve(sp, m, thermo, extra) };
+        }
+        // The conformer checks a reviewer sees, once per state that holds the species (a saddle point is judged as one).
+        foreach (var s in pathway.States)
+            foreach (var sp in s.Terms.Select(x => x.Species).Distinct())
+                if (conformers.TryGetValue(sp, out var use))
+                    extra.AddRange(ConformerSelection.Check(s.Label, sp.Label, s.Kind == StateKind.SaddlePoint, use.Energies, use.Selection, t));
         var used = pathway with
         {
             States = [.. pathway.States.Select(s => s with { Terms = [.. s.Terms.Select(x => x with { Species = resolved[x.Species] })] })],
@@ -152,14 +181,17 @@ public static class PathwayEnergies
         var e0 = first.ElectronicEnergy;
         var h0 = Sum(first, c => c.Enthalpy);
         var g0 = Sum(first, c => c.Gibbs);
-        var states = used.States.Select(s =>
+        var states = used.States.Select((s, si) =>
         {
             var e = s.ElectronicEnergy;
             var h = Sum(s, c => c.Enthalpy);
             var g = Sum(s, c => c.Gibbs);
             return new StateEnergies(s.Label, s.Kind, e, h, g, e - e0, h - h0, g - g0)
             {
-                Terms = [.. s.Terms.Select(x => new TermEnergies(x.Species, x.Coefficient))],
+                Terms = [.. s.Terms.Select((x, j) => new TermEnergies(x.Species, x.Coefficient)
+                {
+                    Conformer = conformers.GetValueOrDefault(pathway.States[si].Terms[j].Species),
+                })],
             };
         }).ToList();
 
@@ -264,14 +296,26 @@ public static class PathwayEnergies
     /// (computed from its geometry and frequencies, else reported and moved to the model's standard state), with the reasons
     /// found; null when there is none. For listing a species on its own (a structure in no pathway).
     /// </summary>
-    public static ThermalCorrection? ThermalCorrectionOf(SpeciesRecord species, EnergyModel? model, out IReadOnlyList<CheckReason> reasons)
+    public static ThermalCorrection? ThermalCorrectionOf(SpeciesRecord species, EnergyModel? model, out IReadOnlyList<CheckReason> reasons) =>
+        SpeciesEnergies(species, model, out reasons).Species.Thermal;
+
+    /// <summary>
+    /// One species as a pathway containing it would use it under <paramref name="model"/>: its thermal correction, and for a
+    /// species with several conformers the model's conformer choice with every conformer's energies (<see cref="TermEnergies.Conformer"/>).
+    /// For listing a species on its own (its page, a structure in no pathway).
+    /// </summary>
+    public static TermEnergies SpeciesEnergies(SpeciesRecord species, EnergyModel? model, out IReadOnlyList<CheckReason> reasons)
     {
         ArgumentNullException.ThrowIfNull(species);
         var m = model ?? new EnergyModel();
         var list = new List<CheckReason>();
-        var result = Resolve(species, m, m.ThermoOrDefault, list);
         reasons = list;
-        return result;
+        if (species.Conformers is { Count: > 1 } conformers)
+        {
+            var (record, use) = Ensemble(species, conformers, m, m.ThermoOrDefault, list);
+            return new TermEnergies(record, 1) { Conformer = use };
+        }
+        return new TermEnergies(species with { Thermal = Resolve(species, m, m.ThermoOrDefault, list) }, 1);
     }
 
     /// <summary>c° in mol/L of the model's standard state: c for a solution, p/(RT) for a gas.</summary>
@@ -281,6 +325,49 @@ public static class PathwayEnergies
         _ => Thermochemistry.Thermochemistry.ReferencePressurePascal(o.TemperatureKelvin, o.StandardState, o.PressurePascal)
              / (PhysicalConstants.GasConstantJoulePerMoleKelvin * o.TemperatureKelvin) / 1000.0,
     };
+
+    /// <summary>
+    /// A species with several conformers: every conformer's thermal correction as for a species of its own, then the model's
+    /// choice (<see cref="ConformerSelection.Select"/>). Under the lowest-conformer choice the species is that conformer's record;
+    /// under the ensemble its electronic energy, enthalpy and Gibbs energy are the ensemble's (G = −RT ln Σ exp(−G_i/RT), E and H
+    /// population-weighted, the zero-point energy too) on the lowest conformer's record. Reasons found for a conformer are kept
+    /// only when it takes part.
+    /// </summary>
+    private static (SpeciesRecord Record, ConformerUse Use) Ensemble(SpeciesRecord sp, IReadOnlyList<ConformerRecord> list, EnergyModel m, ThermoOptions thermo,
+        List<CheckReason> extra)
+    {
+        var t = thermo.TemperatureKelvin;
+        var thermal = new ThermalCorrection?[list.Count];
+        var found = new List<CheckReason>[list.Count];
+        var energies = new List<ConformerEnergies>(list.Count);
+        for (var i = 0; i < list.Count; i++)
+        {
+            var c = list[i];
+            found[i] = [];
+            thermal[i] = Resolve(c.Record with { Label = $"{sp.Label} ({c.Label})" }, m, thermo, found[i]);
+            var e = c.Record.ElectronicEnergy;
+            energies.Add(new ConformerEnergies(c.Label, e, thermal[i] is { } th ? e + th.Enthalpy : null, thermal[i] is { } tg ? e + tg.Gibbs : null,
+                c.CheckPassed, c.DuplicateOf, c.DuplicateNote));
+        }
+        var selection = ConformerSelection.Select(energies, m.Conformers, t);
+        var lowest = selection.Lowest;
+        var taking = m.Conformers == ConformerChoice.Lowest ? [lowest] : selection.Included.ToArray();
+        foreach (var i in taking) extra.AddRange(found[i]);
+        var use = new ConformerUse(list[lowest].Label, selection.Describe(energies), energies, selection);
+        var baseRecord = list[lowest].Record with { Label = sp.Label, Conformers = sp.Conformers };
+        if (m.Conformers == ConformerChoice.Lowest || selection.Included.Length == 1)
+            return (baseRecord with { Thermal = thermal[lowest] }, use);
+        if (selection.Gibbs is not { } g || thermal[lowest] is not { } th0)
+            return (baseRecord with { ElectronicEnergy = selection.Electronic, Thermal = null }, use);
+        var e0 = selection.Electronic;
+        var zpe = Energy.FromHartree(selection.Included.Sum(i => selection.Populations[i] * thermal[i]!.ZeroPoint.Hartree));
+        var h = selection.Enthalpy ?? e0 + th0.Enthalpy;
+        return (baseRecord with
+        {
+            ElectronicEnergy = e0,
+            Thermal = th0 with { ZeroPoint = zpe, Enthalpy = h - e0, Gibbs = g - e0, Source = $"{th0.Source}, Boltzmann ensemble of {selection.Included.Length} conformers" },
+        }, use);
+    }
 
     private static ThermalCorrection? Resolve(SpeciesRecord sp, EnergyModel m, ThermoOptions thermo, List<CheckReason> extra)
     {

@@ -15,7 +15,7 @@ internal sealed record SpeciesInput(int Id, string Label, int Charge, int Multip
 
 internal sealed record CalcInput(int Id, int SpeciesId, CalculationKind Kind, string LevelOfTheory, string EnergyKey, string GeometryKey, double? EnergyHartree,
     byte[]? AtomicNumbers, byte[]? Positions, byte[]? Frequencies, double? ThermalTemperatureKelvin, double? ZeroPointHartree,
-    double? EnthalpyCorrectionHartree, double? GibbsCorrectionHartree);
+    double? EnthalpyCorrectionHartree, double? GibbsCorrectionHartree, string Conformer = "");
 
 /// <summary>What the derivation of a set of reactions reads, loaded in a fixed number of queries.</summary>
 internal sealed class DerivationInputs
@@ -25,6 +25,8 @@ internal sealed class DerivationInputs
     public required Dictionary<int, SpeciesInput> Species { get; init; }
     public required ILookup<int, CalcInput> CalculationsBySpecies { get; init; }
     public required Dictionary<int, CalcInput> Calculations { get; init; }
+    /// <summary>Saddle-point calculations whose stored frequency check passed.</summary>
+    public HashSet<int> PassedChecks { get; init; } = [];
 
     /// <summary>
     /// Live reactions of the studies, or of the given reactions when <paramref name="reactionIds"/> is not null. Id lists go to the
@@ -72,14 +74,19 @@ internal sealed class DerivationInputs
             .OrderBy(c => c.Id)
             .Select(c => new CalcInput(c.Id, c.SpeciesId, c.Kind, c.LevelOfTheory, c.EnergyLevelKey, c.GeometryLevel, c.EnergyHartree,
                 c.AtomicNumbers, c.PositionsAngstrom, c.FrequenciesCm1, c.ThermalTemperatureKelvin, c.ZeroPointHartree,
-                c.EnthalpyCorrectionHartree, c.GibbsCorrectionHartree))
+                c.EnthalpyCorrectionHartree, c.GibbsCorrectionHartree, c.Conformer))
             .ToListAsync(ct);
+        // Saddle-point calculations whose stored frequency check passed: a saddle-point conformer without one is "not checked".
+        var saddleIds = calcs.Where(c => c.Kind == CalculationKind.SaddlePoint).Select(c => c.Id).ToList();
+        var passed = saddleIds.Count == 0 ? [] : await db.FrequencyChecks.AsNoTracking()
+            .Where(f => EF.Parameter(saddleIds).Contains(f.CalculationId) && f.Verdict == Core.Checks.Verdict.Passed).Select(f => f.CalculationId).ToListAsync(ct);
         return new DerivationInputs
         {
             Reactions = reactionInputs,
             Species = species.ToDictionary(s => s.Id),
             CalculationsBySpecies = calcs.ToLookup(c => c.SpeciesId),
             Calculations = calcs.ToDictionary(c => c.Id),
+            PassedChecks = [.. passed],
         };
     }
 }

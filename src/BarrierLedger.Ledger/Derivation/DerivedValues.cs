@@ -14,11 +14,13 @@ public sealed record DerivedState(int Position, string Label, string Kind, doubl
 /// <summary>
 /// One species of a state as the derivation used it (hartree per molecule): its electronic energy and the calculation it came
 /// from; the thermal correction applied (zero-point, enthalpy and Gibbs corrections, where it came from: "computed (…)" or
-/// "reported") and its calculation, or nulls when there is none; the point group and σ used.
+/// "reported") and its calculation, or nulls when there is none; the point group and σ used; for a species with several
+/// conformers, which made its energies ("conformer c2 (lowest of 3)", "ensemble of 3 conformers (…)"; the calculations named
+/// are those of its lowest conformer), else null.
 /// </summary>
 public sealed record DerivedTerm(int SpeciesId, string Label, int Coefficient, int EnergyCalculationId, double ElectronicHartree, string LevelOfTheory,
     int? ThermalCalculationId, double? ZeroPointHartree, double? EnthalpyCorrectionHartree, double? GibbsCorrectionHartree, string? ThermalSource,
-    string? PointGroup, int SymmetryNumber);
+    string? PointGroup, int SymmetryNumber, string? Conformer = null);
 
 /// <summary>
 /// One elementary step minimum → saddle point → minimum (Core <c>PathwayEnergies</c>): barriers from the minimum before, reaction
@@ -52,6 +54,7 @@ public static class LedgerReasonCodes
     public const string FormulaUnknown = "ledger.formula-unknown";
     public const string PathwayShape = "ledger.pathway-shape";
     public const string MissingSpecies = "ledger.missing-species";
+    public const string ConformerLeftOut = "ledger.conformer-left-out";
 }
 
 internal static class DerivedJson

@@ -41,6 +41,9 @@ public sealed record ModelSettings(
     /// <summary>σ per level of theory, one "level = σ" per line (see <see cref="Kinetics.EnergyUncertainty"/>).</summary>
     public string UncertaintyByLevel { get; init; } = "";
 
+    /// <summary>How a species with several conformers enters the energies (issue 21); part of <see cref="Fingerprint"/>.</summary>
+    public Core.Conformers.ConformerChoice Conformers { get; init; } = Core.Conformers.ConformerChoice.Lowest;
+
     /// <summary>The uncertainties these settings set (none when they cannot be read).</summary>
     public Kinetics.EnergyUncertainty Uncertainty =>
         Kinetics.EnergyUncertainty.Problems(UncertaintyKcalPerMol, UncertaintyByLevel, out var levels).Count == 0
@@ -52,6 +55,7 @@ public sealed record ModelSettings(
     {
         UncertaintyKcalPerMol = m.UncertaintyKcalPerMol,
         UncertaintyByLevel = m.UncertaintyByLevel,
+        Conformers = m.Conformers,
     };
 
     public void CopyTo(EnergyModel m)
@@ -68,6 +72,7 @@ public sealed record ModelSettings(
         m.ScanJumpKcalPerMol = ScanJumpKcalPerMol;
         m.UncertaintyKcalPerMol = UncertaintyKcalPerMol;
         m.UncertaintyByLevel = UncertaintyByLevel.Trim();
+        m.Conformers = Conformers;
     }
 
     /// <summary>Every problem with these settings, in words; empty when they can be used.</summary>
@@ -83,7 +88,9 @@ public sealed record ModelSettings(
     }
 
     public string Fingerprint => Hash(string.Join("|", "v2", EnergyLevels.Key(EnergyLevel), EnergyLevels.Key(ThermalLevel), Num(TemperatureKelvin),
-        StandardState, Treatment, Num(QuasiRrhoCutoffCm1), Tunnelling, CheckFingerprint));
+        StandardState, Treatment, Num(QuasiRrhoCutoffCm1), Tunnelling, CheckFingerprint)
+        // Only the ensemble adds a part, so a model that keeps the lowest conformer keeps the fingerprint it had.
+        + (Conformers == Core.Conformers.ConformerChoice.Lowest ? "" : "|conformers=" + Conformers));
 
     public string CheckFingerprint => Hash(string.Join("|", "c1", Num(SignificantImaginaryCm1), Num(ScanJumpKcalPerMol)));
 
@@ -103,8 +110,11 @@ public sealed record ModelSettings(
         };
         var treatment = LowModeNames.Describe(Treatment, QuasiRrhoCutoffCm1);
         var tunnelling = Tunnelling == TunnellingCorrection.Wigner ? ", Wigner tunnelling" : "";
-        return $"Energies: {level}{thermal}; {Num(TemperatureKelvin)} K; standard state {state}; {treatment}{tunnelling}";
+        return $"Energies: {level}{thermal}; {Num(TemperatureKelvin)} K; standard state {state}; {treatment}{tunnelling}; {ConformerText}";
     }
+
+    /// <summary>"conformers: lowest conformer of each species" or "conformers: Boltzmann-weighted ensemble G = −RT ln Σ exp(−G_i/RT)".</summary>
+    public string ConformerText => Core.Conformers.ConformerChoiceText.Sentence(Conformers);
 
     /// <summary>"Uncertainty: σ = 2 kcal/mol per barrier for every level (common practice, no source); 1 kcal/mol for X" or "no uncertainty set".</summary>
     public string DescribeUncertainty()

@@ -50,7 +50,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
                 }
                 var rs = _resolver.Resolve(sp, saddle ? s.SaddleCalculationId : null, s.Label);
                 reasons.AddRange(rs.Reasons);
-                fingerprint.Append('|').Append(speciesId).Append(':').Append(rs.Energy?.Id).Append(':').Append(rs.Thermal?.Id).Append(':').Append(rs.Reported?.Id);
+                fingerprint.Append('|').Append(speciesId).Append(':').Append(string.Join(":", rs.CalculationIds));
                 if (rs.Record is null) { complete = false; continue; }
                 terms.Add(new StateTerm(rs.Record, coefficient));
                 used.Add((speciesId, rs));
@@ -79,7 +79,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
             var e = result?.States[i];
             var terms = e is null ? null : e.Terms.Select((t, j) => Term(resolved[i][j].SpeciesId, resolved[i][j].Species, t)).ToList();
             return new DerivedState(s.Position, s.Label, s.Kind.ToString(), e?.RelativeElectronic.Hartree, e?.RelativeEnthalpy?.Hartree,
-                e?.RelativeGibbs?.Hartree, [.. resolved[i].Select(x => x.Species.Energy!.Id)],
+                e?.RelativeGibbs?.Hartree, terms is null ? [.. resolved[i].Select(x => x.Species.Energy!.Id)] : [.. terms.Select(t => t.EnergyCalculationId)],
                 terms is null ? [.. resolved[i].Select(x => x.Species.Thermal?.Id ?? x.Species.Reported?.Id).OfType<int>()] : [.. terms.Select(t => t.ThermalCalculationId).OfType<int>()],
                 string.Join("; ", states[i].Terms.Select(t => t.Species.ElectronicLevel.ToString()).Distinct()), terms);
         }).ToList();
@@ -103,13 +103,14 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
             ModelSettings.Hash(fingerprint.ToString()));
     }
 
-    private static DerivedTerm Term(int speciesId, ResolvedSpecies rs, TermEnergies t)
+    private static DerivedTerm Term(int speciesId, ResolvedSpecies all, TermEnergies t)
     {
+        var rs = all.Of(t.Conformer?.Lowest);
         var sp = t.Species;
         var thermal = sp.Thermal;
         return new DerivedTerm(speciesId, sp.Label, t.Coefficient, rs.Energy!.Id, sp.ElectronicEnergy.Hartree, sp.ElectronicLevel.ToString(),
             rs.ThermalUsed(thermal)?.Id, thermal?.ZeroPoint.Hartree, thermal?.Enthalpy.Hartree, thermal?.Gibbs.Hartree, thermal?.Source,
-            sp.PointGroup, sp.SymmetryNumber);
+            sp.PointGroup, sp.SymmetryNumber, t.Conformer?.Description);
     }
 
     private double? ImaginaryOf(int? calcId)

@@ -3,6 +3,8 @@ using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Core.Conformers;
+using BarrierLedger.Ledger.Conformers;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using CoreEnergyModel = BarrierLedger.Core.Pathways.EnergyModel;
@@ -16,6 +18,16 @@ namespace BarrierLedger.Ledger.Derivation;
 /// </summary>
 internal sealed record ResolvedSpecies(SpeciesRecord? Record, CalcInput? Energy, CalcInput? Thermal, CalcInput? Reported, IReadOnlyList<ConsistencyReason> Reasons)
 {
+    /// <summary>For a species with several conformers: each conformer resolved on its own calculations, by label (the record carries them too).</summary>
+    public IReadOnlyDictionary<string, ResolvedSpecies>? Conformers { get; init; }
+
+    /// <summary>The resolution of the conformer a derivation used (<paramref name="label"/>), or this one.</summary>
+    public ResolvedSpecies Of(string? label) => label is not null && Conformers is not null && Conformers.TryGetValue(label, out var c) ? c : this;
+
+    /// <summary>Every calculation behind it, for the input fingerprint: energy, thermal and reported, of each conformer.</summary>
+    public IEnumerable<int?> CalculationIds => Conformers is null ? [Energy?.Id, Thermal?.Id, Reported?.Id]
+        : Conformers.OrderBy(c => c.Key, StringComparer.Ordinal).SelectMany(c => new int?[] { c.Value.Energy?.Id, c.Value.Thermal?.Id, c.Value.Reported?.Id });
+
     /// <summary>The calculation behind the thermal correction the derivation actually applied (see <see cref="ThermalCorrection.IsComputed"/>).</summary>
     public CalcInput? ThermalUsed(ThermalCorrection? applied) => applied is null ? null : applied.IsComputed ? Thermal : Reported;
 }
@@ -41,7 +53,7 @@ internal sealed class StateResolver(ModelSettings model, DerivationInputs inputs
 
     /// <summary>The Core energy model these settings stand for: thermal corrections computed (else reported), the model's tunnelling.</summary>
     public CoreEnergyModel CoreModel { get; } = new(ThermalSource.Computed, model.ThermoOptions(1), 1.0,
-        model.Tunnelling == TunnellingCorrection.Wigner ? StepTunnelling.Wigner : StepTunnelling.None);
+        model.Tunnelling == TunnellingCorrection.Wigner ? StepTunnelling.Wigner : StepTunnelling.None, model.Conformers);
 
     public DerivationInputs Inputs => inputs;
 
@@ -59,9 +71,77 @@ internal sealed class StateResolver(ModelSettings model, DerivationInputs inputs
 
     private ResolvedSpecies Build(SpeciesInput sp, int? preferredCalcId, string state)
     {
-        var reasons = new List<ConsistencyReason>();
         var calcs = inputs.CalculationsBySpecies[sp.Id];
         CalcInput? preferred = preferredCalcId is { } pid && inputs.Calculations.TryGetValue(pid, out var p) ? p : null;
+        return calcs.Select(c => c.Conformer).Distinct(StringComparer.Ordinal).Skip(1).Any()
+            ? BuildConformers(sp, [.. calcs], preferred, state)
+            : BuildOne(sp, calcs, preferred, state);
+    }
+
+    /// <summary>
+    /// A species with several conformers (issue 21): each conformer (its calculations by label) is resolved by the same rules as a
+    /// species, the state's own saddle calculation preferred within its conformer; duplicates come from the stored structures
+    /// (<see cref="ConformerSet"/>) and a saddle-point conformer counts as checked when one of its saddle-point calculations passed
+    /// its frequency check. Core applies the model's conformer choice (<see cref="PathwayEnergies"/>). A conformer without an
+    /// electronic energy at the model's level is left out, and said so.
+    /// </summary>
+    private ResolvedSpecies BuildConformers(SpeciesInput sp, List<CalcInput> calcs, CalcInput? preferred, string state)
+    {
+        var set = ConformerSet.Of(calcs.Select(c => new ConformerCalc(c.Id, c.Conformer, c.Kind, c.EnergyHartree, c.EnergyKey, c.AtomicNumbers, c.Positions, c.LevelOfTheory)),
+            sp.Charge, sp.Multiplicity);
+        var byLabel = calcs.ToLookup(c => c.Conformer, StringComparer.Ordinal);
+        var resolved = new Dictionary<string, ResolvedSpecies>(StringComparer.Ordinal);
+        var order = new List<(int SetIndex, string Label)>();
+        var reasons = new List<ConsistencyReason>();
+        for (var k = 0; k < set.Conformers.Length; k++)
+        {
+            var label = set.Conformers[k].Label;
+            var group = byLabel[label].ToList();
+            var rs = BuildOne(sp, group, preferred is not null && group.Contains(preferred) ? preferred : null, state);
+            if (rs.Record is null)
+            {
+                reasons.Add(new(LedgerReasonCodes.ConformerLeftOut, "Info",
+                    $"State {state}: conformer {Name(label)} of {sp.Label} has no electronic energy" + (_energyKey.Length > 0 ? $" at {model.EnergyLevel}" : "") + ", so it is left out."));
+                continue;
+            }
+            resolved[label] = rs;
+            order.Add((k, label));
+        }
+        if (order.Count == 0) return BuildOne(sp, calcs, preferred, state);
+        if (order.Count == 1) return resolved[order[0].Label] with { Reasons = [.. resolved[order[0].Label].Reasons, .. reasons] };
+
+        var list = order.Select(o =>
+        {
+            var rs = resolved[o.Label];
+            var saddleCalcs = byLabel[o.Label].Where(c => c.Kind == CalculationKind.SaddlePoint).ToList();
+            var checkPassed = saddleCalcs.Count == 0 || saddleCalcs.Any(c => inputs.PassedChecks.Contains(c.Id));
+            int? duplicateOf = null;
+            string? note = null;
+            if (set.DuplicateOf(o.SetIndex) is { } d && order.FindIndex(x => x.Label == d) is var di and >= 0)
+            {
+                duplicateOf = di;
+                if (set.Pair(o.SetIndex, order[di].SetIndex) is { } pair)
+                    note = string.Format(System.Globalization.CultureInfo.InvariantCulture, "RMSD {0:0.000} Å", pair.RmsdAngstrom)
+                           + (pair.EnergyDifferenceKcalPerMol is { } de ? string.Format(System.Globalization.CultureInfo.InvariantCulture, ", ΔE {0:0.00} kcal/mol", Math.Abs(de)) : "");
+            }
+            return new ConformerRecord(Name(o.Label), rs.Record!, checkPassed, duplicateOf, note);
+        }).ToList();
+        // The species' own record stands for it (formula, charge, level) and carries its conformers; Core picks or weighs them.
+        var first = resolved[order[0].Label];
+        var own = first.Reasons.Concat(order.Skip(1).SelectMany(o => resolved[o.Label].Reasons).Where(x => x.Code == LedgerReasonCodes.FormulaUnknown)).Concat(reasons);
+        return first with
+        {
+            Record = first.Record! with { Conformers = list },
+            Reasons = [.. own.DistinctBy(x => x.Code + x.Message)],
+            Conformers = order.ToDictionary(o => Name(o.Label), o => resolved[o.Label], StringComparer.Ordinal),
+        };
+    }
+
+    private static string Name(string label) => label.Length > 0 ? label : "(unlabelled)";
+
+    private ResolvedSpecies BuildOne(SpeciesInput sp, IEnumerable<CalcInput> calcs, CalcInput? preferred, string state)
+    {
+        var reasons = new List<ConsistencyReason>();
 
         var energy = EnergyCalculation(calcs, _energyKey, _energyGeometryKey, preferred);
         if (energy is null)

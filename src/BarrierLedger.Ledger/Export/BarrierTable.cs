@@ -93,6 +93,7 @@ public sealed record BarrierTable(
             var marks = new List<string>();
             if (!r.IsVerified) marks.Add(MarkFor(footnotes, UnverifiedText(r)));
             if (!r.IsConsistent) marks.Add(MarkFor(footnotes, $"{r.Reaction}: the barrier breaks a consistency rule: {string.Join("; ", r.ConsistencyProblems.Select(p => p.TrimEnd('.')))}."));
+            foreach (var caution in r.Cautions) marks.Add(MarkFor(footnotes, $"{r.Reaction}: {caution}"));
             if (r.RateConstantUnit != "s⁻¹" && r.RateConstant is not null && options.Columns.Contains(ExportColumn.RateConstant))
                 marks.Add(MarkFor(footnotes, $"k of a step with more than one molecule is in {r.RateConstantUnit} (standard state {source.Model.StandardStateText})."));
             rows.Add(new TableRow([.. layout.Select(x => x.Interval ? IntervalCell(r, x.Column, uncertainty, source.Model.TemperatureKelvin) : Cell(r, x.Column, options))], marks));

@@ -68,7 +68,7 @@ public static class DiagramExport
             if (inconsistentMark is not null) m.Add(inconsistentMark);
             if (m.Count > 0) marks[i] = string.Join(",", m);
         }
-        var lines = source.Model.Lines(unit).Take(3).Append($"{source.Quantity} relative to {source.States[0].Label}, in {Energy.Symbol(unit)}").ToList();
+        var lines = source.Model.Lines(unit).Take(4).Append($"{source.Quantity} relative to {source.States[0].Label}, in {Energy.Symbol(unit)}").ToList();
         return new DiagramText(source.Reaction, lines, marks, footnotes, ExportCaution.Text);
     }
 }

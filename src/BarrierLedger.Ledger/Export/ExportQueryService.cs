@@ -36,7 +36,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
         var distinct = levels.SelectMany(l => l.Split("; ", StringSplitOptions.RemoveEmptyEntries)).Distinct(StringComparer.OrdinalIgnoreCase).ToList();
         var level = distinct.Count > 0 ? string.Join("; ", distinct) : m.EnergyLevel.Length > 0 ? m.EnergyLevel : "each state's own calculation";
         return new ExportModel(level, m.TemperatureKelvin, m.StandardState, m.Treatment, m.QuasiRrhoCutoffCm1,
-            m.Tunnelling == TunnellingCorrection.Wigner ? "Wigner" : "none", m.Uncertainty);
+            m.Tunnelling == TunnellingCorrection.Wigner ? "Wigner" : "none", m.Uncertainty) { Conformers = m.Conformers };
     }
 
     /// <summary>
@@ -70,8 +70,11 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
                 continue;
             }
             var steps = DerivedJson.Read<List<DerivedStep>>(r.Derivation.StepsJson);
-            var problems = DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson).Where(c => c.Blocking).Select(c => c.Message).ToList();
+            var stored = DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson);
+            var problems = stored.Where(c => c.Blocking).Select(c => c.Message).ToList();
             if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
+            // The conformer checks (issue 21) do not block a barrier but can mislead: every row of the reaction footnotes them.
+            var cautions = stored.Where(c => !c.Blocking && c.Code.StartsWith("conformers.", StringComparison.Ordinal)).Select(c => c.Message).ToList();
             foreach (var s in steps)
             {
                 var calcId = r.States.FirstOrDefault(x => x.Position == s.SaddlePosition)?.SaddleCalculationId;
@@ -80,7 +83,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
                     H(s.BarrierEHartree), H(s.BarrierHHartree), H(s.BarrierGHartree), H(s.ReactionGHartree),
                     s.RateConstant, s.HalfLifeSeconds, s.ImaginaryCm1, verdict, reasons,
                     calcId is { } id && reviews.TryGetValue(id, out var rv) ? rv : ReviewState.AwaitingReview,
-                    r.Derivation.LevelOfTheory, problems, s.RateConstantUnit));
+                    r.Derivation.LevelOfTheory, problems, s.RateConstantUnit) { Cautions = cautions });
             }
         }
         var model = await ModelAsync(db, studyId, reactions.Where(r => r.Derivation is not null).Select(r => r.Derivation!.LevelOfTheory), ct);
@@ -155,12 +158,13 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
             foreach (var id in alone)
             {
                 if (!inputs.Species.TryGetValue(id, out var sp)) continue;
-                var rs = resolver.Resolve(sp, null, sp.Label);
-                if (rs.Record is not { } record) continue;
-                var thermal = Core.Pathways.PathwayEnergies.ThermalCorrectionOf(record, resolver.CoreModel, out _);
+                var all = resolver.Resolve(sp, null, sp.Label);
+                if (all.Record is null) continue;
+                var term = Core.Pathways.PathwayEnergies.SpeciesEnergies(all.Record, resolver.CoreModel, out _);
+                var (rs, record, thermal) = (all.Of(term.Conformer?.Lowest), term.Species, term.Species.Thermal);
                 used[id] = [new DerivedTerm(id, sp.Label, 1, rs.Energy!.Id, record.ElectronicEnergy.Hartree, record.ElectronicLevel.ToString(),
                     rs.ThermalUsed(thermal)?.Id, thermal?.ZeroPoint.Hartree, thermal?.Enthalpy.Hartree, thermal?.Gibbs.Hartree, thermal?.Source,
-                    record.PointGroup, record.SymmetryNumber)];
+                    record.PointGroup, record.SymmetryNumber, term.Conformer?.Description)];
             }
         }
 

@@ -23,6 +23,12 @@ public sealed record ExportModel(
     string Tunnelling = "none",
     Kinetics.EnergyUncertainty? Uncertainty = null)
 {
+    /// <summary>How species with several conformers entered the numbers (the energy model's choice).</summary>
+    public Core.Conformers.ConformerChoice Conformers { get; init; } = Core.Conformers.ConformerChoice.Lowest;
+
+    /// <summary>"Conformers: lowest conformer of each species (by G)" or the ensemble with its formula.</summary>
+    public string ConformerLine => "Conformers: " + Core.Conformers.ConformerChoiceText.Sentence(Conformers)["conformers: ".Length..];
+
     /// <summary>"1 mol/L", "1 atm", "1 bar".</summary>
     public string StandardStateText => StandardState switch
     {
@@ -44,6 +50,7 @@ public sealed record ExportModel(
         $"Level of theory (single point // geometry): {LevelOfTheory}",
         $"Temperature: {TemperatureKelvin:0.##} K; standard state: {StandardStateText}",
         $"Thermochemistry: {TreatmentText}; tunnelling: {Tunnelling}" + (TreatmentReference.Length == 0 ? "" : $" ({TreatmentReference})"),
+        ConformerLine,
         $"Energies in {Energy.Symbol(unit)}; k in s⁻¹ (first order; a second-order k is marked); t½ in s; imaginary frequency in cm⁻¹",
         $"Rate intervals: central 95 % from the energy uncertainty; {UncertaintyText}",
     ];
@@ -112,6 +119,12 @@ public sealed record BarrierRow(
 {
     public bool IsVerified => Review == ReviewState.Verified;
     public bool IsConsistent => ConsistencyProblems.Count == 0;
+
+    /// <summary>
+    /// Reasons that do not make the barrier inconsistent but can mislead a reader, each footnoted (the conformer checks: a lower
+    /// conformer than the one used, an unchecked saddle-point conformer nearby, duplicates counted twice in a Boltzmann sum).
+    /// </summary>
+    public IReadOnlyList<string> Cautions { get; init; } = [];
 }
 
 /// <summary>What a barrier table is made from: a study, its energy model and its rows.</summary>

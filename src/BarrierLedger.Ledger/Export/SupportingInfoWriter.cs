@@ -34,6 +34,7 @@ public static class SupportingInfoWriter
         sb.Append($"Supporting information: Cartesian coordinates and energies\n");
         sb.Append($"Study: {study}\n");
         sb.Append($"Thermal corrections at {F(model.TemperatureKelvin, 2)} K, standard state {model.StandardStateText}, {model.TreatmentText}.\n");
+        sb.Append($"{model.ConformerLine}.\n");
         sb.Append("Energies in hartree (Eh) per molecule; coordinates in Å; imaginary frequencies in cm⁻¹.\n");
         sb.Append($"{structures.Count} structure{(structures.Count == 1 ? "" : "s")}.\n");
         foreach (var s in structures)

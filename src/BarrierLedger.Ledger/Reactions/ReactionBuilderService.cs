@@ -246,11 +246,11 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
         var study = await db.Studies.AsNoTracking().Where(s => s.Id == studyId).Select(s => new { s.Name, s.Retired }).FirstOrDefaultAsync(ct);
         if (study is null) problems.Add(new(null, $"there is no study {studyId}"));
         else if (study.Retired) problems.Add(new(null, $"study '{study.Name}' is retired; restore it before adding to it"));
-        if (RecordService.LabelProblem(d.Label, "reaction label") is { } lp) problems.Add(new(null, lp));
+        if (Core.Text.TextRules.LabelProblem(d.Label, "reaction label") is { } lp) problems.Add(new(null, lp));
         else if (await db.Reactions.AnyAsync(x => x.StudyId == studyId && !x.Retired && x.Label == d.Label.Trim() && x.Id != (reactionId ?? 0), ct))
             problems.Add(new(null, $"the study already has a reaction labelled '{d.Label.Trim()}'; give this one another label"));
         for (var i = 0; i < d.States.Count; i++)
-            if (!string.IsNullOrWhiteSpace(d.States[i].Label) && RecordService.LabelProblem(d.States[i].Label, "state label") is { } sp) problems.Add(new(i, sp));
+            if (!string.IsNullOrWhiteSpace(d.States[i].Label) && Core.Text.TextRules.LabelProblem(d.States[i].Label, "state label") is { } sp) problems.Add(new(i, sp));
 
         var speciesIds = d.States.SelectMany(s => s.Terms).Select(t => t.SpeciesId).Distinct().ToList();
         var species = await db.Species.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.Id) && s.StudyId == studyId)

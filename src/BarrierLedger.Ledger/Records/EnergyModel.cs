@@ -37,6 +37,8 @@ public class EnergyModel : IVersioned
     public double? UncertaintyKcalPerMol { get; set; } = 2.0;
     /// <summary>σ per level of theory, one "level = σ" line each.</summary>
     public string UncertaintyByLevel { get; set; } = "";
+    /// <summary>How a species with several conformers enters the energies: its lowest conformer, or the Boltzmann-weighted ensemble.</summary>
+    public BarrierLedger.Core.Conformers.ConformerChoice Conformers { get; set; } = BarrierLedger.Core.Conformers.ConformerChoice.Lowest;
     public DateTimeOffset UpdatedAt { get; set; }
     public string UpdatedByUserId { get; set; } = "";
     public long Version { get; set; }

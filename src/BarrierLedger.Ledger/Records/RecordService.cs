@@ -103,7 +103,7 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
     public async Task<int> CreateSpeciesAsync(int studyId, string label, int charge, int multiplicity, string description, string userId, CancellationToken ct = default)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(userId);
-        if (LabelProblem(label, "species label") is { } problem) throw new ArgumentException(problem, nameof(label));
+        if (Core.Text.TextRules.LabelProblem(label, "species label") is { } problem) throw new ArgumentException(problem, nameof(label));
         if (multiplicity < 1) throw new ArgumentException($"the multiplicity (2S+1) must be 1 or more (got {multiplicity})", nameof(multiplicity));
         return await LedgerRetry.RunAsync(async token =>
         {
@@ -130,7 +130,7 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
     public Task<EditResult> EditSpeciesDetailsAsync(int id, string label, string description, long expectedVersion, string userId, CancellationToken ct = default) =>
         EditAsync<Species>(id, expectedVersion, userId, async (db, s, token) =>
         {
-            if (LabelProblem(label, "species label") is { } problem) return [problem];
+            if (Core.Text.TextRules.LabelProblem(label, "species label") is { } problem) return [problem];
             var trimmed = label.Trim();
             if (trimmed != s.Label && await db.Species.AnyAsync(x => x.StudyId == s.StudyId && x.Label == trimmed && x.Id != s.Id, token))
                 return [$"the study already has a species labelled '{trimmed}'"];
@@ -151,7 +151,7 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
         return EditAsync<Calculation>(id, expectedVersion, userId, async (db, c, token) =>
         {
             var errors = new List<string>();
-            if (LabelProblem(label, "calculation label") is { } problem) errors.Add(problem);
+            if (Core.Text.TextRules.LabelProblem(label, "calculation label") is { } problem) errors.Add(problem);
             if (!Enum.IsDefined(kind)) errors.Add($"'{kind}' is not a kind of calculation");
             if (!Core.Chemistry.LevelOfTheory.TryParse(levelOfTheory, out var level, out var why)) errors.Add($"level of theory: {why}");
             if (kind != CalculationKind.SaddlePoint && c.Kind == CalculationKind.SaddlePoint)
@@ -172,9 +172,6 @@ public sealed class RecordService(IDbContextFactory<LedgerDbContext> factory, De
         }, c => ("calculation.edited", $"Calculation now '{c.Label}': {c.Kind.Words()} at {c.LevelOfTheory}" + (c.Note.Length > 0 ? $"; note: {c.Note}" : ".")), ct,
         _ => inputsChanged);
     }
-
-    /// <summary>What is wrong with a label a person typed, or null (the one rule of <see cref="Core.Text.TextRules"/>).</summary>
-    internal static string? LabelProblem(string? label, string what) => Core.Text.TextRules.LabelProblem(label, what);
 
     public Task<EditResult> RetireAsync(RecordKind kind, int id, long expectedVersion, string userId, string reason, CancellationToken ct = default) =>
         SetRetiredAsync(kind, id, expectedVersion, userId, true, reason, ct);

@@ -49,6 +49,19 @@ public sealed record ReviewQueueItem(
 /// <summary>One page of the review queue and the number of saddle points waiting in all.</summary>
 public sealed record ReviewQueueSlice(IReadOnlyList<ReviewQueueItem> Items, int Total);
 
+/// <summary>
+/// The decision a reviewer makes is based on what they saw: <see cref="Waiting"/> (the saddle point had no decision, or was
+/// reopened) or the exact latest review they saw. If another reviewer decided in between, nothing is recorded.
+/// </summary>
+public sealed record ReviewBasis(bool Exact, int? LatestReviewId)
+{
+    public static ReviewBasis Waiting { get; } = new(false, null);
+    public static ReviewBasis Seen(int? latestReviewId) => new(true, latestReviewId);
+}
+
+/// <summary>Someone else decided the saddle point after the reviewer's screen was drawn; nothing was recorded.</summary>
+public sealed class ReviewConflictException(string message) : InvalidOperationException(message);
+
 /// <summary>A refusal because the user is not a reviewer (the page hides the controls too; this is the server's own check).</summary>
 public sealed class ReviewerRequiredException(string message) : UnauthorizedAccessException(message);
 
@@ -114,14 +127,16 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
     /// Signs off a saddle-point calculation. Throws <see cref="ReviewerRequiredException"/> for a non-reviewer, and
     /// <see cref="ArgumentException"/> when the saddle point failed its check and no comment says why it is accepted anyway.
     /// </summary>
-    public Task<ReviewEntry> VerifyAsync(int calculationId, string reviewerUserId, string? comment, CancellationToken ct = default) =>
-        DecideAsync(calculationId, reviewerUserId, comment ?? "", ReviewOutcome.Verified, ct);
+    /// <param name="basis">What the reviewer saw; if the saddle point changed since, <see cref="ReviewConflictException"/> and nothing is
+    /// recorded. Null only for callers that decide without a screen (tests, tools).</param>
+    public Task<ReviewEntry> VerifyAsync(int calculationId, string reviewerUserId, string? comment, ReviewBasis? basis = null, CancellationToken ct = default) =>
+        DecideAsync(calculationId, reviewerUserId, comment ?? "", ReviewOutcome.Verified, basis, ct);
 
     /// <summary>Returns a saddle-point calculation to its owner with a comment (required: the owner must learn what to fix).</summary>
-    public Task<ReviewEntry> ReturnAsync(int calculationId, string reviewerUserId, string comment, CancellationToken ct = default)
+    public Task<ReviewEntry> ReturnAsync(int calculationId, string reviewerUserId, string comment, ReviewBasis? basis = null, CancellationToken ct = default)
     {
         if (string.IsNullOrWhiteSpace(comment)) throw new ArgumentException("Say why the saddle point is returned, so its owner knows what to fix.", nameof(comment));
-        return DecideAsync(calculationId, reviewerUserId, comment, ReviewOutcome.Returned, ct);
+        return DecideAsync(calculationId, reviewerUserId, comment, ReviewOutcome.Returned, basis, ct);
     }
 
     /// <summary>Whether the user holds the Reviewer role (read from the store, not from a cookie).</summary>
@@ -132,9 +147,9 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
     }
 
     private static Task<bool> IsReviewerAsync(LedgerDbContext db, string userId, CancellationToken ct) =>
-        db.UserRoles.AnyAsync(ur => ur.UserId == userId && db.Roles.Any(r => r.Id == ur.RoleId && r.Name == Roles.Reviewer), ct);
+        db.UserRoles.AnyAsync(ur => ur.UserId == userId && db.Roles.Any(r => r.Id == ur.RoleId && EF.Parameter(Roles.MayReview).Contains(r.Name!)), ct);
 
-    private async Task<ReviewEntry> DecideAsync(int calculationId, string reviewerUserId, string comment, ReviewOutcome outcome, CancellationToken ct)
+    private async Task<ReviewEntry> DecideAsync(int calculationId, string reviewerUserId, string comment, ReviewOutcome outcome, ReviewBasis? basis, CancellationToken ct)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(reviewerUserId);
         return await LedgerRetry.RunAsync(async token =>
@@ -151,11 +166,25 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
             if (outcome == ReviewOutcome.Verified && string.IsNullOrWhiteSpace(comment)
                 && await db.FrequencyChecks.AnyAsync(c => c.CalculationId == calculationId && c.Verdict == Verdict.Failed, token))
                 throw new ArgumentException($"Saddle point '{calc.Label}' failed its frequency check; verifying it needs a comment that says why it is accepted anyway.", nameof(comment));
-            var previous = await db.Reviews.Where(v => v.CalculationId == calculationId).OrderByDescending(v => v.Id).Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefaultAsync(token);
+            // Self-review (docs/ledger.md, "Who reviews"): verifying a saddle point one uploaded oneself needs a comment saying why
+            // no other reviewer checked it; the history and audit then call it a self-review.
+            var selfReview = outcome == ReviewOutcome.Verified && calc.UploadedByUserId == reviewerUserId;
+            if (selfReview && string.IsNullOrWhiteSpace(comment))
+                throw new ArgumentException($"You uploaded saddle point '{calc.Label}' yourself; verifying your own work needs a comment that says why no other reviewer checked it.", nameof(comment));
+            var latest = await db.Reviews.Where(v => v.CalculationId == calculationId).OrderByDescending(v => v.Id)
+                .Select(v => new { v.Id, v.Outcome, v.ReviewerUserId, v.At }).FirstOrDefaultAsync(token);
+            var previous = (ReviewOutcome?)latest?.Outcome;
+            if (basis is not null && (basis.Exact ? latest?.Id != basis.LatestReviewId : previous is not (null or ReviewOutcome.Reopened)))
+            {
+                var who = latest is null ? "someone" : await db.Users.Where(u => u.Id == latest.ReviewerUserId).Select(u => u.DisplayName ?? u.UserName).FirstOrDefaultAsync(token) ?? latest.ReviewerUserId;
+                throw new ReviewConflictException(latest is null
+                    ? $"Saddle point '{calc.Label}' changed while you were deciding; nothing was recorded. Reload to see it as it is now."
+                    : $"Saddle point '{calc.Label}' was {ReviewStatusText.Of(ReviewStatusText.FromLatest(latest.Outcome)).ToLowerInvariant()} by {who} at {latest.At:yyyy-MM-dd HH:mm} UTC while you were deciding; nothing was recorded. Reload to see it as it is now.");
+            }
             var review = new Review { CalculationId = calculationId, Outcome = outcome, Comment = comment.Trim(), ReviewerUserId = reviewerUserId, At = time.GetUtcNow() };
             db.Reviews.Add(review);
             audit.Record(db, reviewerUserId, outcome == ReviewOutcome.Verified ? "review.verified" : "review.returned", nameof(Calculation), calculationId,
-                $"Saddle point '{calc.Label}' {(outcome == ReviewOutcome.Verified ? "verified" : "returned")}" + (comment.Length > 0 ? $": {comment.Trim()}" : "."),
+                $"Saddle point '{calc.Label}' {(outcome == ReviewOutcome.Verified ? selfReview ? "verified by its own uploader (self-review)" : "verified" : "returned")}" + (comment.Length > 0 ? $": {comment.Trim()}" : "."),
                 before: ReviewStatusText.Of(ReviewStatusText.FromLatest(previous)), after: ReviewStatusText.Of(ReviewStatusText.FromLatest(outcome)));
             await db.SaveChangesAsync(token);
             await ReactionStatusSummary.RefreshForCalculationsAsync(db, [calculationId], token);

@@ -95,7 +95,7 @@ public static class ApiPolicies
     {
         auth.AddPolicy(Read, p => Scope(p, TokenScopes.Read));
         auth.AddPolicy(Upload, p => Scope(p, TokenScopes.Upload));
-        auth.AddPolicy(Review, p => Scope(p, TokenScopes.Upload).RequireRole(Roles.Reviewer, Roles.Admin));
+        auth.AddPolicy(Review, p => Scope(p, TokenScopes.Upload).RequireRole(Roles.MayReview));
     }
 
     private static Microsoft.AspNetCore.Authorization.AuthorizationPolicyBuilder Scope(Microsoft.AspNetCore.Authorization.AuthorizationPolicyBuilder p, string needed) =>
@@ -110,7 +110,7 @@ public static class ApiPolicies
         {
             Read => new ApiAccess(TokenScopes.Read, []),
             Upload => new ApiAccess(TokenScopes.Upload, []),
-            Review => new ApiAccess(TokenScopes.Upload, [Roles.Reviewer, Roles.Admin]),
+            Review => new ApiAccess(TokenScopes.Upload, Roles.MayReview),
             _ => throw new ArgumentException($"Unknown API policy '{policy}'.", nameof(policy)),
         };
         return builder.RequireAuthorization(policy).WithMetadata(access);

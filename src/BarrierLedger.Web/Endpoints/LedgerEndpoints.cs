@@ -33,7 +33,9 @@ public sealed record ApiReaction(int Id, string Label, string Description, int S
     IReadOnlyList<ConsistencyReason> ConsistencyReasons, IReadOnlyList<ApiState> States, IReadOnlyList<DerivedState> StateEnergies,
     IReadOnlyList<DerivedStep> Steps, IReadOnlyList<ApiSaddleCheck> SaddleChecks, IReadOnlyList<ApiScan> Scans);
 
-public sealed record ApiReviewRequest(string? Comment);
+/// <param name="Comment">Why (required to return, and to verify a saddle point that failed its check or that you uploaded yourself).</param>
+/// <param name="BasedOnReviewId">The latest review id you saw; without it the saddle point must still be waiting. Decided meanwhile: 409.</param>
+public sealed record ApiReviewRequest(string? Comment, int? BasedOnReviewId = null);
 
 /// <summary>Studies, ledger rows (JSON or CSV), reaction detail, and a reviewer's verify/return.</summary>
 internal static class LedgerEndpoints
@@ -52,21 +54,28 @@ internal static class LedgerEndpoints
             .WithName("GetReaction").WithSummary("One reaction: states, energies, steps, saddle-point checks and scans");
 
         api.MapPost("/reviews/{calculationId:int}/verify", (int calculationId, ApiReviewRequest? body, ReviewService reviews, ClaimsPrincipal user, CancellationToken ct) =>
-                DecideAsync(() => reviews.VerifyAsync(calculationId, user.FindFirstValue(ClaimTypes.NameIdentifier)!, body?.Comment, ct)))
+                DecideAsync(() => reviews.VerifyAsync(calculationId, user.FindFirstValue(ClaimTypes.NameIdentifier)!, body?.Comment, Basis(body), ct)))
             .RequireApi(ApiPolicies.Review).ProducesProblem(StatusCodes.Status403Forbidden).WithName("VerifySaddlePoint")
             .WithSummary("Sign off a saddle-point calculation (Reviewer role, upload scope)");
 
         api.MapPost("/reviews/{calculationId:int}/return", (int calculationId, ApiReviewRequest body, ReviewService reviews, ClaimsPrincipal user, CancellationToken ct) =>
-                DecideAsync(() => reviews.ReturnAsync(calculationId, user.FindFirstValue(ClaimTypes.NameIdentifier)!, body.Comment ?? "", ct)))
+                DecideAsync(() => reviews.ReturnAsync(calculationId, user.FindFirstValue(ClaimTypes.NameIdentifier)!, body.Comment ?? "", Basis(body), ct)))
             .RequireApi(ApiPolicies.Review).ProducesProblem(StatusCodes.Status403Forbidden).WithName("ReturnSaddlePoint")
             .WithSummary("Return a saddle-point calculation to its owner with a comment (Reviewer role, upload scope)");
     }
+
+    private static ReviewBasis Basis(ApiReviewRequest? body) =>
+        body?.BasedOnReviewId is { } id ? ReviewBasis.Seen(id) : ReviewBasis.Waiting;
 
     private static async Task<IResult> DecideAsync(Func<Task<ReviewEntry>> decide)
     {
         try
         {
             return TypedResults.Ok(await decide());
+        }
+        catch (ReviewConflictException e)
+        {
+            return ApiProblems.Problem(StatusCodes.Status409Conflict, "review-conflict", "Decided meanwhile", e.Message);
         }
         catch (ReviewerRequiredException e)
         {

@@ -36,7 +36,7 @@ public sealed class DemoImportTests
 
         var page = await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId);
         var rows = page.Rows.ToDictionary(r => r.Label);
-        Assert.Equal(6, rows.Count);
+        Assert.Equal(7, rows.Count);
         // A two-step pathway whose spectator species (fluoride, iodide, chloride) must each keep their own energy:
         // before the fix the saddle point's energy was used for every species of its state (a barrier of −697 Eh).
         Assert.True(rows["IX"].Consistent, string.Join(" ", rows["IX"].ConsistencyReasons.Select(r => r.Message)));
@@ -51,5 +51,13 @@ public sealed class DemoImportTests
         // KE mixes a geometry protocol on purpose (vinyl alcohol at another level): it must be marked, never silently used.
         Assert.False(rows["KE"].Consistent);
         Assert.NotEmpty(rows["KE"].ConsistencyReasons);
+
+        // The demo IRCs reach the check through the upload: KE's connects both sides, EO's lands on vinyl alcohol (KE), not oxirane.
+        foreach (var (label, connection, verdict) in new[] { ("KE", "BothSides", Core.Checks.Verdict.Passed), ("EO", "OneSide", Core.Checks.Verdict.Failed) })
+        {
+            var check = (await ledger.Get<ReactionQueryService>().GetReactionAsync(rows[label].ReactionId))!.SaddleChecks.Single();
+            Assert.Equal(connection, check.Evidence!.Connection!.Connection);
+            Assert.Equal(verdict, check.Verdict);
+        }
     }
 }

@@ -60,4 +60,13 @@ public class DiagramDataTests
         var ex = Assert.Throws<ArgumentException>(() => DiagramData.FromStates(s_states, "ΔS", out _));
         Assert.Contains("ΔG, ΔH or ΔE", ex.Message);
     }
+
+    /// <summary>When no state has a value the cause is the pathway, not missing frequencies (the demo's KE under its study's model).</summary>
+    [Fact]
+    public void MissingReason_NamesThePathway_WhenEveryStateLacksTheQuantity()
+    {
+        Assert.Contains("could not be formed", DiagramData.MissingReason(DiagramData.Gibbs, 3, 3));
+        Assert.Equal("no thermal corrections (no frequencies or program corrections)", DiagramData.MissingReason(DiagramData.Gibbs, 1, 3));
+        Assert.Equal("no electronic energy", DiagramData.MissingReason(DiagramData.Electronic, 1, 3));
+    }
 }

@@ -23,7 +23,7 @@ public sealed class AccessMatrixTests(ITestOutputHelper output)
         Anyone,           // sign-in page, error pages, /health, the OpenAPI document
         SignedIn,         // every page a member uses
         SignedInOrToken,  // file downloads: a browser sign-in or a token of either scope (scripts fetch files too)
-        ReviewerOrAdmin,  // the review queue
+        Reviewer,         // the review queue (docs/ledger.md, "Who reviews": the Reviewer role; Admin alone does not review)
         Admin,            // accounts page, backup download
         ApiRead,          // a token of either scope
         ApiUpload,        // an upload token
@@ -45,7 +45,7 @@ public sealed class AccessMatrixTests(ITestOutputHelper output)
         ["GET /profile/tokens"] = Rule.SignedIn,
         ["GET /reactions/{Id:int}"] = Rule.SignedIn,
         ["GET /reactions/{ReactionId:int}/edit"] = Rule.SignedIn,
-        ["GET /review"] = Rule.ReviewerOrAdmin,
+        ["GET /review"] = Rule.Reviewer,
         ["GET /settings"] = Rule.SignedIn,
         ["GET /species/{Id:int}"] = Rule.SignedIn,
         ["GET /studies"] = Rule.SignedIn,
@@ -140,7 +140,7 @@ public sealed class AccessMatrixTests(ITestOutputHelper output)
             new("signed out", null, null, false, false, false, null),
             new("member", memberSession, null, true, false, false, null),
             new("reviewer", reviewerSession, null, true, true, false, null),
-            new("admin", adminSession, null, true, true, true, null),
+            new("admin", adminSession, null, true, false, true, null), // an admin without the Reviewer role
             new("member read token", null, await host.CreateTokenAsync(member, TokenScopes.Read), false, false, false, TokenScopes.Read),
             new("member upload token", null, await host.CreateTokenAsync(member, TokenScopes.Upload), false, false, false, TokenScopes.Upload),
             new("reviewer upload token", null, await host.CreateTokenAsync(reviewer, TokenScopes.Upload), false, true, false, TokenScopes.Upload),
@@ -171,7 +171,7 @@ public sealed class AccessMatrixTests(ITestOutputHelper output)
         Rule.Anyone => true,
         Rule.SignedIn => a.Signed,
         Rule.SignedInOrToken => a.Signed || a.Scope is not null,
-        Rule.ReviewerOrAdmin => a.Signed && a.Reviewer,
+        Rule.Reviewer => a.Signed && a.Reviewer,
         Rule.Admin => a.Signed && a.Admin,
         Rule.ApiRead => a.Scope is not null,
         Rule.ApiUpload => a.Scope == TokenScopes.Upload,

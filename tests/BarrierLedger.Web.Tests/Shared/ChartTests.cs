@@ -30,6 +30,22 @@ public class ChartTests
         Assert.Equal(["A + B<br>0.0", "TS1<br>21.3", "P<br>\u22127.9"], byName["labels"].TextArray);
     }
 
+    /// <summary>Issue 19, finding 9: a state label holding markup became a clickable link in the chart.</summary>
+    [Fact]
+    public void DiagramTraces_ShowMarkupInALabelAsText_NeverAsALinkOrFormatting()
+    {
+        DiagramState[] states =
+        [
+            new("<a href=\"https://example.invalid/x\">R</a>", Energy.Zero, false),
+            new("TS <b>1</b> & co", Energy.FromKcalPerMol(10), true),
+            new("Ç‡", Energy.FromKcalPerMol(-2), false),
+        ];
+        var labels = EnergyDiagramTraces.Build(EnergyDiagram.Layout(states, "ΔG", EnergyUnit.KcalPerMol)).OfType<Scatter>().Single(t => t.Name == "labels").TextArray;
+
+        Assert.Equal(["&lt;a href=\"https://example.invalid/x\"&gt;R&lt;/a&gt;<br>0.0", "TS &lt;b&gt;1&lt;/b&gt; &amp; co<br>10.0", "Ç‡<br>\u22122.0"], labels);
+        Assert.Equal("&lt;a&gt; title", EnergyDiagramTraces.BuildLayout(EnergyDiagram.Layout(states, "ΔG", EnergyUnit.KcalPerMol), "<a> title").Title.Text);
+    }
+
     [Fact]
     public void DiagramChart_RendersAFigureWithTextAlternative()
     {

@@ -66,7 +66,9 @@ public sealed class ConformerTableTests
         Assert.Equal("duplicate of c1", Row(cut, "c4").QuerySelector("[data-testid=conformer-marks]")!.TextContent.Trim());
         Assert.Equal("mirror image of c3", Row(cut, "c2").QuerySelector("[data-testid=conformer-marks]")!.TextContent.Trim());
         Assert.Equal("mirror image of c2", Row(cut, "c3").QuerySelector("[data-testid=conformer-marks]")!.TextContent.Trim());
-        Assert.Equal("", Row(cut, "c1").QuerySelector("[data-testid=conformer-marks]")!.TextContent.Trim());
+        // The default model takes the lowest conformer (c1 and its duplicate c4 tie; the first listed is taken), by E here: no frequencies.
+        Assert.Equal("used", Row(cut, "c1").QuerySelector("[data-testid=conformer-marks]")!.TextContent.Trim());
+        Assert.Contains("The model uses: conformer c1 (lowest of 4)", cut.Find("[data-testid=conformer-basis]").TextContent);
         Assert.Contains("4 conformers, 1 duplicate, 1 mirror-image pair", cut.Find("[data-testid=conformer-summary]").TextContent);
         Assert.Equal("butane-c2", Row(cut, "c2").Children[3].TextContent);
     }

@@ -362,6 +362,9 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
 
+                    b.Property<int>("Conformers")
+                        .HasColumnType("integer");
+
                     b.Property<string>("DisplayUnit")
                         .IsRequired()
                         .HasMaxLength(20)

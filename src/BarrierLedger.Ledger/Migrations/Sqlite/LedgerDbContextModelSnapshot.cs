@@ -318,6 +318,9 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                         .ValueGeneratedOnAdd()
                         .HasColumnType("INTEGER");
 
+                    b.Property<int>("Conformers")
+                        .HasColumnType("INTEGER");
+
                     b.Property<string>("DisplayUnit")
                         .IsRequired()
                         .HasMaxLength(20)

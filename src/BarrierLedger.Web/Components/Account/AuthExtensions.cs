@@ -103,7 +103,7 @@ public static class Policies
     /// <summary>The roles that satisfy a policy: one rule for the cookie check, the API and the store check of an open page.</summary>
     public static string[] RolesFor(string policy) => policy switch
     {
-        Reviewer => [Roles.Reviewer, Roles.Admin],
+        Reviewer => Roles.MayReview,
         Admin => [Roles.Admin],
         _ => throw new ArgumentException($"Unknown policy '{policy}'.", nameof(policy)),
     };

@@ -17,6 +17,15 @@ public static class DiagramData
     /// marked. When any state lacks the quantity, no level at all and <paramref name="missing"/> names those states: a diagram
     /// with a silent gap would read as a different pathway.
     /// </summary>
+    /// <summary>
+    /// Why the diagram lacks <paramref name="missing"/> of <paramref name="total"/> states. When none has a value the pathway
+    /// had no energies to compare (a state without an energy at the model's level empties them all), not a lack of frequencies.
+    /// </summary>
+    public static string MissingReason(string quantity, int missing, int total) =>
+        missing >= total
+            ? "the pathway's energies could not be formed under the model in force; the consistency rule above says why"
+            : quantity == Electronic ? "no electronic energy" : "no thermal corrections (no frequencies or program corrections)";
+
     public static IReadOnlyList<DiagramState> FromStates(IEnumerable<DerivedState> states, string quantity, out IReadOnlyList<string> missing)
     {
         var lacking = new List<string>();

@@ -20,7 +20,7 @@ public static class ConcentrationTraces
             var index = i;
             traces.Add(new Scatter
             {
-                Name = result.Species[i],
+                Name = ChartText.Plain(result.Species[i]),
                 Mode = ModeFlag.Lines,
                 X = points.Select(p => (object)p.TimeSeconds).ToList(),
                 Y = points.Select(p => (object)Math.Max(0.0, p.MolPerL[index])).ToList(),
@@ -32,7 +32,7 @@ public static class ConcentrationTraces
 
     public static Plotly.Blazor.Layout BuildLayout(string title, bool logTime) => new()
     {
-        Title = new Title { Text = title },
+        Title = new Title { Text = ChartText.Plain(title) },
         Height = 380,
         Margin = new Margin { L = 72, R = 16, T = 48, B = 56 },
         XAxis = [new XAxis

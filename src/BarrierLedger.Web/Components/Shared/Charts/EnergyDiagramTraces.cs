@@ -38,7 +38,7 @@ public static class EnergyDiagramTraces
             {
                 x.AddRange([l.X0, l.X1, null]);
                 y.AddRange([l.Y, l.Y, null]);
-                var text = $"{l.Label}: {l.ValueText} {layout.YAxisTitle}";
+                var text = $"{ChartText.Plain(l.Label)}: {l.ValueText} {layout.YAxisTitle}";
                 hover.AddRange([text, text, ""]);
             }
             if (x.Count == 0) continue;
@@ -54,7 +54,7 @@ public static class EnergyDiagramTraces
             Name = "labels", Mode = ModeFlag.Text, ShowLegend = false, HoverInfo = HoverInfoFlag.Skip,
             X = layout.Levels.Select(l => (object)l.XCentre).ToList(),
             Y = layout.Levels.Select(l => (object)l.Y).ToList(),
-            TextArray = layout.Levels.Select(l => $"{l.Label}<br>{l.ValueText}").ToList(),
+            TextArray = layout.Levels.Select(l => $"{ChartText.Plain(l.Label)}<br>{l.ValueText}").ToList(),
             TextPosition = TextPositionEnum.TopCenter,
         });
         return traces;
@@ -62,7 +62,7 @@ public static class EnergyDiagramTraces
 
     public static Plotly.Blazor.Layout BuildLayout(EnergyDiagramLayout layout, string title) => new()
     {
-        Title = new Title { Text = title },
+        Title = new Title { Text = ChartText.Plain(title) },
         ShowLegend = true,
         Height = 380,
         Margin = new Margin { L = 64, R = 16, T = 48, B = 32 },

@@ -60,7 +60,7 @@ public static class IrcTraces
             {
                 Name = "ends", Mode = ModeFlag.Markers | ModeFlag.Text,
                 X = ends.Select(e => (object)x[e.Index]).ToList(), Y = ends.Select(e => (object)y[e.Index]!.Value).ToList(),
-                TextArray = ends.Select(e => EndLabel(e.Name, evidence)).ToList(), TextPosition = TextPositionEnum.TopCenter,
+                TextArray = ends.Select(e => ChartText.Plain(EndLabel(e.Name, evidence))).ToList(), TextPosition = TextPositionEnum.TopCenter,
                 HoverTextArray = ends.Select(e => At(e.Index)).ToList(), HoverInfo = HoverInfoFlag.Text,
                 Marker = new Marker { Color = "#1d3b53", Size = 10, Symbol = Plotly.Blazor.Traces.ScatterLib.MarkerLib.SymbolEnum.Square },
             });
@@ -78,7 +78,7 @@ public static class IrcTraces
 
     public static Plotly.Blazor.Layout BuildLayout(IrcView irc) => new()
     {
-        Title = new Title { Text = $"IRC {irc.Label} ({irc.LevelOfTheory})" },
+        Title = new Title { Text = ChartText.Plain($"IRC {irc.Label} ({irc.LevelOfTheory})") },
         Height = 340,
         ShowLegend = false,
         Margin = new Margin { L = 64, R = 24, T = 48, B = 48 },

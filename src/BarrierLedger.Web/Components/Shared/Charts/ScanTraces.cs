@@ -60,7 +60,7 @@ public static class ScanTraces
                 Name = "flagged", Mode = ModeFlag.Markers,
                 X = flagged.Select(f => (object)profile.Points[f.PointIndex].Coordinate).ToList(),
                 Y = flagged.Select(f => (object)Rel(profile.Points[f.PointIndex].EnergyHartree)).ToList(),
-                HoverTextArray = flagged.Select(f => f.Message).ToList(),
+                HoverTextArray = flagged.Select(f => ChartText.Plain(f.Message)).ToList(),
                 HoverInfo = HoverInfoFlag.Text,
                 Marker = new Marker { Color = "#9b1c1c", Size = 13, Symbol = Plotly.Blazor.Traces.ScatterLib.MarkerLib.SymbolEnum.XThin, Line = new Plotly.Blazor.Traces.ScatterLib.MarkerLib.Line { Color = "#9b1c1c", Width = 2 } },
             });
@@ -82,7 +82,7 @@ public static class ScanTraces
 
     public static Plotly.Blazor.Layout BuildLayout(ScanProfile profile, EnergyUnit unit, string title) => new()
     {
-        Title = new Title { Text = title },
+        Title = new Title { Text = ChartText.Plain(title) },
         Height = 340,
         Margin = new Margin { L = 64, R = 16, T = 48, B = 48 },
         XAxis = [new XAxis { Title = new Plotly.Blazor.LayoutLib.XAxisLib.Title { Text = $"scanned coordinate ({profile.Unit})" } }],
