@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Conformers;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Vibrations;
@@ -38,12 +39,27 @@ public sealed record BundleStudy(string Name, string Description, BundleEnergyMo
 /// <see cref="EnergiesFrom"/>: the level whose electronic energies are used ("" = each state's own calculation);
 /// <see cref="ThermalFrom"/>: the level whose frequencies give thermal corrections; temperature in K; standard state; the
 /// low-mode treatment under the names of <see cref="Thermochemistry.LowModeNames"/> with its cut-off ω₀ in cm⁻¹; tunnelling
-/// "none" or "wigner".
+/// "none" or "wigner"; conformers "lowest" or "boltzmann-ensemble".
 /// </summary>
 public sealed record BundleEnergyModel(string? EnergiesFrom = null, string? ThermalFrom = null, double? TemperatureKelvin = null,
     Thermochemistry.StandardState? StandardState = null, Thermochemistry.ThermoTreatment? LowModes = null, double? LowModeCutoffCm1 = null,
-    bool? WignerTunnelling = null)
+    bool? WignerTunnelling = null, ConformerChoice? Conformers = null)
 {
+    /// <summary>The words of <c>conformers</c>.</summary>
+    public static string ConformerName(ConformerChoice c) =>
+        c == ConformerChoice.BoltzmannEnsemble ? "boltzmann-ensemble" : "lowest";
+
+    public static bool TryParseConformers(string text, out ConformerChoice choice)
+    {
+        (var ok, choice) = text.Trim().ToLowerInvariant() switch
+        {
+            "lowest" => (true, ConformerChoice.Lowest),
+            "boltzmann-ensemble" => (true, ConformerChoice.BoltzmannEnsemble),
+            _ => (false, ConformerChoice.Lowest),
+        };
+        return ok;
+    }
+
     /// <summary>The words of <c>standard_state</c>.</summary>
     public static string StandardStateName(Thermochemistry.StandardState s) => s switch
     {

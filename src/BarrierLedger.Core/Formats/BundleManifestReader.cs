@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Text.Json;
+using BarrierLedger.Core.Conformers;
 using static BarrierLedger.Core.Formats.BundleSchema;
 
 namespace BarrierLedger.Core.Formats;
@@ -175,7 +176,13 @@ internal static class BundleManifestReader
             if (tu.Trim().ToLowerInvariant() is "none" or "wigner") wigner = tu.Trim().Equals("wigner", StringComparison.OrdinalIgnoreCase);
             else j.Issues.ErrorAt(JsonInput.Child(p, "tunnelling"), $"is '{tu}'; expected 'none' or 'wigner'");
         }
-        return new BundleEnergyModel(energies?.Trim(), thermal?.Trim(), t, state, lowModes, cutoff, wigner);
+        ConformerChoice? conformers = null;
+        if (j.String(em, p, "conformers", required: false) is { } co)
+        {
+            if (BundleEnergyModel.TryParseConformers(co, out var parsed)) conformers = parsed;
+            else j.Issues.ErrorAt(JsonInput.Child(p, "conformers"), $"is '{co}'; expected 'lowest' or 'boltzmann-ensemble'");
+        }
+        return new BundleEnergyModel(energies?.Trim(), thermal?.Trim(), t, state, lowModes, cutoff, wigner, conformers);
     }
 
     internal static string Known(IEnumerable<string> keys)

@@ -35,6 +35,7 @@ public static class BundleWriter
                 if (em.LowModes is { } lm) w.WriteString("low_modes", Thermochemistry.LowModeNames.Name(lm));
                 if (em.LowModeCutoffCm1 is { } c) w.WriteNumber("low_mode_cutoff_cm1", c);
                 if (em.WignerTunnelling is { } wt) w.WriteString("tunnelling", wt ? "wigner" : "none");
+                if (em.Conformers is { } co) w.WriteString("conformers", BundleEnergyModel.ConformerName(co));
                 w.WriteEndObject();
             }
             w.WriteEndObject();

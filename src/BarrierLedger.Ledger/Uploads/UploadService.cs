@@ -98,6 +98,7 @@ public sealed class UploadService(
             Treatment = b.LowModes ?? current.Treatment,
             QuasiRrhoCutoffCm1 = b.LowModeCutoffCm1 ?? current.QuasiRrhoCutoffCm1,
             Tunnelling = b.WignerTunnelling is { } w ? (w ? TunnellingCorrection.Wigner : TunnellingCorrection.None) : current.Tunnelling,
+            Conformers = b.Conformers ?? current.Conformers,
         };
         var row = new EnergyModel { StudyId = studyId, UpdatedAt = now, UpdatedByUserId = user };
         settings.CopyTo(row);

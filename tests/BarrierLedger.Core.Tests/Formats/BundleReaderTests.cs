@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Thermochemistry;
+using BarrierLedger.Core.Conformers;
 using System.IO.Compression;
 using System.Text;
 using System.Text.Json;
@@ -81,6 +82,7 @@ public class BundleReaderTests
         {
             ["energies_from"] = "CCSD(T)/cc-pVTZ//B3LYP/def2-SVP", ["thermal_from"] = "B3LYP/def2-SVP", ["temperature_kelvin"] = 350.0,
             ["standard_state"] = "1 atm", ["low_modes"] = "entropy-enthalpy", ["low_mode_cutoff_cm1"] = 50.0, ["tunnelling"] = "wigner",
+            ["conformers"] = "boltzmann-ensemble",
         };
         using var schemaDoc = JsonDocument.Parse(File.ReadAllText(RepoFiles.Path("docs", "bundle.schema.json")));
         using var doc = JsonDocument.Parse(n.ToJsonString());
@@ -88,7 +90,7 @@ public class BundleReaderTests
 
         var b = ReadJson(n.ToJsonString()).GetValueOrThrow();
         var expected = new BundleEnergyModel("CCSD(T)/cc-pVTZ//B3LYP/def2-SVP", "B3LYP/def2-SVP", 350.0, StandardState.Gas1Atm,
-            ThermoTreatment.QuasiRrhoEntropyAndEnthalpy, 50.0, true);
+            ThermoTreatment.QuasiRrhoEntropyAndEnthalpy, 50.0, true, ConformerChoice.BoltzmannEnsemble);
         Assert.Equal(expected, b.Study.EnergyModel);
         Assert.Equal(expected, BundleReader.Read(new MemoryStream(BundleWriter.ToZip(b)), "again.zip").GetValueOrThrow().Study.EnergyModel);
         Assert.Null(ReadJson(SampleText()).GetValueOrThrow().Study.EnergyModel);
@@ -188,6 +190,11 @@ public class BundleReaderTests
         { "energy model low modes", n => n["study"]!["energy_model"] = new JsonObject { ["low_modes"] = "grimme" }, "$.study.energy_model.low_modes", ["'grimme'", "'entropy'"] },
         { "energy model temperature", n => n["study"]!["energy_model"] = new JsonObject { ["temperature_kelvin"] = -5 }, "$.study.energy_model.temperature_kelvin", ["above 0 K"] },
         { "energy model tunnelling", n => n["study"]!["energy_model"] = new JsonObject { ["tunnelling"] = "bell" }, "$.study.energy_model.tunnelling", ["'none' or 'wigner'"] },
+        { "energy model cut-off", n => n["study"]!["energy_model"] = new JsonObject { ["low_mode_cutoff_cm1"] = 0 }, "$.study.energy_model.low_mode_cutoff_cm1", ["is 0", "positive cut-off"] },
+        { "energy model conformers", n => n["study"]!["energy_model"] = new JsonObject { ["conformers"] = "all" }, "$.study.energy_model.conformers", ["'all'", "'lowest' or 'boltzmann-ensemble'"] },
+        { "energy model temperature as text", n => n["study"]!["energy_model"] = new JsonObject { ["temperature_kelvin"] = "298" }, "$.study.energy_model.temperature_kelvin", ["expected a number, found a string"] },
+        { "energy model level as number", n => n["study"]!["energy_model"] = new JsonObject { ["energies_from"] = 5 }, "$.study.energy_model.energies_from", ["expected a string"] },
+        { "energy model not an object", n => n["study"]!["energy_model"] = "1 mol/L", "$.study.energy_model", ["expected an object"] },
         { "duplicate species", n => n["species"]![1]!["label"] = "CH3", "$.species[1].label", ["already defined at $.species[0]"] },
         { "unknown species", n => n["calculations"]![0]!["species"] = "CH5", "$.calculations[0].species", ["'CH5'", "not in $.species"] },
         { "unknown kind", n => n["calculations"]![0]!["kind"] = "transition_state", "$.calculations[0].kind", ["'transition_state'", "saddle_point"] },
