@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Diagrams;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Reviews;
 
 namespace BarrierLedger.Ledger.Export;
 
@@ -21,7 +22,11 @@ public sealed record DiagramStateInfo(string Label, Energy Relative, bool IsSadd
 /// <param name="States">States in pathway order.</param>
 /// <param name="ConsistencyProblems">Consistency rules the reaction's energies break; empty when consistent.</param>
 public sealed record DiagramSource(string Reaction, ExportModel Model, string Quantity, IReadOnlyList<DiagramStateInfo> States,
-    IReadOnlyList<string> ConsistencyProblems);
+    IReadOnlyList<string> ConsistencyProblems)
+{
+    /// <summary>Reasons that do not break consistency but can mislead (the conformer checks), each footnoted and marked on every saddle point.</summary>
+    public IReadOnlyList<string> Cautions { get; init; } = [];
+}
 
 /// <summary>The exported figure in both formats, drawn from one scene.</summary>
 public sealed record DiagramFiles(string Svg, byte[] Png, DiagramScene Scene);
@@ -53,6 +58,12 @@ public static class DiagramExport
             inconsistentMark = BarrierTable.MarkName(footnotes.Count);
             footnotes.Add($"[{inconsistentMark}] {source.Reaction}: the energies break a consistency rule: {string.Join("; ", source.ConsistencyProblems.Select(p => p.TrimEnd('.')))}.");
         }
+        var cautionMarks = new List<string>();
+        foreach (var caution in source.Cautions)
+        {
+            cautionMarks.Add(BarrierTable.MarkName(footnotes.Count));
+            footnotes.Add($"[{cautionMarks[^1]}] {source.Reaction}: {caution}");
+        }
         for (var i = 0; i < source.States.Count; i++)
         {
             var s = source.States[i];
@@ -66,6 +77,7 @@ public static class DiagramExport
                 m.Add(mark);
             }
             if (inconsistentMark is not null) m.Add(inconsistentMark);
+            m.AddRange(cautionMarks);
             if (m.Count > 0) marks[i] = string.Join(",", m);
         }
         var lines = source.Model.Lines(unit).Take(4).Append($"{source.Quantity} relative to {source.States[0].Label}, in {Energy.Symbol(unit)}").ToList();

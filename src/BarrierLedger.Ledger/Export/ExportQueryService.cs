@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
@@ -73,7 +74,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
             var problems = stored.Where(c => c.Blocking).Select(c => c.Message).ToList();
             if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
             // The conformer checks (issue 21) do not block a barrier but can mislead: every row of the reaction footnotes them.
-            var cautions = stored.Where(c => !c.Blocking && c.Code.StartsWith("conformers.", StringComparison.Ordinal)).Select(c => c.Message).ToList();
+            var cautions = ConformerCautions(stored);
             if (steps.Count == 0)
             {
                 // A reaction whose barriers could not be formed under the model still gets its row, saying why, not a silent gap.
@@ -94,6 +95,10 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
         var model = await ModelAsync(db, studyId, reactions.Where(r => r.Derivation is not null).Select(r => r.Derivation!.LevelOfTheory), ct);
         return new BarrierTableSource(study.Name, model, rows);
     }
+
+    /// <summary>The conformer checks (issue 21) among stored reasons: they do not block a barrier but can mislead, so exports footnote them.</summary>
+    private static List<string> ConformerCautions(IEnumerable<ConsistencyReason> stored) =>
+        [.. stored.Where(c => !c.Blocking && c.Code.StartsWith("conformers.", StringComparison.Ordinal)).Select(c => c.Message)];
 
     /// <summary>The reaction's profile for a figure; <paramref name="quantity"/> is "ΔG", "ΔH" or "ΔE".</summary>
     public async Task<DiagramSource> GetDiagramSourceAsync(int reactionId, string quantity = "ΔG", CancellationToken ct = default)
@@ -118,10 +123,11 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
             return new DiagramStateInfo(s.Label, Energy.FromHartree(Pick(s, quantity)!.Value), saddle,
                 calcId is { } id && reviews.TryGetValue(id, out var rv) ? rv : ReviewState.AwaitingReview, verdict, reasons);
         }).ToList();
-        var problems = r.Derivation.Consistent ? [] : DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson).Where(c => c.Blocking).Select(c => c.Message).ToList();
+        var stored = DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson);
+        var problems = r.Derivation.Consistent ? [] : stored.Where(c => c.Blocking).Select(c => c.Message).ToList();
         if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
         var model = await ModelAsync(db, r.StudyId, [r.Derivation.LevelOfTheory], ct);
-        return new DiagramSource(r.Label, model, quantity, infos, problems);
+        return new DiagramSource(r.Label, model, quantity, infos, problems) { Cautions = ConformerCautions(stored) };
     }
 
     /// <summary>
@@ -228,11 +234,6 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
     private static async Task<Dictionary<int, ReviewState>> LatestReviewsAsync(LedgerDbContext db, List<int> calcIds, CancellationToken ct)
     {
         var all = await db.Reviews.AsNoTracking().Where(r => calcIds.Contains(r.CalculationId)).Select(r => new { r.CalculationId, r.Outcome, r.At, r.Id }).ToListAsync(ct);
-        return all.GroupBy(r => r.CalculationId).ToDictionary(g => g.Key, g => g.OrderBy(r => r.At).ThenBy(r => r.Id).Last().Outcome switch
-        {
-            ReviewOutcome.Verified => ReviewState.Verified,
-            ReviewOutcome.Returned => ReviewState.Returned,
-            _ => ReviewState.Reopened,
-        });
+        return all.GroupBy(r => r.CalculationId).ToDictionary(g => g.Key, g => ReviewStates.After(g.MaxBy(r => r.Id)!.Outcome));
     }
 }

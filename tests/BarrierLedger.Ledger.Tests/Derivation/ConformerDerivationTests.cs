@@ -99,7 +99,7 @@ public sealed class ConformerDerivationTests
     public async Task LowerConformerWithoutThermalCorrection_IsAReasonOnTheLedgerAndAnExportFootnote(StoreProvider store)
     {
         await using var ledger = await TempLedger.CreateAsync(store);
-        var (studyId, _) = await StoreReactionAsync(ledger);
+        var (studyId, reactionId) = await StoreReactionAsync(ledger);
         // A single point of a third conformer, 0.0035 Eh (2.20 kcal/mol) below anti in E, without frequencies or corrections.
         var c3 = XyzWriter.ToExtendedText(FlexibleMolecules.Butane(-65), -158.4035);
         var stored = await ledger.Get<UploadService>().StoreAsync([new UploadFile("c3.xyz", Encoding.UTF8.GetBytes(c3))],
@@ -115,6 +115,8 @@ public sealed class ConformerDerivationTests
 
         var table = BarrierTable.Build(await new ExportQueryService(ledger.Factory).GetTableSourceAsync(studyId), TableOptions.Default);
         Assert.Contains(table.Footnotes, f => f.Text.Contains("a lower conformer of R exists than the one the barrier uses", StringComparison.Ordinal));
+        var diagram = DiagramExport.Text(await new ExportQueryService(ledger.Factory).GetDiagramSourceAsync(reactionId), EnergyUnit.KcalPerMol);
+        Assert.Contains(diagram.Footnotes, f => f.Contains("ROT: State R: a lower conformer of R exists than the one the barrier uses", StringComparison.Ordinal));
     }
 
     [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
