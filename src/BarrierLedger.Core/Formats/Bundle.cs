@@ -59,26 +59,6 @@ public sealed record BundleEnergyModel(string? EnergiesFrom = null, string? Ther
         };
         return ok;
     }
-
-    /// <summary>The words of <c>standard_state</c>.</summary>
-    public static string StandardStateName(Thermochemistry.StandardState s) => s switch
-    {
-        Thermochemistry.StandardState.Solution1Molar => "1 mol/L",
-        Thermochemistry.StandardState.Gas1Bar => "1 bar",
-        _ => "1 atm",
-    };
-
-    public static bool TryParseStandardState(string text, out Thermochemistry.StandardState state)
-    {
-        (var ok, state) = text.Trim().ToLowerInvariant() switch
-        {
-            "1 mol/l" => (true, Thermochemistry.StandardState.Solution1Molar),
-            "1 bar" => (true, Thermochemistry.StandardState.Gas1Bar),
-            "1 atm" => (true, Thermochemistry.StandardState.Gas1Atm),
-            _ => (false, Thermochemistry.StandardState.Gas1Atm),
-        };
-        return ok;
-    }
 }
 
 /// <summary>

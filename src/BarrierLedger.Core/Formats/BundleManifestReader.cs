@@ -159,7 +159,7 @@ internal static class BundleManifestReader
         Thermochemistry.StandardState? state = null;
         if (j.String(em, p, "standard_state", required: false) is { } ss)
         {
-            if (BundleEnergyModel.TryParseStandardState(ss, out var parsed)) state = parsed;
+            if (Thermochemistry.StandardStateNames.TryParse(ss, out var parsed)) state = parsed;
             else j.Issues.ErrorAt(JsonInput.Child(p, "standard_state"), $"is '{ss}'; expected '1 mol/L', '1 atm' or '1 bar'");
         }
         Thermochemistry.ThermoTreatment? lowModes = null;

@@ -31,7 +31,7 @@ public static class BundleWriter
                 if (em.EnergiesFrom is { } ef) w.WriteString("energies_from", ef);
                 if (em.ThermalFrom is { } tf) w.WriteString("thermal_from", tf);
                 if (em.TemperatureKelvin is { } t) w.WriteNumber("temperature_kelvin", t);
-                if (em.StandardState is { } ss) w.WriteString("standard_state", BundleEnergyModel.StandardStateName(ss));
+                if (em.StandardState is { } ss) w.WriteString("standard_state", Thermochemistry.StandardStateNames.Text(ss));
                 if (em.LowModes is { } lm) w.WriteString("low_modes", Thermochemistry.LowModeNames.Name(lm));
                 if (em.LowModeCutoffCm1 is { } c) w.WriteNumber("low_mode_cutoff_cm1", c);
                 if (em.WignerTunnelling is { } wt) w.WriteString("tunnelling", wt ? "wigner" : "none");

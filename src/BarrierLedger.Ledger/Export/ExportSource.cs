@@ -31,13 +31,7 @@ public sealed record ExportModel(
     public string ConformerLine => "Conformers: " + Core.Conformers.ConformerChoiceText.Sentence(Conformers)["conformers: ".Length..];
 
     /// <summary>"1 mol/L", "1 atm", "1 bar".</summary>
-    public string StandardStateText => StandardState switch
-    {
-        StandardState.Solution1Molar => "1 mol/L",
-        StandardState.Gas1Atm => "1 atm",
-        StandardState.Gas1Bar => "1 bar",
-        _ => StandardState.ToString(),
-    };
+    public string StandardStateText => StandardStateNames.Text(StandardState);
 
     /// <summary>What the low-mode treatment does (<see cref="LowModeNames.Describe"/>); its published source is <see cref="TreatmentReference"/>.</summary>
     public string TreatmentText => LowModeNames.Describe(Treatment, QuasiRrhoCutoffCm1);

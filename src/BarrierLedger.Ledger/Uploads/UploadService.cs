@@ -90,17 +90,7 @@ public sealed class UploadService(
     private async Task SetStudyModelAsync(LedgerDbContext db, int studyId, Core.Formats.BundleEnergyModel b, string user, DateTimeOffset now, CancellationToken ct)
     {
         var (current, _) = await DerivationService.EffectiveModelAsync(db, studyId, ct);
-        var settings = current with
-        {
-            EnergyLevel = b.EnergiesFrom ?? current.EnergyLevel,
-            ThermalLevel = b.ThermalFrom ?? current.ThermalLevel,
-            TemperatureKelvin = b.TemperatureKelvin ?? current.TemperatureKelvin,
-            StandardState = b.StandardState ?? current.StandardState,
-            Treatment = b.LowModes ?? current.Treatment,
-            QuasiRrhoCutoffCm1 = b.LowModeCutoffCm1 ?? current.QuasiRrhoCutoffCm1,
-            Tunnelling = b.WignerTunnelling is { } w ? (w ? TunnellingCorrection.Wigner : TunnellingCorrection.None) : current.Tunnelling,
-            Conformers = b.Conformers ?? current.Conformers,
-        };
+        var settings = current.With(b);
         var row = new EnergyModel { StudyId = studyId, UpdatedAt = now, UpdatedByUserId = user };
         settings.CopyTo(row);
         db.EnergyModels.Add(row);
