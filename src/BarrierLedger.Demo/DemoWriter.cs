@@ -150,7 +150,19 @@ public static class DemoWriter
         {
             ["format"] = "barrierledger-bundle",
             ["format_version"] = 1,
-            ["study"] = new JsonObject { ["name"] = study.Name, ["description"] = study.Description },
+            ["study"] = new JsonObject
+            {
+                ["name"] = study.Name,
+                ["description"] = study.Description,
+                // The study's stated protocol: single-point energies on the optimised geometries, thermal corrections from the
+                // frequency calculations, 1 mol/L. Without it each state would use its own calculations and mix levels.
+                ["energy_model"] = new JsonObject
+                {
+                    ["energies_from"] = DemoScenario.SinglePointLevel,
+                    ["thermal_from"] = DemoScenario.GeometryLevel,
+                    ["standard_state"] = "1 mol/L",
+                },
+            },
             ["species"] = species,
             ["calculations"] = calculations,
             ["reactions"] = reactions,

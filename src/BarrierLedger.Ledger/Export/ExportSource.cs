@@ -111,6 +111,14 @@ public sealed record BarrierRow(
 {
     public bool IsVerified => Review == ReviewState.Verified;
     public bool IsConsistent => ConsistencyProblems.Count == 0;
+    /// <summary>False for a reaction's placeholder row (<see cref="Without"/>): there is no step and no saddle point to review.</summary>
+    public bool HasSaddle => SaddleLabel != NoStep;
+
+    private const string NoStep = "—";
+
+    /// <summary>The row of a reaction that has no barrier to show, saying why (never a silent gap in the table).</summary>
+    public static BarrierRow Without(string reaction, string levelOfTheory, IReadOnlyList<string> why) =>
+        new(reaction, NoStep, NoStep, null, null, null, null, null, null, null, null, [], ReviewState.AwaitingReview, levelOfTheory, why);
 
     /// <summary>
     /// Reasons that do not make the barrier inconsistent but can mislead a reader, each footnoted (the conformer checks: a lower

@@ -82,6 +82,32 @@ public sealed class UploadService(
         }, ct);
     }
 
+    /// <summary>
+    /// The bundle's energy model becomes the new study's own model: the group default with every key the bundle gives, in the
+    /// upload's transaction and before anything is derived, so the web's demo loader, an upload, the API and the command line
+    /// all derive the study under the model it was written for. A study that exists already keeps its own model.
+    /// </summary>
+    private async Task SetStudyModelAsync(LedgerDbContext db, int studyId, Core.Formats.BundleEnergyModel b, string user, DateTimeOffset now, CancellationToken ct)
+    {
+        var (current, _) = await DerivationService.EffectiveModelAsync(db, studyId, ct);
+        var settings = current with
+        {
+            EnergyLevel = b.EnergiesFrom ?? current.EnergyLevel,
+            ThermalLevel = b.ThermalFrom ?? current.ThermalLevel,
+            TemperatureKelvin = b.TemperatureKelvin ?? current.TemperatureKelvin,
+            StandardState = b.StandardState ?? current.StandardState,
+            Treatment = b.LowModes ?? current.Treatment,
+            QuasiRrhoCutoffCm1 = b.LowModeCutoffCm1 ?? current.QuasiRrhoCutoffCm1,
+            Tunnelling = b.WignerTunnelling is { } w ? (w ? TunnellingCorrection.Wigner : TunnellingCorrection.None) : current.Tunnelling,
+            Conformers = b.Conformers ?? current.Conformers,
+        };
+        var row = new EnergyModel { StudyId = studyId, UpdatedAt = now, UpdatedByUserId = user };
+        settings.CopyTo(row);
+        db.EnergyModels.Add(row);
+        await db.SaveChangesAsync(ct);
+        audit.Record(db, user, "energy-model.override-saved", nameof(EnergyModel), studyId, $"The study's energy model as its bundle states it: {settings.Describe()}.");
+    }
+
     private async Task<UploadOutcome> WriteAsync(LedgerDbContext db, UploadPlan plan, string key, string content, string user, CancellationToken ct)
     {
         var now = time.GetUtcNow();
@@ -93,6 +119,7 @@ public sealed class UploadService(
             db.Studies.Add(study);
             await db.SaveChangesAsync(ct);
             audit.Record(db, user, "study.created", nameof(Study), study.Id, $"Study '{study.Name}' created by an upload.");
+            if (draft.StudyEnergyModel is { } bundleModel) await SetStudyModelAsync(db, study.Id, bundleModel, user, now, ct);
         }
 
         foreach (var s in plan.NewSpecies)
