@@ -21,11 +21,12 @@ namespace BarrierLedger.Ledger.Uploads;
 /// calculation already stored from the same file for the same species is reported and not stored twice.
 /// </summary>
 public sealed class UploadService(
-    IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time)
+    IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time, UploadGate gate)
 {
     /// <summary>Reads and checks the files against the store; writes nothing.</summary>
     public async Task<UploadPreview> PreviewAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, CancellationToken ct = default)
     {
+        using var turn = await gate.EnterAsync(files.Sum(f => f.Content.LongLength), ct);
         var draft = UploadReader.Read(files, choices);
         await using var db = await factory.CreateDbContextAsync(ct);
         var plan = await UploadPlan.ResolveAsync(db, draft, choices, ct);
@@ -33,10 +34,11 @@ public sealed class UploadService(
     }
 
     /// <summary>Reads, checks and stores the files in one transaction.</summary>
-    public Task<UploadOutcome> StoreAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, string uploaderUserId, CancellationToken ct = default)
+    public async Task<UploadOutcome> StoreAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, string uploaderUserId, CancellationToken ct = default)
     {
+        using var turn = await gate.EnterAsync(files.Sum(f => f.Content.LongLength), ct);
         var draft = UploadReader.Read(files, choices);
-        return StoreDraftAsync(draft, choices, uploaderUserId, ct);
+        return await StoreDraftAsync(draft, choices, uploaderUserId, ct);
     }
 
     /// <summary>
