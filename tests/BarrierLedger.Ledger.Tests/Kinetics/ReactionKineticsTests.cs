@@ -17,8 +17,10 @@ public class ReactionKineticsTests
     {
         var (ledger, studyId) = await DemoLedger.CreateAsync();
         var models = ledger.Get<EnergyModelService>();
-        var settings = (await models.GetForStudyAsync(studyId)).Settings with { EnergyLevel = DemoScenario.SinglePointLevel, ThermalLevel = DemoScenario.GeometryLevel };
-        Assert.True((await models.SaveStudyOverrideAsync(studyId, settings, 0, "demo-user")).Saved);
+        // The demo bundle gives the study its own model (study.energy_model): save over the version it has.
+        var current = await models.GetForStudyAsync(studyId);
+        var settings = current.Settings with { EnergyLevel = DemoScenario.SinglePointLevel, ThermalLevel = DemoScenario.GeometryLevel };
+        Assert.True((await models.SaveStudyOverrideAsync(studyId, settings, current.IsOverride ? current.Version : 0, "demo-user")).Saved);
         await ledger.Get<RecomputeService>().WhenIdleAsync();
         int reactionId;
         await using (var db = await ledger.DbAsync())
