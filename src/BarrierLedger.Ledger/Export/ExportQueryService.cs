@@ -200,16 +200,23 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
                 var label = terms.Count > 1 ? $"{sp.Label} (calculation {term!.EnergyCalculationId})" : sp.Label;
                 structures.Add(new SiStructure(label, role, level, term?.ElectronicHartree, term?.ZeroPointHartree, term?.EnthalpyCorrectionHartree,
                     term?.GibbsCorrectionHartree, [.. frequencies.Where(f => f < 0)], molecule, term?.PointGroup, term?.SymmetryNumber ?? 1,
-                    ThermalWords(term?.ThermalSource)));
+                    ThermalWords(term?.ThermalSource, settings.ThermalLevel, list.Where(c => c.FrequenciesCm1 is { Length: > 0 }).Select(c => c.LevelOfTheory))));
             }
         }
         var model = await ModelAsync(db, studyId, structures.Select(s => s.LevelOfTheory), ct);
         return (study.Name, model, structures);
     }
 
-    /// <summary>Where a thermal correction came from, in words for the supporting information.</summary>
-    private static string ThermalWords(string? source) => source switch
+    /// <summary>
+    /// Where a thermal correction came from, in words for the supporting information. When none was used although the species
+    /// has frequencies at another level than the model's thermal level, the words say so and name both, so that a reader does
+    /// not take "none" for "never computed".
+    /// </summary>
+    internal static string ThermalWords(string? source, string modelThermalLevel, IEnumerable<string> levelsWithFrequencies) => source switch
     {
+        null when modelThermalLevel.Length > 0
+                  && levelsWithFrequencies.Where(l => EnergyLevels.Key(l) != EnergyLevels.Key(modelThermalLevel)).Distinct().ToList() is { Count: > 0 } others =>
+            $"none: the model takes thermal corrections at {modelThermalLevel}, and this species has frequencies only at {string.Join(", ", others)}",
         null => "none (no frequencies and no reported corrections)",
         _ when source.StartsWith("computed", StringComparison.Ordinal) => "computed from the frequencies under the model above",
         _ => "as reported by the program, moved to the model's standard state",

@@ -65,6 +65,13 @@ public class ExportQueryServiceTests
         Assert.Contains("Imaginary frequencies: 1 (", text);
         Assert.Contains("vinyl alcohol\nRole: minimum\n", text);
         Assert.Contains("Electronic energy (Eh): not available", text);
+        // Its frequencies exist, at the other protocol's level: the SI must not read "no frequencies" (it would send a reader to
+        // look for a calculation that was never run) but name the model's thermal level and the level it has them at.
+        var vinyl = text[text.IndexOf("vinyl alcohol\nRole: minimum\n", StringComparison.Ordinal)..];
+        var thermalLine = vinyl.Split('\n').First(l => l.StartsWith("Thermal corrections:", StringComparison.Ordinal));
+        Assert.StartsWith("Thermal corrections: none: the model takes thermal corrections at ", thermalLine);
+        Assert.Contains("frequencies only at", thermalLine);
+        Assert.Contains("def2-TZVP", thermalLine);
     }
 
     [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
