@@ -73,13 +73,16 @@ public sealed class DemoSetup(
             return;
         }
         // The demo's stated protocol: single-point energies on optimised geometries, thermal corrections from the
-        // frequency calculations. Without it each state would use its own calculations and mix levels.
+        // frequency calculations, conformers as Boltzmann ensembles. Without it each state would use its own calculations and mix levels.
         var current = await models.GetForStudyAsync(studyId, ct);
         var protocol = current.Settings with
         {
             EnergyLevel = DemoScenario.SinglePointLevel,
             ThermalLevel = DemoScenario.GeometryLevel,
             StandardState = StandardState.Solution1Molar,
+            // BU keeps its reactant and saddle point as conformer ensembles; under the Boltzmann ensemble every conformer check
+            // applies (duplicates only matter in a Boltzmann sum). Species with one conformer get the same energies either way.
+            Conformers = BarrierLedger.Core.Conformers.ConformerChoice.BoltzmannEnsemble,
         };
         var saved = await models.SaveStudyOverrideAsync(studyId, protocol, 0, member.Id, ct);
         if (!saved.Saved) log.LogWarning("Demo energy model not set: {Why}", saved.Conflict ?? string.Join("; ", saved.Errors));
