@@ -49,7 +49,8 @@ public sealed record DemoState(string Label, bool IsSaddlePoint, IReadOnlyList<(
 }
 
 /// <summary>A reaction: ordered states.</summary>
-public sealed record DemoReaction(string Label, string Description, IReadOnlyList<DemoState> States);
+/// <summary>A demo reaction; <paramref name="RunKelvin"/> and <paramref name="RunHours"/> are the conditions its definition proposes for a kinetics run.</summary>
+public sealed record DemoReaction(string Label, string Description, IReadOnlyList<DemoState> States, double? RunKelvin = null, double? RunHours = null);
 
 /// <summary>A relaxed scan of one species, with a geometry per point (written as multi-frame extended XYZ).</summary>
 public sealed record DemoScan(string Label, string Slug, string Species, string Level, ScanCoordinateKind Kind, IReadOnlyList<int> Atoms1Based, IReadOnlyList<ScanPoint> Points);

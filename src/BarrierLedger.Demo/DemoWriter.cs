@@ -116,7 +116,15 @@ public static class DemoWriter
                 }
                 states.Add(state);
             }
-            reactions.Add(new JsonObject { ["label"] = r.Label, ["description"] = r.Description, ["states"] = states });
+            var reaction = new JsonObject { ["label"] = r.Label, ["description"] = r.Description, ["states"] = states };
+            if (r.RunKelvin is not null || r.RunHours is not null)
+            {
+                var kinetics = new JsonObject();
+                if (r.RunKelvin is { } t) kinetics["temperature_kelvin"] = t;
+                if (r.RunHours is { } h) kinetics["time_hours"] = h;
+                reaction["kinetics"] = kinetics;
+            }
+            reactions.Add(reaction);
         }
 
         var scans = new JsonArray();

@@ -5,7 +5,6 @@ using BarrierLedger.Web.Components;
 using BarrierLedger.Web.Components.Account;
 using BarrierLedger.Web.Endpoints;
 using BarrierLedger.Web.Hosting;
-using Microsoft.AspNetCore.DataProtection;
 
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions
 {
@@ -18,8 +17,7 @@ builder.WebHost.UseStaticWebAssets();
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddLedger(builder.Configuration);
 builder.Services.AddBarrierLedgerAuth();
-// Keys in the ledger database: a sign-in cookie issued by one instance is accepted by every other on the same store.
-builder.Services.AddDataProtection().SetApplicationName("BarrierLedger").PersistKeysToDbContext<LedgerDbContext>();
+builder.Services.AddBarrierLedgerDataProtection(builder.Configuration);
 builder.Services.AddBarrierLedgerDemo(builder.Configuration, args);
 builder.Services.AddBarrierLedgerApi(builder.Configuration);
 builder.Services.AddLedgerExports();

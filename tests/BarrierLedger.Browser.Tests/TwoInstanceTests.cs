@@ -15,8 +15,14 @@ public sealed class TwoInstanceTests
     {
         Chromium.SkipIfMissing();
         await using var database = await PostgresDatabase.CreateAsync();
+        // The key ring in the database is encrypted under a key-encryption key that is not in it; instances that share the
+        // database are given the same one, as the README's deployment section says (here one file both are pointed at).
+        var keyFile = Path.Combine(Path.GetTempPath(), "bl-kek-" + Guid.NewGuid().ToString("N")[..10]);
+        await File.WriteAllTextAsync(keyFile, Convert.ToBase64String(System.Security.Cryptography.RandomNumberGenerator.GetBytes(32)));
+        using var removeKey = new DeleteOnDispose(keyFile);
         string[] store = ["--BarrierLedger:Database:Provider=PostgreSQL", $"--BarrierLedger:Database:ConnectionString={database.ConnectionString}",
-            "--BarrierLedger:LoadDemo=true"]; // on PostgreSQL the demo (with its public passwords) is loaded only when asked for
+            "--BarrierLedger:LoadDemo=true", // on PostgreSQL the demo (with its public passwords) is loaded only when asked for
+            $"--BarrierLedger:KeyRing:KeyFile={keyFile}"];
         // The first instance migrates the empty database and loads the demo study; the second finds the store ready.
         await using var one = await AppProcess.StartAsync(store);
         await using var two = await AppProcess.StartAsync(store);
@@ -71,4 +77,9 @@ public sealed class TwoInstanceTests
         await Flows.OpenAsync(pageOne, one.BaseUrl + "/settings");
         Assert.Equal("310", await pageOne.Locator("#m-t").InputValueAsync());
     }
+}
+
+internal sealed class DeleteOnDispose(string path) : IDisposable
+{
+    public void Dispose() => File.Delete(path);
 }

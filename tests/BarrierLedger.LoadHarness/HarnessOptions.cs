@@ -18,6 +18,9 @@ internal sealed class HarnessOptions
     public string? FromCopy { get; private set; }
     public string? GcDump { get; private set; }
     public string? WebDll { get; private set; }
+    public bool UploadMemory { get; private set; }
+    public int UploadMiB { get; private set; } = 60;
+    public int UploadConcurrency { get; private set; } = 3;
     public (string Name, string Password) Reviewer { get; private set; } = ("demo-reviewer", "Demo-reviewer-2026");
     public (string Name, string Password) Member { get; private set; } = ("demo-member", "Demo-member-2026");
 
@@ -46,6 +49,10 @@ internal sealed class HarnessOptions
           --keep               keep the fresh data directory (its path is printed)
           --from-copy DIR      start on a fresh copy of a data directory kept with --keep instead of filling one (saves the
                                minutes that storing the reactions takes)
+          --upload-memory      instead: the app's peak resident memory (VmHWM) while one, then --upload-concurrency, XYZ
+                               relaxed scans of --upload-mib MiB are previewed through the API, and the time to read one
+          --upload-mib N       size of the generated XYZ (default 60)
+          --upload-concurrency N  previews at once in the second step (default 3)
         """;
 
     public static HarnessOptions Parse(string[] args)
@@ -74,6 +81,9 @@ internal sealed class HarnessOptions
                 case "--keep": o.Keep = true; break;
                 case "--gcdump": o.GcDump = Path.GetFullPath(Next()); break;
                 case "--from-copy": o.FromCopy = Path.GetFullPath(Next()); break;
+                case "--upload-memory": o.UploadMemory = true; break;
+                case "--upload-mib": o.UploadMiB = Count(1); break;
+                case "--upload-concurrency": o.UploadConcurrency = Count(1); break;
                 default: throw new ArgumentException($"Unknown option '{args[i]}'.");
             }
         }

@@ -18,6 +18,15 @@ Percentile.SelfCheck();
 CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
 
 Console.WriteLine($"BarrierLedger load harness, {DateTime.UtcNow:yyyy-MM-dd HH:mm:ss} UTC, {Environment.ProcessorCount} cores, load average {Machine.LoadAverage()}");
+if (options.UploadMemory)
+{
+    try { return await UploadMemory.RunAsync(options); }
+    catch (Exception ex) when (ex is InvalidOperationException or HarnessException or HttpRequestException or FileNotFoundException)
+    {
+        Console.Error.WriteLine("harness stopped: " + ex.Message);
+        return 1;
+    }
+}
 AppInstance? app = null;
 string? dataDirectory = null;
 try

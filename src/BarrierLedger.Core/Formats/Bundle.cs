@@ -105,8 +105,8 @@ public sealed record BundleState(
     string? Calculation,
     ImmutableArray<BundleAtomPair> ReactionCoordinate);
 
-/// <summary>A reaction: its ordered states, first to last.</summary>
-public sealed record BundleReaction(string Label, string Description, ImmutableArray<BundleState> States);
+/// <summary>A reaction: its ordered states, first to last, and what its definition says about its kinetics (null: nothing).</summary>
+public sealed record BundleReaction(string Label, string Description, ImmutableArray<BundleState> States, Kinetics.KineticsSetup? Kinetics = null);
 
 /// <summary>
 /// A relaxed scan of one species along one coordinate (atoms 0-based in <see cref="Coordinate"/>, 1-based in the file).

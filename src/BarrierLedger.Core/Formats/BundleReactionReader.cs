@@ -1,5 +1,6 @@
 using System.Text.Json;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Kinetics;
 using static BarrierLedger.Core.Formats.BundleManifestReader;
 using static BarrierLedger.Core.Formats.BundleSchema;
 
@@ -29,7 +30,42 @@ internal static class BundleReactionReader
             }
         }
         else ok = false;
-        return ok && label is not null ? new BundleReaction(label, description, [.. states]) : null;
+        KineticsSetup? kinetics = null;
+        if (JsonInput.Member(r, "kinetics") is not null)
+        {
+            kinetics = ReadKinetics(r, p, j, states);
+            if (kinetics is null) ok = false;
+        }
+        return ok && label is not null ? new BundleReaction(label, description, [.. states], kinetics) : null;
+    }
+
+    // "kinetics": { "competing_channels": [saddle-point state labels], "enantiomeric": bool, "temperature_kelvin": K, "time_hours": h }
+    private static KineticsSetup? ReadKinetics(JsonElement r, string p, JsonInput j, List<BundleState> states)
+    {
+        var kp = JsonInput.Child(p, "kinetics");
+        var k = r.GetProperty("kinetics");
+        if (!j.RequireObject(k, kp)) return null;
+        j.WarnUnknown(k, kp, KnownKeys["kinetics"]);
+        var ok = true;
+        var channels = new List<string>();
+        if (j.Array(k, kp, "competing_channels", required: false) is { } arr)
+        {
+            var i = 0;
+            foreach (var c in arr.EnumerateArray())
+            {
+                var cp = JsonInput.Index(JsonInput.Child(kp, "competing_channels"), i++);
+                if (c.ValueKind != JsonValueKind.String) { j.Issues.ErrorAt(cp, $"expected a saddle point's state label (a string), found {JsonInput.KindName(c.ValueKind)}"); ok = false; continue; }
+                channels.Add(c.GetString()!);
+            }
+        }
+        var setup = new KineticsSetup(channels, j.Bool(k, kp, "enantiomeric") ?? false,
+            j.Number(k, kp, "temperature_kelvin", required: false), j.Number(k, kp, "time_hours", required: false));
+        foreach (var (key, message) in setup.Problems([.. states.Select(s => (s.Label, s.Kind == BundleStateKind.SaddlePoint))]))
+        {
+            j.Issues.ErrorAt(JsonInput.Child(kp, key), message);
+            ok = false;
+        }
+        return ok ? setup : null;
     }
 
     private static BundleState? ReadState(JsonElement s, string p, JsonInput j, Dictionary<string, SpeciesInfo> species,

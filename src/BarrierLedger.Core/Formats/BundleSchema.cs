@@ -33,7 +33,8 @@ public static class BundleSchema
         // still read (the force constant converted to N/m), never written.
         ["mode"] = ["frequency_cm1", "displacements", "reduced_mass_da", "force_constant_n_per_m", "reduced_mass_amu", "force_constant_mdyn_per_angstrom"],
         ["thermal_corrections"] = ["temperature_kelvin", "zero_point_hartree", "enthalpy_hartree", "gibbs_hartree"],
-        ["reaction"] = ["label", "description", "states"],
+        ["reaction"] = ["label", "description", "states", "kinetics"],
+        ["kinetics"] = ["competing_channels", "enantiomeric", "temperature_kelvin", "time_hours"],
         // reaction_coordinate is the first name of reacting_bonds: still read, never written.
         ["state"] = ["label", "kind", "terms", "calculation", "reacting_bonds", "reaction_coordinate"],
         ["term"] = ["species", "coefficient"],

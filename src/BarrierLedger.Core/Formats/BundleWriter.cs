@@ -65,6 +65,20 @@ public static class BundleWriter
                         w.WriteEndArray();
                     }
                 });
+                if (r.Kinetics is { IsEmpty: false } k)
+                {
+                    w.WriteStartObject("kinetics");
+                    if (k.Channels.Count > 0)
+                    {
+                        w.WriteStartArray("competing_channels");
+                        foreach (var c in k.Channels) w.WriteStringValue(c);
+                        w.WriteEndArray();
+                        if (k.Enantiomeric) w.WriteBoolean("enantiomeric", true);
+                    }
+                    if (k.TemperatureKelvin is { } t) w.WriteNumber("temperature_kelvin", t);
+                    if (k.TimeHours is { } h) w.WriteNumber("time_hours", h);
+                    w.WriteEndObject();
+                }
             });
             Objects(w, "scans", bundle.Scans, s => Scan(w, s));
             if (bundle.Ircs.Length > 0)

@@ -7,24 +7,21 @@ using Microsoft.EntityFrameworkCore;
 namespace BarrierLedger.Ledger.Derivation;
 
 /// <summary>A reaction's status as the ledger lists it: how many saddle points, their worst check verdict and their review status.</summary>
-internal sealed record ReactionStatus(int SaddlePointCount, Verdict? Verdict, ReviewStatus? ReviewStatus)
+internal sealed record ReactionStatus(int SaddlePointCount, Verdict? Verdict, ReviewState? ReviewStatus)
 {
     public static ReactionStatus None { get; } = new(0, null, null);
 
     /// <summary>
     /// The rule: without saddle points there is no verdict and no review. Otherwise the verdict is the worst of the saddle
-    /// points' checks (a saddle point never checked counts as failed: nothing shows it is one); the review status is Returned
-    /// when any saddle point was returned, Verified when all were verified, else awaiting review.
+    /// points' checks (a saddle point never checked counts as failed: nothing shows it is one); the review state is
+    /// <see cref="ReviewStates.Combine"/> of the saddle points' states.
     /// </summary>
     public static ReactionStatus Of(IReadOnlyCollection<(Verdict? Verdict, ReviewOutcome? LatestReview)> saddles)
     {
         if (saddles.Count == 0) return None;
         var verdict = saddles.Any(s => s.Verdict is null or Core.Checks.Verdict.Failed) ? Core.Checks.Verdict.Failed
             : saddles.Any(s => s.Verdict == Core.Checks.Verdict.NeedsAttention) ? Core.Checks.Verdict.NeedsAttention : Core.Checks.Verdict.Passed;
-        var statuses = saddles.Select(s => ReviewStatusText.FromLatest(s.LatestReview)).ToList();
-        var review = statuses.Any(s => s == Reviews.ReviewStatus.Returned) ? Reviews.ReviewStatus.Returned
-            : statuses.All(s => s == Reviews.ReviewStatus.Verified) ? Reviews.ReviewStatus.Verified : Reviews.ReviewStatus.AwaitingReview;
-        return new ReactionStatus(saddles.Count, verdict, review);
+        return new ReactionStatus(saddles.Count, verdict, ReviewStates.Combine([.. saddles.Select(s => ReviewStates.After(s.LatestReview))]));
     }
 }
 

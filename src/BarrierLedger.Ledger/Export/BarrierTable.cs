@@ -1,6 +1,7 @@
 using System.Globalization;
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Reviews;
 
 namespace BarrierLedger.Ledger.Export;
 
@@ -181,18 +182,9 @@ public sealed record BarrierTable(
         ExportColumn.ImaginaryFrequency => r.ImaginaryFrequencyCm1 is { } f && double.IsFinite(f)
             ? new(CellKind.Imaginary, "", Math.Round(Math.Abs(f), 0, MidpointRounding.AwayFromZero)) : TableCell.Empty,
         ExportColumn.Verdict => new(CellKind.Text, r.Check is { } v ? VerdictText.Of(v) : "not checked"),
-        ExportColumn.ReviewStatus => new(CellKind.Text, ReviewText(r.Review)),
+        ExportColumn.ReviewStatus => new(CellKind.Text, ReviewStates.Text(r.Review)),
         ExportColumn.LevelOfTheory => new(CellKind.Text, r.LevelOfTheory),
         _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown column."),
-    };
-
-    public static string ReviewText(ReviewState s) => s switch
-    {
-        ReviewState.AwaitingReview => "awaiting review",
-        ReviewState.Verified => "verified",
-        ReviewState.Returned => "returned",
-        ReviewState.Reopened => "reopened",
-        _ => s.ToString(),
     };
 
     private static TableCell EnergyCell(Energy? e, TableOptions o)

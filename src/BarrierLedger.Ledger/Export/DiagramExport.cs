@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Diagrams;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Reviews;
 
 namespace BarrierLedger.Ledger.Export;
 

@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
@@ -228,11 +229,6 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
     private static async Task<Dictionary<int, ReviewState>> LatestReviewsAsync(LedgerDbContext db, List<int> calcIds, CancellationToken ct)
     {
         var all = await db.Reviews.AsNoTracking().Where(r => calcIds.Contains(r.CalculationId)).Select(r => new { r.CalculationId, r.Outcome, r.At, r.Id }).ToListAsync(ct);
-        return all.GroupBy(r => r.CalculationId).ToDictionary(g => g.Key, g => g.OrderBy(r => r.At).ThenBy(r => r.Id).Last().Outcome switch
-        {
-            ReviewOutcome.Verified => ReviewState.Verified,
-            ReviewOutcome.Returned => ReviewState.Returned,
-            _ => ReviewState.Reopened,
-        });
+        return all.GroupBy(r => r.CalculationId).ToDictionary(g => g.Key, g => ReviewStates.After(g.MaxBy(r => r.Id)!.Outcome));
     }
 }

@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Reviews;
 
 namespace BarrierLedger.Ledger.Export;
 
@@ -68,15 +69,6 @@ public sealed record ExportModel(
             return described.Distinct().Count() == 1 ? described[0] : string.Join("; ", parts.Select((p, i) => $"{p}: {described[i]}"));
         }
     }
-}
-
-/// <summary>Review status of a saddle point, as the exported tables state it.</summary>
-public enum ReviewState
-{
-    AwaitingReview,
-    Verified,
-    Returned,
-    Reopened,
 }
 
 /// <summary>

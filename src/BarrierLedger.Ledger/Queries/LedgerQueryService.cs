@@ -17,7 +17,7 @@ public sealed record LedgerFilter
     public string? OwnerUserId { get; init; }
     /// <summary>Case-insensitive text in the reaction's label, description or level of theory.</summary>
     public string? Text { get; init; }
-    public ReviewStatus? ReviewStatus { get; init; }
+    public ReviewState? ReviewStatus { get; init; }
     public Verdict? Verdict { get; init; }
     public bool IncludeRetired { get; init; }
     /// <summary>Only reactions whose barrier breaks a consistency rule (or has no derivation yet).</summary>
@@ -36,7 +36,7 @@ public sealed record LedgerFilter
 public sealed record LedgerRow(
     int ReactionId, string Label, string Description, string OwnerUserId, string OwnerName,
     Energy? BarrierGibbs, Energy? ReactionGibbs, Energy? BarrierElectronic, double? RateConstantPerSecond, double? HalfLifeSeconds, double? TemperatureKelvin,
-    Verdict? Verdict, ReviewStatus? ReviewStatus, int SaddlePointCount, string LevelOfTheory, bool Consistent,
+    Verdict? Verdict, ReviewState? ReviewStatus, int SaddlePointCount, string LevelOfTheory, bool Consistent,
     IReadOnlyList<ConsistencyReason> ConsistencyReasons, bool Derived, bool Stale, bool Retired, long Version);
 
 /// <summary>The ledger of one study: its rows and the energy model they were (or should be) computed under.</summary>
@@ -73,7 +73,12 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
         if (filter.OnlyInconsistent) q = q.Where(r => r.Derivation == null || !r.Derivation.Consistent);
         // The status filters go to the store; a reaction whose summary was never computed (SaddlePointCount null: stored
         // before the summary existed) is read too and filtered below once its status is known.
-        if (filter.ReviewStatus is { } wanted) q = q.Where(r => r.SaddlePointCount == null || r.ReviewStatus == wanted);
+        // Asking for "awaiting review" finds the reopened reactions too: both wait for a reviewer.
+        if (filter.ReviewStatus is { } wanted)
+        {
+            var states = wanted == ReviewState.AwaitingReview ? new[] { ReviewState.AwaitingReview, ReviewState.Reopened } : [wanted];
+            q = q.Where(r => r.SaddlePointCount == null || (r.ReviewStatus != null && states.Contains(r.ReviewStatus.Value)));
+        }
         if (filter.Verdict is { } verdict) q = q.Where(r => r.SaddlePointCount == null || r.CheckVerdict == verdict);
         // One projected query over the reaction, its derivation row and its owner: the check and review status were summarised
         // onto the reaction when they last changed (ReactionStatusSummary), so no state, check or review row is read here.
@@ -111,7 +116,7 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
                 E(d?.BarrierGibbsHartree), E(d?.ReactionGibbsHartree), E(d?.BarrierElectronicHartree), d?.RateConstantPerSecond, d?.HalfLifeSeconds, d?.TemperatureKelvin,
                 status.Verdict, status.ReviewStatus, status.SaddlePointCount, d?.LevelOfTheory ?? "", d?.Consistent ?? false,
                 d is null ? [] : Reasons(d.ConsistencyJson), d is not null, stale, r.Retired, r.Version);
-            if (filter.ReviewStatus is { } rs && row.ReviewStatus != rs) continue;
+            if (filter.ReviewStatus is { } rs && !(row.ReviewStatus == rs || rs == ReviewState.AwaitingReview && row.ReviewStatus == ReviewState.Reopened)) continue;
             if (filter.Verdict is { } v && row.Verdict != v) continue;
             if (!string.IsNullOrWhiteSpace(filter.Text) && !(row.Label.Contains(filter.Text, StringComparison.OrdinalIgnoreCase)
                     || row.Description.Contains(filter.Text, StringComparison.OrdinalIgnoreCase)

@@ -17,7 +17,7 @@ public sealed record StateTermView(int SpeciesId, string SpeciesLabel, int Coeff
 
 /// <summary>A state of the pathway with its species, its saddle-point calculation and reaction-coordinate pairs ("C1–H5").</summary>
 public sealed record StateView(int Id, int Position, string Label, StateKind Kind, IReadOnlyList<StateTermView> Terms, int? SaddleCalculationId,
-    IReadOnlyList<(int A, int B)> CoordinatePairs, IReadOnlyList<string> CoordinateLabels, ReviewStatus? ReviewStatus, IReadOnlyList<ReviewEntry> ReviewHistory);
+    IReadOnlyList<(int A, int B)> CoordinatePairs, IReadOnlyList<string> CoordinateLabels, ReviewState? ReviewStatus, IReadOnlyList<ReviewEntry> ReviewHistory);
 
 /// <summary>A saddle point's frequency check with what the screen needs to animate its modes.</summary>
 public sealed record SaddleCheckView(int StateId, int CalculationId, string CalculationLabel, string LevelOfTheory, string UploadedByUserId, DateTimeOffset UploadedAt,
@@ -33,7 +33,11 @@ public sealed record ReactionDetail(
     EnergyModelView Model, bool Derived, bool Stale, Energy? BarrierGibbs, Energy? ReactionGibbs, double? RateConstantPerSecond, double? HalfLifeSeconds,
     string LevelOfTheory, bool Consistent, IReadOnlyList<ConsistencyReason> ConsistencyReasons,
     IReadOnlyList<StateView> States, IReadOnlyList<DerivedState> StateEnergies, IReadOnlyList<DerivedStep> Steps,
-    IReadOnlyList<SaddleCheckView> SaddleChecks, IReadOnlyList<ScanView> Scans);
+    IReadOnlyList<SaddleCheckView> SaddleChecks, IReadOnlyList<ScanView> Scans)
+{
+    /// <summary>What the reaction's definition says about its kinetics (competing channels, run conditions), or null.</summary>
+    public Core.Kinetics.KineticsSetup? Kinetics { get; init; }
+}
 
 /// <summary>The reaction screen's query: a fixed number of round trips whatever the number of states, scans or checks.</summary>
 public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> factory)
@@ -46,7 +50,7 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
         {
             x.Id, x.Label, x.Description, x.StudyId, StudyName = x.Study!.Name, x.OwnerUserId, x.Retired, x.Version, x.InputsRevision,
             OwnerName = db.Users.Where(u => u.Id == x.OwnerUserId).Select(u => u.DisplayName != "" ? u.DisplayName : u.UserName).FirstOrDefault(),
-            x.Derivation,
+            x.Derivation, x.Kinetics,
         }).FirstOrDefaultAsync(ct);
         if (r is null) return null;
         var (settings, modelRow) = await DerivationService.EffectiveModelAsync(db, r.StudyId, ct);
@@ -70,8 +74,8 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
             var pairs = s.CoordinatePairs.OrderBy(p => p.Id).Select(p => (p.AtomA, p.AtomB)).ToList();
             var labels = pairs.Select(p => mol is not null && p.AtomA <= mol.AtomCount && p.AtomB <= mol.AtomCount
                 ? $"{mol.AtomLabel(p.AtomA - 1)}–{mol.AtomLabel(p.AtomB - 1)}" : $"{p.AtomA}–{p.AtomB}").ToList();
-            ReviewStatus? status = s.Kind == StateKind.SaddlePoint
-                ? ReviewStatusText.FromLatest(calc is not null && latest.TryGetValue(calc.Id, out var o) ? o : null) : null;
+            ReviewState? status = s.Kind == StateKind.SaddlePoint
+                ? ReviewStates.After(calc is not null && latest.TryGetValue(calc.Id, out var o) ? o : null) : null;
             stateViews.Add(new StateView(s.Id, s.Position, s.Label, s.Kind,
                 [.. s.Terms.OrderBy(t => t.Id).Select(t => new StateTermView(t.SpeciesId, t.Species!.Label, t.Coefficient, t.Species.Formula,
                     t.Species.PointGroup, t.Species.SymmetryNumber, t.Species.SymmetryNumberOverride is not null))],
@@ -111,6 +115,6 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
             d?.ReactionGibbsHartree is { } rg ? Energy.FromHartree(rg) : null, d?.RateConstantPerSecond, d?.HalfLifeSeconds, d?.LevelOfTheory ?? "",
             d?.Consistent ?? false, d is null ? [] : DerivedJson.Read<List<ConsistencyReason>>(d.ConsistencyJson), stateViews,
             d is null ? [] : DerivedJson.Read<List<DerivedState>>(d.StatesJson), d is null ? [] : DerivedJson.Read<List<DerivedStep>>(d.StepsJson),
-            checkViews, scanViews);
+            checkViews, scanViews) { Kinetics = Reactions.ReactionDefinition.ReadKinetics(r.Kinetics) };
     }
 }

@@ -45,7 +45,7 @@ public sealed record WorkspaceScan(int Id, string Label, int SpeciesId, string S
     bool HasGeometries, string UploadedByName, DateTimeOffset UploadedAt, int? StoredFileId, string? FileName, bool InReaction, bool Retired, long Version);
 
 /// <summary>A reaction of the study: its states in order ("A + B → TS → P"), its ledger status and stored barrier.</summary>
-public sealed record WorkspaceReaction(int Id, string Label, string Description, string Pathway, int StateCount, Verdict? Verdict, ReviewStatus? ReviewStatus,
+public sealed record WorkspaceReaction(int Id, string Label, string Description, string Pathway, int StateCount, Verdict? Verdict, ReviewState? ReviewStatus,
     double? BarrierGibbsHartree, bool Consistent, bool Retired, long Version);
 
 /// <summary>

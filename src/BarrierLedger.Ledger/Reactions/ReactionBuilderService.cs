@@ -4,6 +4,7 @@ using BarrierLedger.Core.Geometry;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.EntityFrameworkCore;
 
@@ -24,7 +25,7 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
     {
         await using var db = await factory.CreateDbContextAsync(ct);
         var r = await db.Reactions.AsNoTracking().Where(x => x.Id == reactionId)
-            .Select(x => new { x.Id, x.StudyId, x.Label, x.Description, x.Version, x.Retired }).FirstOrDefaultAsync(ct);
+            .Select(x => new { x.Id, x.StudyId, x.Label, x.Description, x.Version, x.Retired, x.Kinetics }).FirstOrDefaultAsync(ct);
         if (r is null) return null;
         var states = await db.ReactionStates.AsNoTracking().Where(s => s.ReactionId == reactionId).OrderBy(s => s.Position)
             .Include(s => s.Terms).Include(s => s.CoordinatePairs).AsSplitQuery().ToListAsync(ct);
@@ -36,7 +37,7 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
         var definition = new ReactionDefinition(r.Label, r.Description, [.. states.Select(s => new StateDefinition(s.Label, s.Kind,
             [.. s.Terms.OrderBy(t => t.Id).Select(t => new TermDefinition(t.SpeciesId, t.Coefficient))], s.SaddleCalculationId,
             [.. s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new AtomPair(p.AtomA, p.AtomB))],
-            s.SaddleCalculationId is { } c && saddleSpecies.TryGetValue(c, out var sp) ? [.. scans[sp]] : []))]);
+            s.SaddleCalculationId is { } c && saddleSpecies.TryGetValue(c, out var sp) ? [.. scans[sp]] : []))], ReactionDefinition.ReadKinetics(r.Kinetics));
         return new StoredDefinition(r.Id, r.StudyId, r.Version, r.Retired, definition);
     }
 
@@ -85,7 +86,8 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
             var r = await ResolveAsync(db, studyId, definition, null, token);
             if (r.Problems.Count > 0) return ReactionSaveResult.Invalid(r.Problems);
             var before = await CheckFingerprintsAsync(db, r.Calculations.Keys, token);
-            var reaction = new Reaction { StudyId = studyId, Label = definition.Label.Trim(), Description = definition.Description.Trim(), OwnerUserId = userId };
+            var reaction = new Reaction { StudyId = studyId, Label = definition.Label.Trim(), Description = definition.Description.Trim(), OwnerUserId = userId,
+                Kinetics = ReactionDefinition.KineticsJson(definition.Kinetics) };
             for (var i = 0; i < definition.States.Count; i++)
             {
                 var state = new ReactionState { Position = i };
@@ -132,6 +134,7 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
             db.Entry(reaction).State = EntityState.Modified; // a new version even when only its states change
             reaction.Label = definition.Label.Trim();
             reaction.Description = definition.Description.Trim();
+            reaction.Kinetics = ReactionDefinition.KineticsJson(definition.Kinetics);
             var states = reaction.States.OrderBy(s => s.Position).ToList();
             for (var i = 0; i < definition.States.Count; i++)
             {
@@ -203,17 +206,12 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
         foreach (var (label, id) in saddles)
         {
             if (!before.TryGetValue(id, out var was) || !after.TryGetValue(id, out var now) || was == now) continue;
-            var last = await db.Reviews.Where(v => v.CalculationId == id).OrderByDescending(v => v.Id).FirstOrDefaultAsync(ct);
-            if (last is not { Outcome: ReviewOutcome.Verified or ReviewOutcome.Returned }) continue;
-            var calcLabel = r.Calculations[id].Label;
-            db.Reviews.Add(new Review
-            {
-                CalculationId = id, Outcome = ReviewOutcome.Reopened, ReviewerUserId = userId, At = time.GetUtcNow(),
-                Comment = $"Reaction '{reaction.Label}' was edited: the bonds or scan of state '{label}' changed, so its check changed; it awaits review again.",
-            });
+            if (await ReviewStates.ReopenIfDecidedAsync(db, id, userId, time.GetUtcNow(),
+                    $"Reaction '{reaction.Label}' was edited: the bonds or scan of state '{label}' changed, so its check changed; it awaits review again.", ct)
+                is not { } last) continue;
             audit.Record(db, userId, "review.reopened", nameof(Calculation), id,
-                $"Saddle point '{calcLabel}' in state '{label}' of reaction '{reaction.Label}': its check evidence changed after it was {last.Outcome.ToString().ToLowerInvariant()}; it awaits review again.",
-                before: last.Outcome.ToString(), after: "awaiting review");
+                $"Saddle point '{r.Calculations[id].Label}' in state '{label}' of reaction '{reaction.Label}': its check evidence changed after it was {last.ToString().ToLowerInvariant()}; it awaits review again.",
+                before: last.ToString(), after: "awaiting review");
             reopened.Add(id);
         }
         if (reopened.Count == 0) return;
@@ -251,6 +249,8 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
             problems.Add(new(null, $"the study already has a reaction labelled '{d.Label.Trim()}'; give this one another label"));
         for (var i = 0; i < d.States.Count; i++)
             if (!string.IsNullOrWhiteSpace(d.States[i].Label) && Core.Text.TextRules.LabelProblem(d.States[i].Label, "state label") is { } sp) problems.Add(new(i, sp));
+        foreach (var (key, message) in d.Kinetics?.Problems([.. d.States.Select(s => (s.Label, s.Kind == StateKind.SaddlePoint))]) ?? [])
+            problems.Add(new(null, $"kinetics, {key.Replace('_', ' ')} {message}"));
 
         var speciesIds = d.States.SelectMany(s => s.Terms).Select(t => t.SpeciesId).Distinct().ToList();
         var species = await db.Species.AsNoTracking().Where(s => EF.Parameter(speciesIds).Contains(s.Id) && s.StudyId == studyId)

@@ -83,7 +83,7 @@ public sealed class ReactionBundleService(IDbContextFactory<LedgerDbContext> fac
             s.Kind == StateKind.SaddlePoint ? BundleStateKind.SaddlePoint : BundleStateKind.Minimum,
             [.. s.Terms.OrderBy(t => t.Id).Select(t => new BundleTerm(speciesLabel[t.SpeciesId], t.Coefficient))],
             s.SaddleCalculationId is { } cid ? calcLabels[cid] : null,
-            [.. s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new BundleAtomPair(p.AtomA, p.AtomB))]))]);
+            [.. s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new BundleAtomPair(p.AtomA, p.AtomB))]))], ReactionDefinition.ReadKinetics(reaction.Kinetics));
 
         var bundle = new Bundle(BundleSchema.CurrentFormatVersion, new BundleStudy(reaction.Study!.Name, reaction.Study.Description),
             [.. species.Select(s => new BundleSpecies(s.Label, s.Charge, s.Multiplicity, s.SymmetryNumberOverride))], bundleCalcs, [bundleReaction], bundleScans, [],

@@ -23,9 +23,19 @@ public sealed record StateDefinition(string Label, StateKind Kind, IReadOnlyList
     [JsonIgnore] public IReadOnlyList<int> Scans => ScanIds ?? [];
 }
 
-/// <summary>A reaction as built in the browser or sent to the API: its label, description and ordered states.</summary>
-public sealed record ReactionDefinition(string Label, string Description, IReadOnlyList<StateDefinition> States)
+/// <summary>
+/// A reaction as built in the browser or sent to the API: its label, description and ordered states, and what it says about its
+/// kinetics (competing channels, the conditions of a run; null for nothing).
+/// </summary>
+public sealed record ReactionDefinition(string Label, string Description, IReadOnlyList<StateDefinition> States, Core.Kinetics.KineticsSetup? Kinetics = null)
 {
+    /// <summary>The kinetics setup as stored (null when nothing is set).</summary>
+    public static string? KineticsJson(Core.Kinetics.KineticsSetup? setup) => setup is null || setup.IsEmpty ? null : JsonSerializer.Serialize(setup, DerivedJson.Options);
+
+    /// <summary>The stored kinetics setup, or null.</summary>
+    public static Core.Kinetics.KineticsSetup? ReadKinetics(string? json) =>
+        string.IsNullOrWhiteSpace(json) ? null : JsonSerializer.Deserialize<Core.Kinetics.KineticsSetup>(json, DerivedJson.Options);
+
     /// <summary>The definition as JSON, as the audit trail keeps each version.</summary>
     public string ToJson() => JsonSerializer.Serialize(this, DerivedJson.Options);
 }

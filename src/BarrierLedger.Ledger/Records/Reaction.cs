@@ -18,6 +18,8 @@ public class Reaction : IVersioned, IRetirable
     public DateTimeOffset? RetiredAt { get; set; }
     public string? RetiredByUserId { get; set; }
     public long Version { get; set; }
+    /// <summary>What the definition says about its kinetics (competing channels, run conditions) as JSON, or null for nothing.</summary>
+    public string? Kinetics { get; set; }
 
     // The ledger row's status, kept by the ledger whenever a check, a review or a saddle-point link changes
     // (see Derivation/ReactionStatusSummary.cs), so listing a study reads one row per reaction. Not a user edit: writing it
@@ -27,7 +29,7 @@ public class Reaction : IVersioned, IRetirable
     /// <summary>The worst frequency-check verdict of its saddle points (a saddle point without a check counts as failed); null without saddle points.</summary>
     public Verdict? CheckVerdict { get; set; }
     /// <summary>Verified only when every saddle point is, Returned when any is, else awaiting review; null without saddle points.</summary>
-    public ReviewStatus? ReviewStatus { get; set; }
+    public ReviewState? ReviewStatus { get; set; }
 
     public List<ReactionState> States { get; set; } = [];
     public ReactionDerivation? Derivation { get; set; }

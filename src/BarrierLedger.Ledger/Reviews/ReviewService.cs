@@ -9,34 +9,6 @@ using Microsoft.EntityFrameworkCore;
 
 namespace BarrierLedger.Ledger.Reviews;
 
-/// <summary>Where a saddle point stands in review.</summary>
-public enum ReviewStatus
-{
-    AwaitingReview,
-    Verified,
-    Returned,
-}
-
-/// <summary>Words for a review status, as shown to users.</summary>
-public static class ReviewStatusText
-{
-    public static string Of(ReviewStatus s) => s switch
-    {
-        ReviewStatus.AwaitingReview => "Awaiting review",
-        ReviewStatus.Verified => "Verified",
-        ReviewStatus.Returned => "Returned",
-        _ => throw new ArgumentOutOfRangeException(nameof(s), s, "Unknown review status."),
-    };
-
-    /// <summary>The status a calculation's latest review entry gives (none or a reopening: awaiting review).</summary>
-    public static ReviewStatus FromLatest(ReviewOutcome? latest) => latest switch
-    {
-        ReviewOutcome.Verified => ReviewStatus.Verified,
-        ReviewOutcome.Returned => ReviewStatus.Returned,
-        _ => ReviewStatus.AwaitingReview,
-    };
-}
-
 /// <summary>One entry of a review history.</summary>
 public sealed record ReviewEntry(int Id, int CalculationId, string CalculationLabel, ReviewOutcome Outcome, string Comment, string ReviewerUserId, string ReviewerName, DateTimeOffset At);
 
@@ -174,18 +146,18 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
             var latest = await db.Reviews.Where(v => v.CalculationId == calculationId).OrderByDescending(v => v.Id)
                 .Select(v => new { v.Id, v.Outcome, v.ReviewerUserId, v.At }).FirstOrDefaultAsync(token);
             var previous = (ReviewOutcome?)latest?.Outcome;
-            if (basis is not null && (basis.Exact ? latest?.Id != basis.LatestReviewId : previous is not (null or ReviewOutcome.Reopened)))
+            if (basis is not null && (basis.Exact ? latest?.Id != basis.LatestReviewId : !ReviewStates.IsWaiting(ReviewStates.After(previous))))
             {
                 var who = latest is null ? "someone" : await db.Users.Where(u => u.Id == latest.ReviewerUserId).Select(u => u.DisplayName ?? u.UserName).FirstOrDefaultAsync(token) ?? latest.ReviewerUserId;
                 throw new ReviewConflictException(latest is null
                     ? $"Saddle point '{calc.Label}' changed while you were deciding; nothing was recorded. Reload to see it as it is now."
-                    : $"Saddle point '{calc.Label}' was {ReviewStatusText.Of(ReviewStatusText.FromLatest(latest.Outcome)).ToLowerInvariant()} by {who} at {latest.At:yyyy-MM-dd HH:mm} UTC while you were deciding; nothing was recorded. Reload to see it as it is now.");
+                    : $"Saddle point '{calc.Label}' was {latest.Outcome.ToString().ToLowerInvariant()} by {who} at {latest.At:yyyy-MM-dd HH:mm} UTC while you were deciding; nothing was recorded. Reload to see it as it is now.");
             }
             var review = new Review { CalculationId = calculationId, Outcome = outcome, Comment = comment.Trim(), ReviewerUserId = reviewerUserId, At = time.GetUtcNow() };
             db.Reviews.Add(review);
             audit.Record(db, reviewerUserId, outcome == ReviewOutcome.Verified ? "review.verified" : "review.returned", nameof(Calculation), calculationId,
                 $"Saddle point '{calc.Label}' {(outcome == ReviewOutcome.Verified ? selfReview ? "verified by its own uploader (self-review)" : "verified" : "returned")}" + (comment.Length > 0 ? $": {comment.Trim()}" : "."),
-                before: ReviewStatusText.Of(ReviewStatusText.FromLatest(previous)), after: ReviewStatusText.Of(ReviewStatusText.FromLatest(outcome)));
+                before: ReviewStates.Text(ReviewStates.After(previous)), after: ReviewStates.Text(ReviewStates.After(outcome)));
             await db.SaveChangesAsync(token);
             await ReactionStatusSummary.RefreshForCalculationsAsync(db, [calculationId], token);
             await tx.CommitAsync(token);

@@ -53,7 +53,7 @@ internal static class BundleImport
             draft.Reactions.Add(new DraftReaction(r.Label, r.Description, [.. r.States.Select(s => new DraftState(s.Label,
                 s.Kind == BundleStateKind.SaddlePoint ? StateKind.SaddlePoint : StateKind.Minimum,
                 [.. s.Terms.Select(t => new DraftTerm(t.Species, t.Coefficient))], s.Calculation,
-                [.. s.ReactionCoordinate.Select(p => (p.First, p.Second))]))]));
+                [.. s.ReactionCoordinate.Select(p => (p.First, p.Second))]))], r.Kinetics));
         foreach (var s in b.Scans)
             draft.Scans.Add(new DraftScan(s.Label, s.Species, s.LevelOfTheory?.ToString() ?? "", s.Coordinate, s.Points, FileKey(s.PointsFile ?? s.GeometriesFile)));
         foreach (var i in b.Ircs)

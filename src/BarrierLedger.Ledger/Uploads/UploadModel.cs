@@ -125,7 +125,7 @@ public sealed record DraftTerm(string Species, int Coefficient);
 
 public sealed record DraftState(string Label, StateKind Kind, IReadOnlyList<DraftTerm> Terms, string? Calculation, IReadOnlyList<(int A, int B)> ReactionCoordinate);
 
-public sealed record DraftReaction(string Label, string Description, IReadOnlyList<DraftState> States);
+public sealed record DraftReaction(string Label, string Description, IReadOnlyList<DraftState> States, Core.Kinetics.KineticsSetup? Kinetics = null);
 
 public sealed record DraftScan(string Label, string Species, string LevelOfTheory, ScanCoordinate Coordinate, IReadOnlyList<ScanPoint> Points, string? File);
 

@@ -8,6 +8,7 @@ using BarrierLedger.Core.Vibrations;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
+using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.Storage;
@@ -196,17 +197,12 @@ public sealed class UploadService(
             ircIds.Add(irc.Id);
             ircSpecies.Add(saddle.SpeciesId);
             // New connection evidence for a reviewed saddle point: its check changes, so it awaits review again (the old review stays).
-            var last = await db.Reviews.Where(v => v.CalculationId == saddle.Id).OrderByDescending(v => v.Id).FirstOrDefaultAsync(ct);
-            if (last is { Outcome: ReviewOutcome.Verified or ReviewOutcome.Returned })
+            if (await ReviewStates.ReopenIfDecidedAsync(db, saddle.Id, user, now,
+                    $"IRC '{irc.Label}' was added (upload {upload.Id}); its connection check joins the evidence, so the saddle point awaits review again.", ct) is { } last)
             {
-                db.Reviews.Add(new Review
-                {
-                    CalculationId = saddle.Id, Outcome = ReviewOutcome.Reopened, ReviewerUserId = user, At = now,
-                    Comment = $"IRC '{irc.Label}' was added (upload {upload.Id}); its connection check joins the evidence, so the saddle point awaits review again.",
-                });
                 audit.Record(db, user, "review.reopened", nameof(Calculation), saddle.Id,
-                    $"Saddle point '{saddle.Label}': IRC '{irc.Label}' added after it was {last.Outcome.ToString().ToLowerInvariant()}; it awaits review again.",
-                    before: last.Outcome.ToString(), after: "awaiting review");
+                    $"Saddle point '{saddle.Label}': IRC '{irc.Label}' added after it was {last.ToString().ToLowerInvariant()}; it awaits review again.",
+                    before: last.ToString(), after: "awaiting review");
                 reopened.Add(saddle.Id);
             }
         }
@@ -216,7 +212,8 @@ public sealed class UploadService(
         var newReactions = new List<Reaction>(plan.NewReactions.Count);
         foreach (var r in plan.NewReactions)
         {
-            var reaction = new Reaction { StudyId = study.Id, Label = r.Label, Description = r.Description, OwnerUserId = user };
+            var reaction = new Reaction { StudyId = study.Id, Label = r.Label, Description = r.Description, OwnerUserId = user,
+                Kinetics = Reactions.ReactionDefinition.KineticsJson(r.Kinetics) };
             var position = 0;
             foreach (var s in r.States)
             {
@@ -243,17 +240,12 @@ public sealed class UploadService(
             if (state.SaddleCalculationId == calc.Id) continue;
             if (state.SaddleCalculationId is { } oldId)
             {
-                var last = await db.Reviews.Where(v => v.CalculationId == oldId).OrderByDescending(v => v.Id).FirstOrDefaultAsync(ct);
-                if (last is { Outcome: ReviewOutcome.Verified or ReviewOutcome.Returned })
+                if (await ReviewStates.ReopenIfDecidedAsync(db, oldId, user, now,
+                        $"Replaced by calculation '{calc.Label}' (upload {upload.Id}); the new saddle point awaits review.", ct) is { } last)
                 {
-                    db.Reviews.Add(new Review
-                    {
-                        CalculationId = oldId, Outcome = ReviewOutcome.Reopened, ReviewerUserId = user, At = now,
-                        Comment = $"Replaced by calculation '{calc.Label}' (upload {upload.Id}); the new saddle point awaits review.",
-                    });
                     audit.Record(db, user, "review.reopened", nameof(ReactionState), state.Id,
-                        $"State '{state.Label}': a new saddle-point calculation replaced one that was {last.Outcome.ToString().ToLowerInvariant()}; it awaits review again.",
-                        before: $"calculation {oldId} ({last.Outcome})", after: $"calculation {calc.Id} (awaiting review)");
+                        $"State '{state.Label}': a new saddle-point calculation replaced one that was {last.ToString().ToLowerInvariant()}; it awaits review again.",
+                        before: $"calculation {oldId} ({last})", after: $"calculation {calc.Id} (awaiting review)");
                     reopened.Add(oldId);
                 }
             }

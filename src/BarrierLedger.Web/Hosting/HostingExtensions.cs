@@ -48,6 +48,7 @@ public static class HostingExtensions
         var factory = app.Services.GetRequiredService<IDbContextFactory<LedgerDbContext>>();
         await LedgerDatabase.PrepareAsync(options, factory);
         TransportSecurity.MakeDataOwnerOnly(options);
+        await KeyRingProtection.RemoveUnencryptedKeysAsync(factory, app.Services.GetRequiredService<KeyEncryptionKey>(), app.Logger);
         app.Logger.LogInformation("Ledger store: {Store}; web root: {WebRoot}", LedgerDatabase.Describe(options), app.Environment.WebRootPath);
 
         await using var scope = app.Services.CreateAsyncScope();

@@ -20,7 +20,7 @@ namespace BarrierLedger.Ledger.Tests.Derivation;
 /// </summary>
 public sealed class ReactionStatusSummaryTests
 {
-    private static async Task<(int? Count, Verdict? Verdict, ReviewStatus? Review)> StoredAsync(TempLedger ledger, int reactionId)
+    private static async Task<(int? Count, Verdict? Verdict, ReviewState? Review)> StoredAsync(TempLedger ledger, int reactionId)
     {
         await using var db = await ledger.DbAsync();
         var r = await db.Reactions.AsNoTracking().SingleAsync(x => x.Id == reactionId);
@@ -41,19 +41,19 @@ public sealed class ReactionStatusSummaryTests
         var reviews = ledger.Get<ReviewService>();
 
         // Stored by the upload: one saddle point, its check passed, nobody has looked at it yet.
-        Assert.Equal((1, Verdict.Passed, ReviewStatus.AwaitingReview), await StoredAsync(ledger, reactionId));
+        Assert.Equal((1, Verdict.Passed, ReviewState.AwaitingReview), await StoredAsync(ledger, reactionId));
         var tsCalc = Assert.Single(await reviews.QueueAsync(studyId)).CalculationId;
 
         await reviews.VerifyAsync(tsCalc, reviewer, "one clean reaction mode");
-        Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), await StoredAsync(ledger, reactionId));
-        Assert.Equal(ReviewStatus.Verified, Assert.Single((await query.GetLedgerRowsAsync(studyId)).Rows).ReviewStatus);
+        Assert.Equal((1, Verdict.Passed, ReviewState.Verified), await StoredAsync(ledger, reactionId));
+        Assert.Equal(ReviewState.Verified, Assert.Single((await query.GetLedgerRowsAsync(studyId)).Rows).ReviewStatus);
 
         await reviews.ReturnAsync(tsCalc, reviewer, "the scan maximum is elsewhere");
-        Assert.Equal((1, Verdict.Passed, ReviewStatus.Returned), await StoredAsync(ledger, reactionId));
-        Assert.Equal(ReviewStatus.Returned, Assert.Single((await query.GetLedgerRowsAsync(studyId)).Rows).ReviewStatus);
+        Assert.Equal((1, Verdict.Passed, ReviewState.Returned), await StoredAsync(ledger, reactionId));
+        Assert.Equal(ReviewState.Returned, Assert.Single((await query.GetLedgerRowsAsync(studyId)).Rows).ReviewStatus);
         // The status filters read the stored summary.
-        Assert.Single((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewStatus.Returned })).Rows);
-        Assert.Empty((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewStatus.Verified })).Rows);
+        Assert.Single((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewState.Returned })).Rows);
+        Assert.Empty((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewState.Verified })).Rows);
 
         // A new calculation for the returned saddle point reopens it: awaiting review, and its check (no modes) fails.
         var stateId = (await ledger.Get<ReactionQueryService>().GetReactionAsync(reactionId))!.States.Single(s => s.Kind == StateKind.SaddlePoint).Id;
@@ -61,9 +61,9 @@ public sealed class ReactionStatusSummaryTests
             new UploadChoices { StudyId = studyId, SpeciesLabel = "TS", Kind = CalculationKind.SaddlePoint, LevelOfTheory = H3System.Level, AttachToStateId = stateId },
             member);
         Assert.True(again.Stored, string.Join("\n", again.Errors));
-        Assert.Equal((1, Verdict.Failed, ReviewStatus.AwaitingReview), await StoredAsync(ledger, reactionId));
+        Assert.Equal((1, Verdict.Failed, ReviewState.AwaitingReview), await StoredAsync(ledger, reactionId));
         var row = Assert.Single((await query.GetLedgerRowsAsync(studyId)).Rows);
-        Assert.Equal(ReviewStatus.AwaitingReview, row.ReviewStatus);
+        Assert.Equal(ReviewState.AwaitingReview, row.ReviewStatus);
         Assert.Equal(Verdict.Failed, row.Verdict);
         Assert.Single((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { Verdict = Verdict.Failed })).Rows);
         Assert.Empty((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { Verdict = Verdict.Passed })).Rows);
@@ -83,7 +83,7 @@ public sealed class ReactionStatusSummaryTests
         Assert.True((await models.SaveGroupDefaultAsync(m.Settings with { SignificantImaginaryCm1 = 2000 }, m.Version, "admin")).Saved);
         await ledger.Get<RecomputeService>().WhenIdleAsync();
 
-        Assert.Equal((1, Verdict.Failed, ReviewStatus.AwaitingReview), await StoredAsync(ledger, reactionId));
+        Assert.Equal((1, Verdict.Failed, ReviewState.AwaitingReview), await StoredAsync(ledger, reactionId));
         Assert.Equal(Verdict.Failed, Assert.Single((await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(stored.StudyId!.Value)).Rows).Verdict);
     }
 
@@ -99,21 +99,21 @@ public sealed class ReactionStatusSummaryTests
         // What a ledger file migrated from before the summary columns holds: no summary at all.
         await using (var db = await ledger.DbAsync())
             await db.Reactions.ExecuteUpdateAsync(u => u.SetProperty(r => r.SaddlePointCount, (int?)null)
-                .SetProperty(r => r.CheckVerdict, (Verdict?)null).SetProperty(r => r.ReviewStatus, (ReviewStatus?)null));
+                .SetProperty(r => r.CheckVerdict, (Verdict?)null).SetProperty(r => r.ReviewStatus, (ReviewState?)null));
 
         var query = ledger.Get<LedgerQueryService>();
         var row = Assert.Single((await query.GetLedgerRowsAsync(studyId)).Rows);
-        Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), (row.SaddlePointCount, row.Verdict, row.ReviewStatus));
-        Assert.Single((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewStatus.Verified, Verdict = Verdict.Passed })).Rows);
-        Assert.Empty((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewStatus.Returned })).Rows);
+        Assert.Equal((1, Verdict.Passed, ReviewState.Verified), (row.SaddlePointCount, row.Verdict, row.ReviewStatus));
+        Assert.Single((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewState.Verified, Verdict = Verdict.Passed })).Rows);
+        Assert.Empty((await query.GetLedgerRowsAsync(studyId, new LedgerFilter { ReviewStatus = ReviewState.Returned })).Rows);
 
         // A recompute pass writes the summary back; so does the start-up (a restored old backup is migrated there).
         await ledger.Get<RecomputeService>().RecomputeAsync([studyId]);
-        Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
+        Assert.Equal((1, Verdict.Passed, ReviewState.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
         await using (var db = await ledger.DbAsync())
             await db.Reactions.ExecuteUpdateAsync(u => u.SetProperty(r => r.SaddlePointCount, (int?)null));
         await LedgerDatabase.PrepareAsync(ledger.Options, ledger.Factory);
-        Assert.Equal((1, Verdict.Passed, ReviewStatus.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
+        Assert.Equal((1, Verdict.Passed, ReviewState.Verified), await StoredAsync(ledger, stored.ReactionIds.Single()));
     }
 
     [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
@@ -135,7 +135,7 @@ public sealed class ReactionStatusSummaryTests
             .Select(s => new { s.ReactionId, s.SaddleCalculationId }).ToListAsync();
         var checks = await db.FrequencyChecks.AsNoTracking().ToDictionaryAsync(c => c.CalculationId, c => c.Verdict);
         var latest = (await db.Reviews.AsNoTracking().ToListAsync()).GroupBy(v => v.CalculationId).ToDictionary(g => g.Key, g => g.MaxBy(v => v.Id)!.Outcome);
-        var statuses = new HashSet<ReviewStatus?>();
+        var statuses = new HashSet<ReviewState?>();
         foreach (var r in reactions)
         {
             // The rule as the ledger screen states it (LedgerRow): worst verdict, a missing check failing; Verified only when all
@@ -146,14 +146,14 @@ public sealed class ReactionStatusSummaryTests
             Verdict? expectedVerdict = mine.Count == 0 ? null
                 : verdicts.Contains(null) || verdicts.Contains(Verdict.Failed) ? Verdict.Failed
                 : verdicts.Contains(Verdict.NeedsAttention) ? Verdict.NeedsAttention : Verdict.Passed;
-            ReviewStatus? expectedReview = mine.Count == 0 ? null
-                : outcomes.Contains(ReviewOutcome.Returned) ? ReviewStatus.Returned
-                : outcomes.All(o => o == ReviewOutcome.Verified) ? ReviewStatus.Verified : ReviewStatus.AwaitingReview;
+            ReviewState? expectedReview = mine.Count == 0 ? null
+                : outcomes.Contains(ReviewOutcome.Returned) ? ReviewState.Returned
+                : outcomes.All(o => o == ReviewOutcome.Verified) ? ReviewState.Verified : ReviewState.AwaitingReview;
             Assert.Equal((mine.Count, expectedVerdict, expectedReview), (r.SaddlePointCount, r.CheckVerdict, r.ReviewStatus));
             statuses.Add(r.ReviewStatus);
         }
         // The comparison covered returned and waiting reactions at least (a reaction with two saddle points may not be all verified).
-        Assert.Contains(ReviewStatus.Returned, statuses);
-        Assert.Contains(ReviewStatus.AwaitingReview, statuses);
+        Assert.Contains(ReviewState.Returned, statuses);
+        Assert.Contains(ReviewState.AwaitingReview, statuses);
     }
 }

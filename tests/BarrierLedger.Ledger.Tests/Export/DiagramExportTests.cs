@@ -3,6 +3,7 @@ using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Diagrams;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Export;
+using BarrierLedger.Ledger.Reviews;
 using SkiaSharp;
 
 namespace BarrierLedger.Ledger.Tests.Export;

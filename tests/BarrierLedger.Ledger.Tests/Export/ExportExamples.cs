@@ -4,6 +4,7 @@ using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Export;
+using BarrierLedger.Ledger.Reviews;
 
 namespace BarrierLedger.Ledger.Tests.Export;
 

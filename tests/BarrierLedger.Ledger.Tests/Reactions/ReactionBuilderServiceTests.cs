@@ -66,7 +66,7 @@ public sealed class ReactionBuilderServiceTests
             "by hand from the invented energies: −1.655 − (−1.170) − (−0.500)");
         Close.Relative(0.015 * 627.5094740631, built.BarrierElectronic.Value.KcalPerMol, 1e-10, "ΔE‡ (kcal/mol)",
             "CODATA 2018: 1 Eh = 4.3597447222071e-18 J × N_A 6.02214076e23 / (4184 J/kcal) = 627.5094740631 kcal/mol");
-        Assert.Equal(ReviewStatus.AwaitingReview, built.ReviewStatus);
+        Assert.Equal(ReviewState.AwaitingReview, built.ReviewStatus);
         Assert.Contains(await ledger.Get<ReviewService>().QueueAsync(studyId), q => q.CalculationId == tsCalc);
         await using var db = await ledger.DbAsync();
         var created = await db.AuditEvents.SingleAsync(a => a.Action == "reaction.created" && a.EntityId == saved.ReactionId!.Value.ToString());
@@ -149,7 +149,7 @@ public sealed class ReactionBuilderServiceTests
         Assert.Equal(v1.Version + 2, rebonded.Version);
         Assert.Contains(await reviews.QueueAsync(studyId), q => q.CalculationId == tsCalc && q.PreviouslyReviewed);
         var row = Assert.Single((await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId)).Rows);
-        Assert.Equal(ReviewStatus.AwaitingReview, row.ReviewStatus);
+        Assert.Equal(ReviewState.Reopened, row.ReviewStatus); // waiting again, and the ledger says it was decided before (docs/ledger.md, "Review states")
         var v3 = (await builder.GetDefinitionAsync(v1.ReactionId))!;
         Assert.Equal([new AtomPair(1, 2)], v3.Definition.States[1].Pairs);
         var history = await ledger.Get<AuditService>().GetEventsAsync(nameof(Reaction), v1.ReactionId.ToString());

@@ -88,7 +88,7 @@ public sealed class StoreTransferTests
         var reviewer = await ledger.AddUserAsync("reviewer-1", "Reviewer");
         await using var db = await ledger.DbAsync();
         var saddle = await db.Calculations.Where(c => c.Kind == BarrierLedger.Core.Chemistry.CalculationKind.SaddlePoint).OrderBy(c => c.Id).Select(c => c.Id).FirstAsync();
-        await ledger.Get<Reviews.ReviewService>().VerifyAsync(saddle, reviewer, "checked the mode by eye");
+        await ledger.Get<Ledger.Reviews.ReviewService>().VerifyAsync(saddle, reviewer, "checked the mode by eye");
         db.DataProtectionKeys.Add(new DataProtectionKey { FriendlyName = "key-1", Xml = "<key id=\"1\"/>" });
         await db.SaveChangesAsync();
     }

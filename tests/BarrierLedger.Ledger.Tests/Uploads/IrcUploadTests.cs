@@ -155,7 +155,7 @@ public sealed class IrcCheckTests
             Assert.Null(evidence.Connection);
             Assert.Equal("Agrees", evidence.ModePrediction!.Outcome);
         }
-        var reviews = ledger.Get<Reviews.ReviewService>();
+        var reviews = ledger.Get<Ledger.Reviews.ReviewService>();
         var reviewer = await ledger.AddUserAsync("pi", Accounts.Roles.Reviewer);
         var calcId = (await reviews.QueueAsync()).Single().CalculationId;
         await reviews.VerifyAsync(calcId, reviewer, "clean mode");

@@ -34,7 +34,7 @@ public sealed class WorkflowTests
         // Check and derivation are there at once; the saddle point waits for review.
         var row = Assert.Single((await ledgerQuery.GetLedgerRowsAsync(studyId)).Rows);
         Assert.Equal(Verdict.Passed, row.Verdict);
-        Assert.Equal(ReviewStatus.AwaitingReview, row.ReviewStatus);
+        Assert.Equal(ReviewState.AwaitingReview, row.ReviewStatus);
         Assert.False(row.Stale);
         Assert.Equal("member", row.OwnerName);
         var item = Assert.Single(await reviews.QueueAsync(studyId));
@@ -46,7 +46,7 @@ public sealed class WorkflowTests
         await Assert.ThrowsAsync<ArgumentException>(() => reviews.ReturnAsync(item.CalculationId, reviewer, "  "));
         await reviews.VerifyAsync(item.CalculationId, reviewer, "one clean reaction mode");
         Assert.Empty(await reviews.QueueAsync(studyId));
-        Assert.Equal(ReviewStatus.Verified, Assert.Single((await ledgerQuery.GetLedgerRowsAsync(studyId)).Rows).ReviewStatus);
+        Assert.Equal(ReviewState.Verified, Assert.Single((await ledgerQuery.GetLedgerRowsAsync(studyId)).Rows).ReviewStatus);
 
         // A new calculation for the verified saddle point reopens it; the old review stays in the history.
         var stateId = (await ledger.Get<ReactionQueryService>().GetReactionAsync(row.ReactionId))!.States.Single(s => s.Kind == StateKind.SaddlePoint).Id;
@@ -55,7 +55,7 @@ public sealed class WorkflowTests
             member);
         Assert.True(reopened.Stored, string.Join("\n", reopened.Errors));
         var after = Assert.Single((await ledgerQuery.GetLedgerRowsAsync(studyId)).Rows);
-        Assert.Equal(ReviewStatus.AwaitingReview, after.ReviewStatus);
+        Assert.Equal(ReviewState.AwaitingReview, after.ReviewStatus);
         // The new calculation has no modes, so the check cannot pass; it says why.
         Assert.Equal(Verdict.Failed, after.Verdict);
         var queued = Assert.Single(await reviews.QueueAsync(studyId));

@@ -22,12 +22,15 @@ namespace BarrierLedger.Web.Tests.Endpoints;
 public sealed class ApiTestHost : WebApplicationFactory<Program>
 {
     private readonly IReadOnlyDictionary<string, string?> _settings;
+    private readonly bool _ownsDataDirectory;
 
     /// <param name="settings">Configuration over the test defaults; a null value leaves the setting to the app (e.g. LoadDemo unset).</param>
-    public ApiTestHost(IReadOnlyDictionary<string, string?>? settings = null)
+    /// <param name="dataDirectory">An existing data folder to start on (kept at the end); by default a fresh one, deleted at the end.</param>
+    public ApiTestHost(IReadOnlyDictionary<string, string?>? settings = null, string? dataDirectory = null)
     {
         _settings = settings ?? new Dictionary<string, string?>();
-        DataDirectory = Path.Combine(Path.GetTempPath(), "bl-api-" + Guid.NewGuid().ToString("N")[..10]);
+        _ownsDataDirectory = dataDirectory is null;
+        DataDirectory = dataDirectory ?? Path.Combine(Path.GetTempPath(), "bl-api-" + Guid.NewGuid().ToString("N")[..10]);
         Directory.CreateDirectory(DataDirectory);
         UseKestrel();
         StartServer();
@@ -94,6 +97,7 @@ public sealed class ApiTestHost : WebApplicationFactory<Program>
     {
         await base.DisposeAsync();
         SqliteConnection.ClearAllPools();
+        if (!_ownsDataDirectory) return;
         try { Directory.Delete(DataDirectory, recursive: true); } catch (IOException) { } catch (UnauthorizedAccessException) { }
     }
 }

@@ -78,6 +78,33 @@ public class SelectivityPanelTests
         Assert.Empty(panel.FindAll("[data-testid=selectivity-answer]"));
     }
 
+    // Channels declared in the definition are the ones preselected (not the first two saddle points), with their ee setting:
+    // TSb (16.5) against TSc (17.5), ΔΔG‡ = 1.0 kcal/mol, r = exp(1.0/RT) = 5.4076 at 298.15 K and ee = (r − 1)/(r + 1) = 0.6879
+    // (Seeman 1983; R from CODATA 2018; computed in Python).
+    [Fact]
+    public void DeclaredChannels_ArePreselectedWithTheirEeSetting()
+    {
+        using var ctx = new BunitContext();
+        var detail = Detail(2.0, ("R", "Minimum", 0.0), ("TSa", "SaddlePoint", 15.0), ("Pa", "Minimum", -5.0), ("TSb", "SaddlePoint", 16.5),
+            ("TSc", "SaddlePoint", 17.5), ("Pb", "Minimum", -6.0)) with { Kinetics = new KineticsSetup(["TSb", "TSc"], Enantiomeric: true) };
+        var panel = ctx.Render<SelectivityPanel>(p => p.Add(c => c.Reaction, detail));
+
+        Assert.False(panel.Find("[data-testid=channel-TSa]").HasAttribute("checked"));
+        Assert.True(panel.Find("[data-testid=channel-TSb]").HasAttribute("checked"));
+        Assert.True(panel.Find("[data-testid=channel-TSc]").HasAttribute("checked"));
+        Assert.Contains("declared in the reaction's definition", panel.Find("[data-testid=channels-origin]").TextContent);
+        Assert.Contains("TSb : TSc = 5.41 : 1 (ΔΔG‡ 1.00 kcal/mol)", Flat(panel.Markup));
+        Assert.Contains("ee 69 %", panel.Find("[data-testid=selectivity-answer]").TextContent);
+    }
+
+    [Fact]
+    public void NothingDeclared_SaysTheFirstTwoArePreselected()
+    {
+        using var ctx = new BunitContext();
+        var panel = ctx.Render<SelectivityPanel>(p => p.Add(c => c.Reaction, TwoChannels(2.0)));
+        Assert.Contains("declares no competing channels", panel.Find("[data-testid=channels-origin]").TextContent);
+    }
+
     [Fact]
     public void OneSaddlePoint_SaysThereIsNothingToCompare()
     {

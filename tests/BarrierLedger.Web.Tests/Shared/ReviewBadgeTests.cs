@@ -6,10 +6,11 @@ namespace BarrierLedger.Web.Tests.Shared;
 public class ReviewBadgeTests
 {
     [Theory]
-    [InlineData(ReviewStatus.Verified, "badge-ok", "✔", "Verified")]
-    [InlineData(ReviewStatus.Returned, "badge-bad", "↩", "Returned")]
-    [InlineData(ReviewStatus.AwaitingReview, "badge-warn", "…", "Awaiting review")]
-    public void Status_ShownByWordAndIcon_NotColourAlone(ReviewStatus status, string css, string icon, string word)
+    [InlineData(ReviewState.Verified, "badge-ok", "✔", "Verified")]
+    [InlineData(ReviewState.Returned, "badge-bad", "↩", "Returned")]
+    [InlineData(ReviewState.AwaitingReview, "badge-warn", "…", "Awaiting review")]
+    [InlineData(ReviewState.Reopened, "badge-warn", "↻", "Reopened, awaiting review")]
+    public void Status_ShownByWordAndIcon_NotColourAlone(ReviewState status, string css, string icon, string word)
     {
         using var ctx = new BunitContext();
         var badge = ctx.Render<ReviewBadge>(p => p.Add(c => c.Status, status)).Find("span.badge");
@@ -34,7 +35,7 @@ public class ReviewBadgeTests
     public void Verified_TitleSaysEverySaddlePointIsSignedOff()
     {
         using var ctx = new BunitContext();
-        var badge = ctx.Render<ReviewBadge>(p => p.Add(c => c.Status, ReviewStatus.Verified)).Find("span.badge");
+        var badge = ctx.Render<ReviewBadge>(p => p.Add(c => c.Status, ReviewState.Verified)).Find("span.badge");
         Assert.Equal("Every saddle point of this reaction is signed off by a reviewer.", badge.GetAttribute("title"));
     }
 }

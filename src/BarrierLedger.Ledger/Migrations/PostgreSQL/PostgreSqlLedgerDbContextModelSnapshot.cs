@@ -691,6 +691,10 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.Property<long>("InputsRevision")
                         .HasColumnType("bigint");
 
+                    b.Property<string>("Kinetics")
+                        .HasColumnType("text")
+                        .UseCollation("C");
+
                     b.Property<string>("Label")
                         .IsRequired()
                         .HasMaxLength(200)

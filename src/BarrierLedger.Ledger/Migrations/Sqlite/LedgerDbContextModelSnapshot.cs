@@ -619,6 +619,9 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<long>("InputsRevision")
                         .HasColumnType("INTEGER");
 
+                    b.Property<string>("Kinetics")
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("Label")
                         .IsRequired()
                         .HasMaxLength(200)

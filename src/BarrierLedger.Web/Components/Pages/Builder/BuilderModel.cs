@@ -39,12 +39,14 @@ public sealed class ReactionDraft
     public string Label { get; set; } = "";
     public string Description { get; set; } = "";
     public List<StateDraft> States { get; } = [];
+    /// <summary>The kinetics setup the definition came with (declared in a bundle or the API), carried through an edit unchanged.</summary>
+    public Core.Kinetics.KineticsSetup? Kinetics { get; set; }
 
-    public ReactionDefinition ToDefinition() => new(Label.Trim(), Description.Trim(), [.. States.Select(s => s.ToDefinition())]);
+    public ReactionDefinition ToDefinition() => new(Label.Trim(), Description.Trim(), [.. States.Select(s => s.ToDefinition())], Kinetics);
 
     public static ReactionDraft From(ReactionDefinition d)
     {
-        var r = new ReactionDraft { Label = d.Label, Description = d.Description };
+        var r = new ReactionDraft { Label = d.Label, Description = d.Description, Kinetics = d.Kinetics };
         r.States.AddRange(d.States.Select(StateDraft.From));
         return r;
     }
