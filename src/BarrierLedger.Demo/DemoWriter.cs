@@ -4,6 +4,7 @@ using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Conformers;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
@@ -165,7 +166,23 @@ public static class DemoWriter
         {
             ["format"] = "barrierledger-bundle",
             ["format_version"] = 1,
-            ["study"] = new JsonObject { ["name"] = study.Name, ["description"] = study.Description },
+            ["study"] = new JsonObject
+            {
+                ["name"] = study.Name,
+                ["description"] = study.Description,
+                // The study's stated protocol: single-point energies on the optimised geometries, thermal corrections from the
+                // frequency calculations, 1 mol/L, conformers as Boltzmann ensembles. Without it each state would use its own
+                // calculations and mix levels. BU keeps its reactant and saddle point as conformer ensembles; under the ensemble
+                // every conformer check applies (duplicates only matter in a Boltzmann sum). Species with one conformer get the
+                // same energies either way.
+                ["energy_model"] = new JsonObject
+                {
+                    ["energies_from"] = DemoScenario.SinglePointLevel,
+                    ["thermal_from"] = DemoScenario.GeometryLevel,
+                    ["standard_state"] = "1 mol/L",
+                    ["conformers"] = BundleEnergyModel.ConformerName(ConformerChoice.BoltzmannEnsemble),
+                },
+            },
             ["species"] = species,
             ["calculations"] = calculations,
             ["reactions"] = reactions,

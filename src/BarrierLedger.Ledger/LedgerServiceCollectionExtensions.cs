@@ -36,6 +36,7 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<AuditService>();
         services.AddSingleton<Accounts.AccountAccess>();
         services.AddSingleton<DerivationService>();
+        services.TryAddSingleton(sp => new UploadGate(sp.GetService<LedgerOptions>()?.Uploads ?? new UploadReadOptions()));
         services.AddSingleton<UploadService>();
         services.AddSingleton<RecomputeService>();
         services.AddSingleton<EnergyModelService>();

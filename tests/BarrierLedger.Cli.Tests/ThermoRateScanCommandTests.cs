@@ -49,6 +49,10 @@ public class ThermoCommandTests
         var (code, output, err) = CliRunner.Run("thermo", file);
         Assert.True(code == 0, err);
         Assert.Contains("point group C2v, so σ = 2", output);
+        // The standard state in words, as screens and exports write it (p = 1 atm = 101325 Pa, exact by definition), not the enum name.
+        Assert.Contains("standard state 1 atm (p = 101325 Pa)", output);
+        Assert.DoesNotContain("Gas1Atm", output);
+        Assert.Contains("standard state 1 mol/L", CliRunner.Run("thermo", "--standard-state", "1M", file).Out);
         var given = CliRunner.Run("thermo", "--symmetry-number", "1", file);
         Assert.Contains("σ = 1 as given (the point group alone gives 2)", given.Out);
         // R ln 2 = 5.763 J/(mol K) between the two entropies (CODATA 2018 R).

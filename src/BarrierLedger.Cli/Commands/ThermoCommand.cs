@@ -118,6 +118,11 @@ internal static class ThermoCommand
         notes = r.Notes,
     };
 
+    /// <summary>The standard state in words ("1 mol/L", "1 atm", "1 bar"); a gas at a pressure given with --pressure says so.</summary>
+    private static string StateWords(ThermoOptions opt) =>
+        opt.StandardState == StandardState.Gas1Atm && Math.Abs(opt.PressurePascal - PhysicalConstants.StandardAtmospherePascal) > 1e-6
+            ? "ideal gas at the given pressure" : StandardStateNames.Text(opt.StandardState);
+
     private static void WriteTable(TextWriter o, CalculationData data, VibrationalAnalysis a, ThermoResult r, PointGroupResult symmetry, bool sigmaGiven)
     {
         string F(double v) => v.ToString("F6", CultureInfo.InvariantCulture);
@@ -129,7 +134,7 @@ internal static class ThermoCommand
             : $"point group {symmetry.Group.Name}, so σ = {opt.SymmetryNumber}");
         if (symmetry.Note.Length > 0) o.WriteLine($"Note: {symmetry.Note}");
         o.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"T = {opt.TemperatureKelvin} K, standard state {opt.StandardState} (p = {r.ReferencePressurePascal:G6} Pa), low modes {LowModeNames.Name(opt.Treatment)}{(opt.Treatment == ThermoTreatment.Rrho ? "" : $" (cut-off {opt.QuasiRrhoCutoffCm1} cm-1)")}"));
+            $"T = {opt.TemperatureKelvin} K, standard state {StateWords(opt)} (p = {r.ReferencePressurePascal:G6} Pa), low modes {LowModeNames.Name(opt.Treatment)}{(opt.Treatment == ThermoTreatment.Rrho ? "" : $" (cut-off {opt.QuasiRrhoCutoffCm1} cm-1)")}"));
         o.WriteLine();
         o.WriteLine("  correction                      hartree     kcal/mol");
         o.WriteLine($"  zero-point energy         {F(r.ZeroPointEnergy.Hartree),13} {K(r.ZeroPointEnergy),12}");

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Conformers;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Vibrations;
@@ -30,8 +31,35 @@ public sealed record Bundle(
     ImmutableArray<BundleIrc> Ircs,
     ImmutableDictionary<string, ImmutableArray<byte>> Files);
 
-/// <summary>The study the bundle belongs to.</summary>
-public sealed record BundleStudy(string Name, string Description);
+/// <summary>The study the bundle belongs to, with the energy model its numbers are meant under (<c>study.energy_model</c>), if given.</summary>
+public sealed record BundleStudy(string Name, string Description, BundleEnergyModel? EnergyModel = null);
+
+/// <summary>
+/// A study's energy model as a bundle states it (<c>study.energy_model</c>); a key left out takes the ledger's group default.
+/// <see cref="EnergiesFrom"/>: the level whose electronic energies are used ("" = each state's own calculation);
+/// <see cref="ThermalFrom"/>: the level whose frequencies give thermal corrections; temperature in K; standard state; the
+/// low-mode treatment under the names of <see cref="Thermochemistry.LowModeNames"/> with its cut-off ω₀ in cm⁻¹; tunnelling
+/// "none" or "wigner"; conformers "lowest" or "boltzmann-ensemble".
+/// </summary>
+public sealed record BundleEnergyModel(string? EnergiesFrom = null, string? ThermalFrom = null, double? TemperatureKelvin = null,
+    Thermochemistry.StandardState? StandardState = null, Thermochemistry.ThermoTreatment? LowModes = null, double? LowModeCutoffCm1 = null,
+    bool? WignerTunnelling = null, ConformerChoice? Conformers = null)
+{
+    /// <summary>The words of <c>conformers</c>.</summary>
+    public static string ConformerName(ConformerChoice c) =>
+        c == ConformerChoice.BoltzmannEnsemble ? "boltzmann-ensemble" : "lowest";
+
+    public static bool TryParseConformers(string text, out ConformerChoice choice)
+    {
+        (var ok, choice) = text.Trim().ToLowerInvariant() switch
+        {
+            "lowest" => (true, ConformerChoice.Lowest),
+            "boltzmann-ensemble" => (true, ConformerChoice.BoltzmannEnsemble),
+            _ => (false, ConformerChoice.Lowest),
+        };
+        return ok;
+    }
+}
 
 /// <summary>
 /// A chemical species: label unique in the bundle, total charge, spin multiplicity 2S+1, and optionally the rotational symmetry

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Text.Json;
+using BarrierLedger.Core.Conformers;
 using static BarrierLedger.Core.Formats.BundleSchema;
 
 namespace BarrierLedger.Core.Formats;
@@ -41,7 +42,7 @@ internal static class BundleManifestReader
             j.WarnUnknown(st, "$.study", KnownKeys["study"]);
             var name = j.String(st, "$.study", "name", required: true);
             var description = j.String(st, "$.study", "description", required: false, allowEmpty: true) ?? "";
-            if (name is not null) study = new BundleStudy(name, description);
+            if (name is not null) study = new BundleStudy(name, description, EnergyModel(j, st));
         }
 
         // Species.
@@ -143,6 +144,45 @@ internal static class BundleManifestReader
         if (issues.HasErrors || study is null || version is null) return null;
         return new Bundle(version.Value, study, [.. species.Values.Select(v => v.Species)], [.. calculations], [.. reactions], [.. scans], [.. ircs],
             files.Read.ToImmutableDictionary(kv => kv.Key, kv => ImmutableArray.Create(kv.Value), StringComparer.Ordinal));
+    }
+
+    /// <summary>Reads <c>study.energy_model</c>; every key optional, each checked with its JSON path.</summary>
+    private static BundleEnergyModel? EnergyModel(JsonInput j, JsonElement study)
+    {
+        const string p = "$.study.energy_model";
+        if (JsonInput.Member(study, "energy_model") is null || j.Object(study, "$.study", "energy_model", required: false) is not { } em) return null;
+        j.WarnUnknown(em, p, KnownKeys["energy_model"]);
+        var energies = j.String(em, p, "energies_from", required: false, allowEmpty: true);
+        var thermal = j.String(em, p, "thermal_from", required: false, allowEmpty: true);
+        var t = j.Number(em, p, "temperature_kelvin", required: false);
+        if (t is <= 0) { j.Issues.ErrorAt(JsonInput.Child(p, "temperature_kelvin"), $"is {t}; expected a temperature above 0 K"); t = null; }
+        Thermochemistry.StandardState? state = null;
+        if (j.String(em, p, "standard_state", required: false) is { } ss)
+        {
+            if (Thermochemistry.StandardStateNames.TryParse(ss, out var parsed)) state = parsed;
+            else j.Issues.ErrorAt(JsonInput.Child(p, "standard_state"), $"is '{ss}'; expected '1 mol/L', '1 atm' or '1 bar'");
+        }
+        Thermochemistry.ThermoTreatment? lowModes = null;
+        if (j.String(em, p, "low_modes", required: false) is { } lm)
+        {
+            if (Thermochemistry.LowModeNames.TryParse(lm, out var parsed)) lowModes = parsed;
+            else j.Issues.ErrorAt(JsonInput.Child(p, "low_modes"), $"is '{lm}'; expected one of {string.Join(", ", Thermochemistry.LowModeNames.All.Select(n => $"'{n}'"))}");
+        }
+        var cutoff = j.Number(em, p, "low_mode_cutoff_cm1", required: false);
+        if (cutoff is <= 0) { j.Issues.ErrorAt(JsonInput.Child(p, "low_mode_cutoff_cm1"), $"is {cutoff}; expected a positive cut-off in cm⁻¹"); cutoff = null; }
+        bool? wigner = null;
+        if (j.String(em, p, "tunnelling", required: false) is { } tu)
+        {
+            if (tu.Trim().ToLowerInvariant() is "none" or "wigner") wigner = tu.Trim().Equals("wigner", StringComparison.OrdinalIgnoreCase);
+            else j.Issues.ErrorAt(JsonInput.Child(p, "tunnelling"), $"is '{tu}'; expected 'none' or 'wigner'");
+        }
+        ConformerChoice? conformers = null;
+        if (j.String(em, p, "conformers", required: false) is { } co)
+        {
+            if (BundleEnergyModel.TryParseConformers(co, out var parsed)) conformers = parsed;
+            else j.Issues.ErrorAt(JsonInput.Child(p, "conformers"), $"is '{co}'; expected 'lowest' or 'boltzmann-ensemble'");
+        }
+        return new BundleEnergyModel(energies?.Trim(), thermal?.Trim(), t, state, lowModes, cutoff, wigner, conformers);
     }
 
     internal static string Known(IEnumerable<string> keys)

@@ -23,7 +23,8 @@ public static class BundleSchema
     public static readonly ImmutableDictionary<string, ImmutableArray<string>> KnownKeys = new Dictionary<string, ImmutableArray<string>>
     {
         ["bundle"] = ["format", "format_version", "study", "species", "calculations", "reactions", "scans", "ircs"],
-        ["study"] = ["name", "description"],
+        ["study"] = ["name", "description", "energy_model"],
+        ["energy_model"] = ["energies_from", "thermal_from", "temperature_kelvin", "standard_state", "low_modes", "low_mode_cutoff_cm1", "tunnelling", "conformers"],
         ["species"] = ["label", "charge", "multiplicity", "symmetry_number", "conformers"],
         ["conformer"] = ["label", "calculations"],
         ["calculation"] = ["label", "species", "kind", "level_of_theory", "energy_hartree", "file", "geometry", "frequencies_cm1", "modes",

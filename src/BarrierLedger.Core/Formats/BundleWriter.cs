@@ -25,6 +25,19 @@ public static class BundleWriter
             w.WriteStartObject("study");
             w.WriteString("name", bundle.Study.Name);
             w.WriteString("description", bundle.Study.Description);
+            if (bundle.Study.EnergyModel is { } em)
+            {
+                w.WriteStartObject("energy_model");
+                if (em.EnergiesFrom is { } ef) w.WriteString("energies_from", ef);
+                if (em.ThermalFrom is { } tf) w.WriteString("thermal_from", tf);
+                if (em.TemperatureKelvin is { } t) w.WriteNumber("temperature_kelvin", t);
+                if (em.StandardState is { } ss) w.WriteString("standard_state", Thermochemistry.StandardStateNames.Text(ss));
+                if (em.LowModes is { } lm) w.WriteString("low_modes", Thermochemistry.LowModeNames.Name(lm));
+                if (em.LowModeCutoffCm1 is { } c) w.WriteNumber("low_mode_cutoff_cm1", c);
+                if (em.WignerTunnelling is { } wt) w.WriteString("tunnelling", wt ? "wigner" : "none");
+                if (em.Conformers is { } co) w.WriteString("conformers", BundleEnergyModel.ConformerName(co));
+                w.WriteEndObject();
+            }
             w.WriteEndObject();
             Objects(w, "species", bundle.Species, s =>
             {

@@ -11,14 +11,22 @@ internal static class TextInput
         ArgumentNullException.ThrowIfNull(stream);
         try
         {
+            // A whole in-memory file whose buffer the caller exposed: read it where it is instead of copying it.
+            if (stream is MemoryStream { Position: 0 } whole && whole.TryGetBuffer(out var all) && all.Offset == 0 && all.Count == all.Array!.Length)
+            {
+                if (all.Count > maxBytes)
+                {
+                    return TooLarge(issues, maxBytes);
+                }
+                return all.Array;
+            }
             if (stream.CanSeek)
             {
                 // Known length: check it before reading and read into an array of exactly that size.
                 var remaining = stream.Length - stream.Position;
                 if (remaining > maxBytes)
                 {
-                    issues.Error(null, $"file is larger than the limit of {FormatBytes(maxBytes)}; raise ReaderLimits.MaxBytes if it really is this large");
-                    return null;
+                    return TooLarge(issues, maxBytes);
                 }
                 var exact = new byte[remaining];
                 stream.ReadExactly(exact);
@@ -33,8 +41,7 @@ internal static class TextInput
                 total += n;
                 if (total > maxBytes)
                 {
-                    issues.Error(null, $"file is larger than the limit of {FormatBytes(maxBytes)}; raise ReaderLimits.MaxBytes if it really is this large");
-                    return null;
+                    return TooLarge(issues, maxBytes);
                 }
                 buffer.Write(chunk, 0, n);
             }
@@ -50,6 +57,12 @@ internal static class TextInput
             issues.Error(null, $"could not read the file (corrupt compressed data): {ex.Message}");
             return null;
         }
+    }
+
+    private static byte[]? TooLarge(IssueCollector issues, long maxBytes)
+    {
+        issues.Error(null, $"file is larger than the limit of {FormatBytes(maxBytes)}; raise ReaderLimits.MaxBytes if it really is this large");
+        return null;
     }
 
     /// <summary>Decodes UTF-8 (BOM allowed); refuses binary content (NUL bytes) with an error.</summary>

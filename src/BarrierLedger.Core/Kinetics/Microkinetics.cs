@@ -30,6 +30,10 @@ public static class Microkinetics
             [.. network.Species], Thin(run.Curve, o.MaxCurvePoints), [.. run.Reports], run.Final, compiled.Describe(start), answers, run.Outcome, notes);
     }
 
+    /// <summary>k_f and k_r of every step of <paramref name="network"/> at <paramref name="temperatureKelvin"/>, as a simulation starting there uses them.</summary>
+    public static IReadOnlyList<StepRateConstants> RateConstants(ReactionNetwork network, double temperatureKelvin) =>
+        new CompiledNetwork(network).Describe(temperatureKelvin);
+
     /// <summary>
     /// Monte Carlo over the energy levels' uncertainties (see <see cref="EnergyLevel.UncertaintyKcalPerMol"/>): every sample
     /// shifts each level by an independent normal error N(0, σ²/2), recomputes every rate constant, simulates, and answers the
@@ -225,10 +229,12 @@ public static class Microkinetics
             if (a < 1e-6) return (seconds * 1e9).ToString("0.##", c) + " ns";
             if (a < 1e-3) return Sig(seconds * 1e6) + " µs";
             if (a < 1) return Sig(seconds * 1e3) + " ms";
-            if (a < 120) return Sig(seconds) + " s";
-            if (a < 7200) return Sig(seconds / 60) + " min";
-            if (a < 2 * 86400) return Sig(seconds / 3600) + " h";
-            if (a < 2 * 365.25 * 86400) return Sig(seconds / 86400) + " d";
+            // Units switch at 1 min, 1 h, 1 d and 1 year, as on the ledger and reaction tables (Web Display.Duration), so one time
+            // never reads "107 min" in one table and "1.8 h" in the next.
+            if (a < 60) return Sig(seconds) + " s";
+            if (a < 3600) return Sig(seconds / 60) + " min";
+            if (a < 86400) return Sig(seconds / 3600) + " h";
+            if (a < 365.25 * 86400) return Sig(seconds / 86400) + " d";
             return Sig(seconds / (365.25 * 86400)) + " years";
         }
 

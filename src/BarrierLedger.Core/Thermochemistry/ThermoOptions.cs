@@ -26,6 +26,31 @@ public enum StandardState
 }
 
 /// <summary>
+/// The words of a standard state, "1 mol/L", "1 atm" or "1 bar": the one spelling the screens, exports, the bundle's
+/// <c>energy_model.standard_state</c> and the command line's printout use.
+/// </summary>
+public static class StandardStateNames
+{
+    public static string Text(StandardState s) => s switch
+    {
+        StandardState.Solution1Molar => "1 mol/L",
+        StandardState.Gas1Bar => "1 bar",
+        StandardState.Gas1Atm => "1 atm",
+        _ => throw new ArgumentOutOfRangeException(nameof(s), s, "Unknown standard state."),
+    };
+
+    /// <summary>Reads <see cref="Text"/>'s words back (case and surrounding spaces ignored).</summary>
+    public static bool TryParse(string text, out StandardState state)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        foreach (var s in Enum.GetValues<StandardState>())
+            if (string.Equals(Text(s), text.Trim(), StringComparison.OrdinalIgnoreCase)) { state = s; return true; }
+        state = StandardState.Gas1Atm;
+        return false;
+    }
+}
+
+/// <summary>
 /// Settings for an ideal-gas rigid-rotor harmonic-oscillator thermochemistry.
 /// </summary>
 /// <param name="TemperatureKelvin">T in K, positive.</param>

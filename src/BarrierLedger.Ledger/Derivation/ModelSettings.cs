@@ -75,6 +75,23 @@ public sealed record ModelSettings(
         m.Conformers = Conformers;
     }
 
+    /// <summary>These settings as a bundle states them (<c>study.energy_model</c>): every key the numbers depend on.</summary>
+    public Core.Formats.BundleEnergyModel ToBundle() => new(EnergyLevel, ThermalLevel, TemperatureKelvin, StandardState, Treatment,
+        QuasiRrhoCutoffCm1, Tunnelling == TunnellingCorrection.Wigner, Conformers);
+
+    /// <summary>These settings with every key a bundle's <c>study.energy_model</c> gives (a key left out keeps its value here).</summary>
+    public ModelSettings With(Core.Formats.BundleEnergyModel b) => this with
+    {
+        EnergyLevel = b.EnergiesFrom ?? EnergyLevel,
+        ThermalLevel = b.ThermalFrom ?? ThermalLevel,
+        TemperatureKelvin = b.TemperatureKelvin ?? TemperatureKelvin,
+        StandardState = b.StandardState ?? StandardState,
+        Treatment = b.LowModes ?? Treatment,
+        QuasiRrhoCutoffCm1 = b.LowModeCutoffCm1 ?? QuasiRrhoCutoffCm1,
+        Tunnelling = b.WignerTunnelling is { } w ? (w ? TunnellingCorrection.Wigner : TunnellingCorrection.None) : Tunnelling,
+        Conformers = b.Conformers ?? Conformers,
+    };
+
     /// <summary>Every problem with these settings, in words; empty when they can be used.</summary>
     public IReadOnlyList<string> Validate()
     {
@@ -102,12 +119,7 @@ public sealed record ModelSettings(
     {
         var level = EnergyLevel.Length == 0 ? "each state's own calculation" : EnergyLevel;
         var thermal = ThermalLevel.Length == 0 ? "" : $", thermal corrections from {ThermalLevel}";
-        var state = StandardState switch
-        {
-            StandardState.Solution1Molar => "1 mol/L",
-            StandardState.Gas1Bar => "1 bar",
-            _ => "1 atm",
-        };
+        var state = StandardStateNames.Text(StandardState);
         var treatment = LowModeNames.Describe(Treatment, QuasiRrhoCutoffCm1);
         var tunnelling = Tunnelling == TunnellingCorrection.Wigner ? ", Wigner tunnelling" : "";
         return $"Energies: {level}{thermal}; {Num(TemperatureKelvin)} K; standard state {state}; {treatment}{tunnelling}; {ConformerText}";

@@ -92,7 +92,7 @@ public sealed record BarrierTable(
         foreach (var r in source.Rows)
         {
             var marks = new List<string>();
-            if (!r.IsVerified) marks.Add(MarkFor(footnotes, UnverifiedText(r)));
+            if (r.HasSaddle && !r.IsVerified) marks.Add(MarkFor(footnotes, UnverifiedText(r)));
             if (!r.IsConsistent) marks.Add(MarkFor(footnotes, $"{r.Reaction}: the barrier breaks a consistency rule: {string.Join("; ", r.ConsistencyProblems.Select(p => p.TrimEnd('.')))}."));
             foreach (var caution in r.Cautions) marks.Add(MarkFor(footnotes, $"{r.Reaction}: {caution}"));
             if (r.RateConstantUnit != "s⁻¹" && r.RateConstant is not null && options.Columns.Contains(ExportColumn.RateConstant))

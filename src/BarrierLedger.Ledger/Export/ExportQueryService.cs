@@ -66,8 +66,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
         {
             if (r.Derivation is null)
             {
-                rows.Add(new BarrierRow(r.Label, "—", "—", null, null, null, null, null, null, null, null, [], ReviewState.AwaitingReview, "",
-                    ["no derived values yet (the reaction has not been computed)"]));
+                rows.Add(BarrierRow.Without(r.Label, "", ["no derived values yet (the reaction has not been computed)"]));
                 continue;
             }
             var steps = DerivedJson.Read<List<DerivedStep>>(r.Derivation.StepsJson);
@@ -76,6 +75,12 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
             if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
             // The conformer checks (issue 21) do not block a barrier but can mislead: every row of the reaction footnotes them.
             var cautions = ConformerCautions(stored);
+            if (steps.Count == 0)
+            {
+                // A reaction whose barriers could not be formed under the model still gets its row, saying why, not a silent gap.
+                rows.Add(BarrierRow.Without(r.Label, r.Derivation.LevelOfTheory, problems.Count > 0 ? problems : ["no barrier could be formed under this energy model"]) with { Cautions = cautions });
+                continue;
+            }
             foreach (var s in steps)
             {
                 var calcId = r.States.FirstOrDefault(x => x.Position == s.SaddlePosition)?.SaddleCalculationId;

@@ -31,13 +31,7 @@ public sealed record ExportModel(
     public string ConformerLine => "Conformers: " + Core.Conformers.ConformerChoiceText.Sentence(Conformers)["conformers: ".Length..];
 
     /// <summary>"1 mol/L", "1 atm", "1 bar".</summary>
-    public string StandardStateText => StandardState switch
-    {
-        StandardState.Solution1Molar => "1 mol/L",
-        StandardState.Gas1Atm => "1 atm",
-        StandardState.Gas1Bar => "1 bar",
-        _ => StandardState.ToString(),
-    };
+    public string StandardStateText => StandardStateNames.Text(StandardState);
 
     /// <summary>What the low-mode treatment does (<see cref="LowModeNames.Describe"/>); its published source is <see cref="TreatmentReference"/>.</summary>
     public string TreatmentText => LowModeNames.Describe(Treatment, QuasiRrhoCutoffCm1);
@@ -111,6 +105,14 @@ public sealed record BarrierRow(
 {
     public bool IsVerified => Review == ReviewState.Verified;
     public bool IsConsistent => ConsistencyProblems.Count == 0;
+    /// <summary>False for a reaction's placeholder row (<see cref="Without"/>): there is no step and no saddle point to review.</summary>
+    public bool HasSaddle => SaddleLabel != NoStep;
+
+    private const string NoStep = "—";
+
+    /// <summary>The row of a reaction that has no barrier to show, saying why (never a silent gap in the table).</summary>
+    public static BarrierRow Without(string reaction, string levelOfTheory, IReadOnlyList<string> why) =>
+        new(reaction, NoStep, NoStep, null, null, null, null, null, null, null, null, [], ReviewState.AwaitingReview, levelOfTheory, why);
 
     /// <summary>
     /// Reasons that do not make the barrier inconsistent but can mislead a reader, each footnoted (the conformer checks: a lower

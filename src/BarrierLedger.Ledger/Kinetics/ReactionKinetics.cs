@@ -31,8 +31,10 @@ public sealed record ReactionKineticsModel(
 /// state is an energy level with its stored ΔG and ΔH relative to the first state; each stored step minimum → saddle point →
 /// minimum becomes an elementary step whose reactants are the species of the minimum before it that are not carried unchanged
 /// into the saddle point (spectators such as a counter-ion drawn in every state cancel), and whose products are likewise those of
-/// the minimum after it; its forward k is Core's Eyring constant from the stored ΔG‡ (equal to the stored k at the model
-/// temperature, with the stored κ), its reverse k follows by detailed balance from the stored ΔG_r.
+/// the minimum after it; its forward k is Core's Eyring constant from the stored ΔG‡ and κ(T), checked to be the derivation's stored
+/// k at the model temperature (a step where they differ is refused), its reverse k follows by detailed balance from the stored ΔG_r.
+/// A step the derivation gave no rate constant (ΔG‡ below zero, k above k_BT/h, molecularity above 3) is refused with the
+/// derivation's own reason.
 /// </summary>
 public static class ReactionKinetics
 {
@@ -75,6 +77,11 @@ public static class ReactionKinetics
                 problems.Add($"Step {d.Label}: its states are not all in the pathway.");
                 continue;
             }
+            if (d.RateConstant is null && RefusalOf(detail, from, ts) is { } refused)
+            {
+                problems.Add($"Step {from.Label} → {to.Label}: the derivation gives no rate constant for it, so it cannot be simulated. {refused}");
+                continue;
+            }
             var reactants = Without(from, ts);
             var products = Without(to, ts);
             if (reactants.Count == 0 || products.Count == 0)
@@ -110,8 +117,30 @@ public static class ReactionKinetics
             try { network.Validate(); }
             catch (ArgumentException ex) { problems.Add(ex.Message); }
         }
+        if (problems.Count == 0)
+        {
+            // One route to rate constants: at the model temperature every forward k the simulation uses must be the derivation's
+            // stored k (the one the reaction page, exports and API show); a step whose k would differ is refused, never shown twice.
+            var atModel = Microkinetics.RateConstants(network, settings.TemperatureKelvin);
+            for (var i = 0; i < atModel.Count; i++)
+                if (stored[i] is { } k0 && atModel[i] is { BarrierRaised: true, GibbsBarrier: { } raised })
+                    problems.Add($"Step {atModel[i].Label}: its saddle point lies below the minimum after it (ΔG_r = {raised.KcalPerMol:0.0} kcal/mol is above " +
+                        $"the stored ΔG‡), so the reverse step would have a negative barrier. The derivation's forward k ({k0:0.###E+0}) cannot be paired " +
+                        "with a reverse k by detailed balance, and a raised barrier would be a second rate constant for the same step; it is not simulated. " +
+                        "The saddle point, the minimum after it or the levels of theory need another look.");
+                else if (stored[i] is { } k && Math.Abs(atModel[i].Forward / k - 1.0) > 1e-9)
+                    problems.Add($"Step {atModel[i].Label}: the simulation's forward k ({atModel[i].Forward:0.###E+0}) differs from the derivation's stored k " +
+                        $"({k:0.###E+0}) at {settings.TemperatureKelvin:0.##} K, so it is not simulated; recompute the reaction.");
+        }
         return new ReactionKineticsModel(network, reactantsFirst.FirstOrDefault(), productsLast, catalysts, start, stored, problems, sigmaKcalPerMol);
     }
+
+    /// <summary>Codes of the derivation's reasons for giving a step no rate constant.</summary>
+    private static readonly string[] RefusalCodes = [Core.Pathways.PathwayEnergyCodes.NegativeBarrier, Core.Pathways.PathwayEnergyCodes.RateAboveLimit, Core.Pathways.PathwayEnergyCodes.NoRateConstant];
+
+    // The derivation's own sentence for refusing the step from → saddle point (it names the step "Step from → saddle: …").
+    private static string? RefusalOf(ReactionDetail detail, StateView from, StateView saddle) =>
+        detail.ConsistencyReasons.FirstOrDefault(r => RefusalCodes.Contains(r.Code) && r.Message.StartsWith($"Step {from.Label} → {saddle.Label}:", StringComparison.Ordinal))?.Message;
 
     /// <summary>Level key of the state at a position.</summary>
     public static string LevelKey(int position) => $"state {position}";

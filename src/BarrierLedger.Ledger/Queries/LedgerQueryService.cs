@@ -73,12 +73,9 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
         if (filter.OnlyInconsistent) q = q.Where(r => r.Derivation == null || !r.Derivation.Consistent);
         // The status filters go to the store; a reaction whose summary was never computed (SaddlePointCount null: stored
         // before the summary existed) is read too and filtered below once its status is known.
-        // Asking for "awaiting review" finds the reopened reactions too: both wait for a reviewer.
-        if (filter.ReviewStatus is { } wanted)
-        {
-            var states = wanted == ReviewState.AwaitingReview ? new[] { ReviewState.AwaitingReview, ReviewState.Reopened } : [wanted];
-            q = q.Where(r => r.SaddlePointCount == null || (r.ReviewStatus != null && states.Contains(r.ReviewStatus.Value)));
-        }
+        var reviewStates = filter.ReviewStatus is { } wanted ? ReviewStates.Matching(wanted) : null;
+        if (reviewStates is not null)
+            q = q.Where(r => r.SaddlePointCount == null || (r.ReviewStatus != null && reviewStates.Contains(r.ReviewStatus.Value)));
         if (filter.Verdict is { } verdict) q = q.Where(r => r.SaddlePointCount == null || r.CheckVerdict == verdict);
         // One projected query over the reaction, its derivation row and its owner: the check and review status were summarised
         // onto the reaction when they last changed (ReactionStatusSummary), so no state, check or review row is read here.
@@ -116,7 +113,7 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
                 E(d?.BarrierGibbsHartree), E(d?.ReactionGibbsHartree), E(d?.BarrierElectronicHartree), d?.RateConstantPerSecond, d?.HalfLifeSeconds, d?.TemperatureKelvin,
                 status.Verdict, status.ReviewStatus, status.SaddlePointCount, d?.LevelOfTheory ?? "", d?.Consistent ?? false,
                 d is null ? [] : Reasons(d.ConsistencyJson), d is not null, stale, r.Retired, r.Version);
-            if (filter.ReviewStatus is { } rs && !(row.ReviewStatus == rs || rs == ReviewState.AwaitingReview && row.ReviewStatus == ReviewState.Reopened)) continue;
+            if (reviewStates is not null && !(row.ReviewStatus is { } rs && reviewStates.Contains(rs))) continue;
             if (filter.Verdict is { } v && row.Verdict != v) continue;
             if (!string.IsNullOrWhiteSpace(filter.Text) && !(row.Label.Contains(filter.Text, StringComparison.OrdinalIgnoreCase)
                     || row.Description.Contains(filter.Text, StringComparison.OrdinalIgnoreCase)

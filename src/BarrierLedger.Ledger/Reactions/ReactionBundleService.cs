@@ -85,7 +85,10 @@ public sealed class ReactionBundleService(IDbContextFactory<LedgerDbContext> fac
             s.SaddleCalculationId is { } cid ? calcLabels[cid] : null,
             [.. s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new BundleAtomPair(p.AtomA, p.AtomB))]))], ReactionDefinition.ReadKinetics(reaction.Kinetics));
 
-        var bundle = new Bundle(BundleSchema.CurrentFormatVersion, new BundleStudy(reaction.Study!.Name, reaction.Study.Description),
+        // The study's energy model in force (its own or the group default) travels as study.energy_model, so that an upload that
+        // creates the study elsewhere derives the same numbers whatever that ledger's group default is.
+        var (model, _) = await Derivation.DerivationService.EffectiveModelAsync(db, reaction.StudyId, ct);
+        var bundle = new Bundle(BundleSchema.CurrentFormatVersion, new BundleStudy(reaction.Study!.Name, reaction.Study.Description, model.ToBundle()),
             [.. species.Select(s => new BundleSpecies(s.Label, s.Charge, s.Multiplicity, s.SymmetryNumberOverride))], bundleCalcs, [bundleReaction], bundleScans, [],
             files.Written.ToImmutableDictionary(f => f.Key, f => ImmutableArray.Create(f.Value)));
 
@@ -94,8 +97,6 @@ public sealed class ReactionBundleService(IDbContextFactory<LedgerDbContext> fac
         var ircCount = await db.Ircs.CountAsync(i => saddleIds.Contains(i.SaddleCalculationId), ct);
         if (ircCount > 0)
             notCarried.Add($"{ircCount} IRC result(s) of its saddle points are not carried by this download; upload them again with the saddle point (\"IRC of saddle point\")");
-        if (await db.EnergyModels.AnyAsync(m => m.StudyId == reaction.StudyId, ct))
-            notCarried.Add($"study '{reaction.Study.Name}' has its own energy model; the bundle does not carry it, so the numbers match elsewhere only under the same model");
         return new ReactionBundleFile($"{Safe(reaction.Label)}.zip", BundleWriter.ToZip(bundle), notCarried);
     }
 

@@ -46,6 +46,10 @@ public static class ReviewStates
     /// <summary>Whether the saddle point waits for a reviewer (never decided, or reopened).</summary>
     public static bool IsWaiting(ReviewState s) => s is ReviewState.AwaitingReview or ReviewState.Reopened;
 
+    /// <summary>The states a filter for <paramref name="wanted"/> finds: "awaiting review" finds the reopened ones too (both wait).</summary>
+    public static ReviewState[] Matching(ReviewState wanted) =>
+        wanted == ReviewState.AwaitingReview ? [ReviewState.AwaitingReview, ReviewState.Reopened] : [wanted];
+
     /// <summary>
     /// A reaction's state from its saddle points': Returned when any was returned, Verified when all were verified, Reopened
     /// when any of the others was reopened, else awaiting review. Null without saddle points.

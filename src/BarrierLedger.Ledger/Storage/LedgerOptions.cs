@@ -14,6 +14,9 @@ public sealed class LedgerOptions
     /// <summary>Which database engine holds the ledger ("BarrierLedger:Database:Provider", "BarrierLedger:Database:ConnectionString").</summary>
     public DatabaseOptions Database { get; set; } = new();
 
+    /// <summary>"BarrierLedger:Uploads": how many uploads are read at once.</summary>
+    public Uploads.UploadReadOptions Uploads { get; set; } = new();
+
     public bool IsPostgreSql => Database.Provider == StoreProvider.PostgreSQL;
 
     public string ResolvedDataDirectory => Path.GetFullPath(DataDirectory);

@@ -32,6 +32,7 @@ internal static class BundleImport
     {
         draft.StudyName ??= b.Study.Name;
         if (draft.StudyDescription.Length == 0) draft.StudyDescription = b.Study.Description;
+        draft.StudyEnergyModel ??= b.Study.EnergyModel;
         draft.PrimaryFile ??= primaryFile;
         // A zip's members are stored as originals under "bundle.zip!path"; a manifest's companions under their own names.
         var inZip = draft.Files.TryGetValue(primaryFile, out var primaryBytes) && primaryBytes.Length >= 2 && primaryBytes[0] == 'P' && primaryBytes[1] == 'K';

@@ -88,6 +88,8 @@ public sealed class UploadDraft
 {
     public string? StudyName { get; set; }
     public string StudyDescription { get; set; } = "";
+    /// <summary>A bundle's <c>study.energy_model</c>: set as the study's own model when the upload creates the study.</summary>
+    public Core.Formats.BundleEnergyModel? StudyEnergyModel { get; set; }
     public List<DraftSpecies> Species { get; } = [];
     public List<DraftCalculation> Calculations { get; } = [];
     public List<DraftReaction> Reactions { get; } = [];

@@ -85,6 +85,9 @@ internal sealed class UploadPlan
         }
         plan.StudyName ??= plan.Study?.Name;
         if (plan.Issues.Any(i => i.IsError) && plan.Study is null && plan.StudyName is null) return plan;
+        if (plan.Study is not null && draft.StudyEnergyModel is not null)
+            plan.Issues.Add(new UploadIssue(primary, null, "$.study.energy_model",
+                $"study '{plan.Study.Name}' exists and keeps its own energy model; the bundle's energy model is not applied (change the model on the Settings page)", IsError: false));
 
         // Species: reuse by label within the study; charge and multiplicity must agree.
         var existing = plan.Study is null ? [] :

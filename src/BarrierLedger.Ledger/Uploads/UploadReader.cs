@@ -61,7 +61,7 @@ public static class UploadReader
 
     private static void ReadXyz(UploadFile f, UploadChoices choices, ReaderLimits? limits, UploadDraft draft)
     {
-        var result = XyzReader.Read(new MemoryStream(f.Content, writable: false), f.FileName, limits);
+        var result = XyzReader.Read(new MemoryStream(f.Content, 0, f.Content.Length, writable: false, publiclyVisible: true), f.FileName, limits);
         AddIssues(draft, result.Issues);
         if (result.Value is not { } doc) return;
         if (!FormChoices(f.FileName, choices, draft, out var species, out var level)) return;
@@ -181,7 +181,7 @@ public static class UploadReader
         XyzDocument? Read(UploadFile f)
         {
             // The IRC takes its saddle point's charge and multiplicity, so an odd electron count without charge= is no concern here.
-            var r = XyzReader.Read(new MemoryStream(f.Content, writable: false), f.FileName, limits, warnUnstatedOddElectrons: false);
+            var r = XyzReader.Read(new MemoryStream(f.Content, 0, f.Content.Length, writable: false, publiclyVisible: true), f.FileName, limits, warnUnstatedOddElectrons: false);
             AddIssues(draft, r.Issues);
             return r.Value;
         }

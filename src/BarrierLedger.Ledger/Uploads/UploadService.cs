@@ -21,11 +21,12 @@ namespace BarrierLedger.Ledger.Uploads;
 /// calculation already stored from the same file for the same species is reported and not stored twice.
 /// </summary>
 public sealed class UploadService(
-    IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time)
+    IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time, UploadGate gate)
 {
     /// <summary>Reads and checks the files against the store; writes nothing.</summary>
     public async Task<UploadPreview> PreviewAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, CancellationToken ct = default)
     {
+        using var turn = await gate.EnterAsync(files.Sum(f => f.Content.LongLength), ct);
         var draft = UploadReader.Read(files, choices);
         await using var db = await factory.CreateDbContextAsync(ct);
         var plan = await UploadPlan.ResolveAsync(db, draft, choices, ct);
@@ -33,10 +34,11 @@ public sealed class UploadService(
     }
 
     /// <summary>Reads, checks and stores the files in one transaction.</summary>
-    public Task<UploadOutcome> StoreAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, string uploaderUserId, CancellationToken ct = default)
+    public async Task<UploadOutcome> StoreAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, string uploaderUserId, CancellationToken ct = default)
     {
+        using var turn = await gate.EnterAsync(files.Sum(f => f.Content.LongLength), ct);
         var draft = UploadReader.Read(files, choices);
-        return StoreDraftAsync(draft, choices, uploaderUserId, ct);
+        return await StoreDraftAsync(draft, choices, uploaderUserId, ct);
     }
 
     /// <summary>
@@ -82,6 +84,22 @@ public sealed class UploadService(
         }, ct);
     }
 
+    /// <summary>
+    /// The bundle's energy model becomes the new study's own model: the group default with every key the bundle gives, in the
+    /// upload's transaction and before anything is derived, so the web's demo loader, an upload, the API and the command line
+    /// all derive the study under the model it was written for. A study that exists already keeps its own model.
+    /// </summary>
+    private async Task SetStudyModelAsync(LedgerDbContext db, int studyId, Core.Formats.BundleEnergyModel b, string user, DateTimeOffset now, CancellationToken ct)
+    {
+        var (current, _) = await DerivationService.EffectiveModelAsync(db, studyId, ct);
+        var settings = current.With(b);
+        var row = new EnergyModel { StudyId = studyId, UpdatedAt = now, UpdatedByUserId = user };
+        settings.CopyTo(row);
+        db.EnergyModels.Add(row);
+        await db.SaveChangesAsync(ct);
+        audit.Record(db, user, "energy-model.override-saved", nameof(EnergyModel), studyId, $"The study's energy model as its bundle states it: {settings.Describe()}.");
+    }
+
     private async Task<UploadOutcome> WriteAsync(LedgerDbContext db, UploadPlan plan, string key, string content, string user, CancellationToken ct)
     {
         var now = time.GetUtcNow();
@@ -93,6 +111,7 @@ public sealed class UploadService(
             db.Studies.Add(study);
             await db.SaveChangesAsync(ct);
             audit.Record(db, user, "study.created", nameof(Study), study.Id, $"Study '{study.Name}' created by an upload.");
+            if (draft.StudyEnergyModel is { } bundleModel) await SetStudyModelAsync(db, study.Id, bundleModel, user, now, ct);
         }
 
         foreach (var s in plan.NewSpecies)

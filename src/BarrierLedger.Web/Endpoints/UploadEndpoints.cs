@@ -45,6 +45,7 @@ internal static class UploadEndpoints
             .ProducesProblem(StatusCodes.Status409Conflict)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
             .ProducesProblem(StatusCodes.Status422UnprocessableEntity)
+            .ProducesProblem(StatusCodes.Status503ServiceUnavailable)
             .WithName("StoreUpload")
             .WithSummary("Store files as one upload (all or nothing)")
             .WithDescription("multipart/form-data: one or more file parts (any field name; a bundle manifest may be sent as field 'manifest'), " +
@@ -60,6 +61,7 @@ internal static class UploadEndpoints
             .Accepts<IFormFileCollection>("multipart/form-data")
             .Produces<UploadPreview>()
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
+            .ProducesProblem(StatusCodes.Status503ServiceUnavailable)
             .WithName("PreviewUpload")
             .WithSummary("Read and check files against the ledger without storing anything");
     }
@@ -69,7 +71,9 @@ internal static class UploadEndpoints
         var (received, problem) = await ReadAsync(request, options, ct);
         if (problem is not null) return problem;
         var userId = user.FindFirstValue(ClaimTypes.NameIdentifier)!;
-        var outcome = await uploads.StoreAsync(received!.Files, received.Choices, userId, ct);
+        UploadOutcome outcome;
+        try { outcome = await uploads.StoreAsync(received!.Files, received.Choices, userId, ct); }
+        catch (UploadsBusyException busy) { return Busy(request, busy); }
         if (outcome.KeyConflict is { } clash)
             return ApiProblems.Problem(StatusCodes.Status409Conflict, "idempotency-key-reused", "Upload key already used for other content", clash);
         if (!outcome.Stored) return ApiProblems.UploadRejected(outcome.Issues);
@@ -83,7 +87,15 @@ internal static class UploadEndpoints
     {
         var (received, problem) = await ReadAsync(request, options, ct);
         if (problem is not null) return problem;
-        return Results.Ok(await uploads.PreviewAsync(received!.Files, received.Choices, ct));
+        try { return Results.Ok(await uploads.PreviewAsync(received!.Files, received.Choices, ct)); }
+        catch (UploadsBusyException busy) { return Busy(request, busy); }
+    }
+
+    /// <summary>503 with Retry-After: the server reads a bounded number of uploads at once (issue 19, finding 7).</summary>
+    private static IResult Busy(HttpRequest request, UploadsBusyException busy)
+    {
+        request.HttpContext.Response.Headers.RetryAfter = ((int)busy.RetryAfter.TotalSeconds).ToString(CultureInfo.InvariantCulture);
+        return ApiProblems.Problem(StatusCodes.Status503ServiceUnavailable, "uploads-busy", "Busy, try again", busy.Message);
     }
 
     private sealed record Received(IReadOnlyList<UploadFile> Files, UploadChoices Choices, IReadOnlyList<ApiFileReceipt> Receipts);
@@ -107,9 +119,9 @@ internal static class UploadEndpoints
             form = await request.ReadFormAsync(ct);
             foreach (var f in form.Files)
             {
-                using var buffer = new MemoryStream((int)Math.Min(f.Length, int.MaxValue));
-                await f.CopyToAsync(buffer, ct);
-                var bytes = buffer.ToArray();
+                // One copy of each file in memory (the form keeps large parts in temporary files until read here).
+                var bytes = new byte[f.Length];
+                await using (var part = f.OpenReadStream()) await part.ReadExactlyAsync(bytes, ct);
                 var name = f.FileName.Replace('\\', '/');
                 files.Add(new UploadFile(name, bytes));
                 receipts.Add(new ApiFileReceipt(name, bytes.LongLength, Convert.ToHexStringLower(SHA256.HashData(bytes))));

@@ -1,5 +1,4 @@
 using BarrierLedger.Demo;
-using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.IsotopeEffects;
@@ -35,7 +34,6 @@ public static class DemoAccounts
 public sealed class DemoSetup(
     UserManager<LedgerUser> users,
     UploadService uploads,
-    EnergyModelService models,
     RecomputeService recompute,
     LedgerQueryService ledger,
     IsotopeEffectService isotopes,
@@ -72,20 +70,7 @@ public sealed class DemoSetup(
             log.LogError("The demo files in {Dir} could not be stored: {Errors}", dir, string.Join("; ", outcome.Errors));
             return;
         }
-        // The demo's stated protocol: single-point energies on optimised geometries, thermal corrections from the
-        // frequency calculations, conformers as Boltzmann ensembles. Without it each state would use its own calculations and mix levels.
-        var current = await models.GetForStudyAsync(studyId, ct);
-        var protocol = current.Settings with
-        {
-            EnergyLevel = DemoScenario.SinglePointLevel,
-            ThermalLevel = DemoScenario.GeometryLevel,
-            StandardState = StandardState.Solution1Molar,
-            // BU keeps its reactant and saddle point as conformer ensembles; under the Boltzmann ensemble every conformer check
-            // applies (duplicates only matter in a Boltzmann sum). Species with one conformer get the same energies either way.
-            Conformers = BarrierLedger.Core.Conformers.ConformerChoice.BoltzmannEnsemble,
-        };
-        var saved = await models.SaveStudyOverrideAsync(studyId, protocol, 0, member.Id, ct);
-        if (!saved.Saved) log.LogWarning("Demo energy model not set: {Why}", saved.Conflict ?? string.Join("; ", saved.Errors));
+        // The bundle states the study's energy model (study.energy_model); the upload set it before deriving anything.
         await recompute.WhenIdleAsync();
         foreach (var (reaction, position, name, substitutions) in DemoScenario.IsotopologueSets)
         {

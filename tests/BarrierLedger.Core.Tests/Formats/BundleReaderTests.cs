@@ -1,3 +1,5 @@
+using BarrierLedger.Core.Thermochemistry;
+using BarrierLedger.Core.Conformers;
 using System.IO.Compression;
 using System.Text;
 using System.Text.Json;
@@ -70,6 +72,28 @@ public class BundleReaderTests
 
         Assert.Equal(3, b.Species[1].SymmetryNumber);
         Assert.Null(b.Species[0].SymmetryNumber);
+    }
+
+    [Fact]
+    public void Study_energy_model_is_read_when_given_passes_the_schema_round_trips_and_is_null_when_absent()
+    {
+        var n = JsonNode.Parse(SampleText())!;
+        n["study"]!["energy_model"] = new JsonObject
+        {
+            ["energies_from"] = "CCSD(T)/cc-pVTZ//B3LYP/def2-SVP", ["thermal_from"] = "B3LYP/def2-SVP", ["temperature_kelvin"] = 350.0,
+            ["standard_state"] = "1 atm", ["low_modes"] = "entropy-enthalpy", ["low_mode_cutoff_cm1"] = 50.0, ["tunnelling"] = "wigner",
+            ["conformers"] = "boltzmann-ensemble",
+        };
+        using var schemaDoc = JsonDocument.Parse(File.ReadAllText(RepoFiles.Path("docs", "bundle.schema.json")));
+        using var doc = JsonDocument.Parse(n.ToJsonString());
+        Assert.Empty(new MiniJsonSchema(schemaDoc.RootElement).Validate(doc.RootElement));
+
+        var b = ReadJson(n.ToJsonString()).GetValueOrThrow();
+        var expected = new BundleEnergyModel("CCSD(T)/cc-pVTZ//B3LYP/def2-SVP", "B3LYP/def2-SVP", 350.0, StandardState.Gas1Atm,
+            ThermoTreatment.QuasiRrhoEntropyAndEnthalpy, 50.0, true, ConformerChoice.BoltzmannEnsemble);
+        Assert.Equal(expected, b.Study.EnergyModel);
+        Assert.Equal(expected, BundleReader.Read(new MemoryStream(BundleWriter.ToZip(b)), "again.zip").GetValueOrThrow().Study.EnergyModel);
+        Assert.Null(ReadJson(SampleText()).GetValueOrThrow().Study.EnergyModel);
     }
 
     [Fact]
@@ -162,6 +186,15 @@ public class BundleReaderTests
         { "charge as text", n => n["species"]![1]!["charge"] = "0", "$.species[1].charge", ["expected a whole number, found a string"] },
         { "multiplicity 0", n => n["species"]![1]!["multiplicity"] = 0, "$.species[1].multiplicity", ["is 0; expected 1 or more"] },
         { "symmetry number 0", n => n["species"]![1]!["symmetry_number"] = 0, "$.species[1].symmetry_number", ["is 0; expected 1 or more"] },
+        { "energy model standard state", n => n["study"]!["energy_model"] = new JsonObject { ["standard_state"] = "1 M" }, "$.study.energy_model.standard_state", ["'1 M'", "'1 mol/L'"] },
+        { "energy model low modes", n => n["study"]!["energy_model"] = new JsonObject { ["low_modes"] = "grimme" }, "$.study.energy_model.low_modes", ["'grimme'", "'entropy'"] },
+        { "energy model temperature", n => n["study"]!["energy_model"] = new JsonObject { ["temperature_kelvin"] = -5 }, "$.study.energy_model.temperature_kelvin", ["above 0 K"] },
+        { "energy model tunnelling", n => n["study"]!["energy_model"] = new JsonObject { ["tunnelling"] = "bell" }, "$.study.energy_model.tunnelling", ["'none' or 'wigner'"] },
+        { "energy model cut-off", n => n["study"]!["energy_model"] = new JsonObject { ["low_mode_cutoff_cm1"] = 0 }, "$.study.energy_model.low_mode_cutoff_cm1", ["is 0", "positive cut-off"] },
+        { "energy model conformers", n => n["study"]!["energy_model"] = new JsonObject { ["conformers"] = "all" }, "$.study.energy_model.conformers", ["'all'", "'lowest' or 'boltzmann-ensemble'"] },
+        { "energy model temperature as text", n => n["study"]!["energy_model"] = new JsonObject { ["temperature_kelvin"] = "298" }, "$.study.energy_model.temperature_kelvin", ["expected a number, found a string"] },
+        { "energy model level as number", n => n["study"]!["energy_model"] = new JsonObject { ["energies_from"] = 5 }, "$.study.energy_model.energies_from", ["expected a string"] },
+        { "energy model not an object", n => n["study"]!["energy_model"] = "1 mol/L", "$.study.energy_model", ["expected an object"] },
         { "duplicate species", n => n["species"]![1]!["label"] = "CH3", "$.species[1].label", ["already defined at $.species[0]"] },
         { "unknown species", n => n["calculations"]![0]!["species"] = "CH5", "$.calculations[0].species", ["'CH5'", "not in $.species"] },
         { "unknown kind", n => n["calculations"]![0]!["kind"] = "transition_state", "$.calculations[0].kind", ["'transition_state'", "saddle_point"] },

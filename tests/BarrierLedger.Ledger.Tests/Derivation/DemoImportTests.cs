@@ -25,13 +25,10 @@ public sealed class DemoImportTests
         Assert.True(outcome.Stored, string.Join("\n", outcome.Errors));
         var studyId = outcome.StudyId!.Value;
 
-        var models = ledger.Get<EnergyModelService>();
-        var settings = (await models.GetForStudyAsync(studyId)).Settings with
-        {
-            EnergyLevel = DemoScenario.SinglePointLevel,
-            ThermalLevel = DemoScenario.GeometryLevel,
-        };
-        Assert.True((await models.SaveStudyOverrideAsync(studyId, settings, 0, "member-1")).Saved);
+        // The protocol is the bundle's study.energy_model, which the upload set as the study's own model before deriving.
+        var model = await ledger.Get<EnergyModelService>().GetForStudyAsync(studyId);
+        Assert.True(model.IsOverride);
+        Assert.Equal((DemoScenario.SinglePointLevel, DemoScenario.GeometryLevel), (model.Settings.EnergyLevel, model.Settings.ThermalLevel));
         await ledger.Get<RecomputeService>().WhenIdleAsync();
 
         var page = await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId);

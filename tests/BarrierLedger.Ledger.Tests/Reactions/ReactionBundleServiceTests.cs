@@ -102,6 +102,39 @@ public sealed class ReactionBundleServiceTests
         Assert.Null(await ledger.Get<ReactionBundleService>().ExportAsync(9999));
     }
 
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task Export_OfAStudyWithItsOwnModel_CarriesIt_SoTheUploadElsewhereDerivesTheSameNumbers(StoreProvider store)
+    {
+        await using var source = await TempLedger.CreateAsync(store);
+        var member = await source.AddUserAsync("member", Roles.Member);
+        var (studyId, reactionId) = await BuildFromLooseFilesAsync(source, member);
+        var models = source.Get<BarrierLedger.Ledger.Derivation.EnergyModelService>();
+        var own = (await models.GetForStudyAsync(studyId)).Settings with
+        {
+            TemperatureKelvin = 350, StandardState = Core.Thermochemistry.StandardState.Gas1Bar,
+            Treatment = Core.Thermochemistry.ThermoTreatment.QuasiRrhoEntropyAndEnthalpy, QuasiRrhoCutoffCm1 = 80,
+            Tunnelling = BarrierLedger.Ledger.Records.TunnellingCorrection.Wigner,
+        };
+        Assert.True((await models.SaveStudyOverrideAsync(studyId, own, 0, member)).Saved);
+        await source.Get<BarrierLedger.Ledger.Derivation.RecomputeService>().WhenIdleAsync();
+
+        var bundle = (await source.Get<ReactionBundleService>().ExportAsync(reactionId))!;
+        Assert.DoesNotContain(bundle.NotCarried, n => n.Contains("energy model"));
+        Assert.Equal(own.ToBundle(), Core.Formats.BundleReader.Read(new MemoryStream(bundle.Zip), bundle.FileName).GetValueOrThrow().Study.EnergyModel);
+
+        // Another ledger, whose group default is not the study's model: the upload creates the study under the carried model.
+        await using var target = await TempLedger.CreateAsync(store);
+        var other = await target.AddUserAsync("elsewhere", Roles.Member);
+        var uploaded = await target.Get<UploadService>().StoreAsync([new UploadFile(bundle.FileName, bundle.Zip)], new UploadChoices(), other);
+        Assert.True(uploaded.Stored, string.Join("\n", uploaded.Issues));
+        Assert.Equal(own.Fingerprint, (await target.Get<BarrierLedger.Ledger.Derivation.EnergyModelService>().GetForStudyAsync(uploaded.StudyId!.Value)).Settings.Fingerprint);
+        var (a, b) = (await DerivationAsync(source, reactionId), await DerivationAsync(target, Assert.Single(uploaded.ReactionIds)));
+        Assert.Equal(350, a.TemperatureKelvin);
+        Assert.NotNull(a.RateConstantPerSecond);
+        Assert.Equal((a.BarrierGibbsHartree, a.ReactionGibbsHartree, a.RateConstantPerSecond, a.TemperatureKelvin, a.ModelFingerprint, a.StepsJson),
+            (b.BarrierGibbsHartree, b.ReactionGibbsHartree, b.RateConstantPerSecond, b.TemperatureKelvin, b.ModelFingerprint, b.StepsJson));
+    }
+
     private static async Task<BarrierLedger.Ledger.Records.ReactionDerivation> DerivationAsync(TempLedger l, int reactionId)
     {
         await using var db = await l.DbAsync();

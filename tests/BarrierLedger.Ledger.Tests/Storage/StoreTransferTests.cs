@@ -81,9 +81,10 @@ public sealed class StoreTransferTests
     /// <summary>The demo under its protocol, with a reviewer's verdict and a data-protection key, so every kind of row exists.</summary>
     internal static async Task PrepareDemoAsync(TempLedger ledger, int studyId)
     {
-        var models = ledger.Get<EnergyModelService>();
-        var settings = (await models.GetForStudyAsync(studyId)).Settings with { EnergyLevel = DemoScenario.SinglePointLevel, ThermalLevel = DemoScenario.GeometryLevel };
-        Assert.True((await models.SaveStudyOverrideAsync(studyId, settings, 0, "demo-user")).Saved);
+        // The bundle's study.energy_model made the protocol the study's own model on upload (an EnergyModels row exists).
+        var model = await ledger.Get<EnergyModelService>().GetForStudyAsync(studyId);
+        Assert.True(model.IsOverride);
+        Assert.Equal((DemoScenario.SinglePointLevel, DemoScenario.GeometryLevel), (model.Settings.EnergyLevel, model.Settings.ThermalLevel));
         await ledger.Get<RecomputeService>().WhenIdleAsync();
         var reviewer = await ledger.AddUserAsync("reviewer-1", "Reviewer");
         await using var db = await ledger.DbAsync();
