@@ -49,7 +49,7 @@ public sealed class DemoConformerTests
             Assert.Equal(expected.Where(e => e.Reaction == row.Label).Select(e => e.Code).Order(StringComparer.Ordinal), codes);
         }
         var bu = rows.Single(r => r.Label == "BU");
-        Assert.All(bu.ConsistencyReasons.Where(r => s_codes.Contains(r.Code)), r => Assert.Equal("Attention", r.Severity));
+        Assert.All(bu.ConsistencyReasons.Where(r => s_codes.Contains(r.Code)), r => Assert.Equal(BarrierLedger.Core.Checks.CheckSeverity.Attention, r.Severity));
 
         // The reaction page: the same reasons under its notes.
         var detail = (await ledger.Get<ReactionQueryService>().GetReactionAsync(bu.ReactionId))!;
