@@ -103,15 +103,19 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
             // "awaiting review" (every entry leads elsewhere); read through the (species, kind) index, not the review history.
             Earlier = db.Calculations.Any(c => c.SpeciesId == s.SaddleCalculation.SpeciesId && c.Kind == CalculationKind.SaddlePoint
                                                && c.ReviewState != ReviewState.AwaitingReview),
-            Check = db.FrequencyChecks.Where(c => c.CalculationId == s.SaddleCalculationId).Select(c => new { c.Verdict, c.ReasonsJson, c.EvidenceJson }).FirstOrDefault(),
         }).ToListAsync(ct);
         var more = !whole && rows.Count > take;
         if (more) rows.RemoveAt(rows.Count - 1);
-        IReadOnlyList<ReviewQueueItem> items = [.. rows.Select(r => new ReviewQueueItem(
-            r.CalcId, r.CalcLabel, r.LevelOfTheory, r.StateId, r.StateLabel, r.ReactionId, r.ReactionLabel, r.StudyId, r.StudyName,
-            r.UploadedByUserId, string.IsNullOrEmpty(r.UploaderName) ? r.UploadedByUserId : r.UploaderName, r.UploadedAt,
-            r.Check?.Verdict, r.Check is null ? [] : DerivedJson.Read<List<StoredReason>>(r.Check.ReasonsJson),
-            r.Check is null ? null : DerivedJson.Read<CheckEvidence>(r.Check.EvidenceJson), r.Earlier))];
+        // The page's checks by their (unique) calculation index, in a second round trip: as a subquery of the page EF joins a
+        // numbering of every check in the ledger instead.
+        var calcIds = rows.Select(r => r.CalcId).Distinct().ToList();
+        var checks = await db.FrequencyChecks.AsNoTracking().Where(c => EF.Parameter(calcIds).Contains(c.CalculationId))
+            .Select(c => new { c.CalculationId, c.Verdict, c.ReasonsJson, c.EvidenceJson }).ToDictionaryAsync(c => c.CalculationId, ct);
+        IReadOnlyList<ReviewQueueItem> items = [.. rows.Select(r => (Row: r, Check: checks.GetValueOrDefault(r.CalcId))).Select(x => new ReviewQueueItem(
+            x.Row.CalcId, x.Row.CalcLabel, x.Row.LevelOfTheory, x.Row.StateId, x.Row.StateLabel, x.Row.ReactionId, x.Row.ReactionLabel, x.Row.StudyId, x.Row.StudyName,
+            x.Row.UploadedByUserId, string.IsNullOrEmpty(x.Row.UploaderName) ? x.Row.UploadedByUserId : x.Row.UploaderName, x.Row.UploadedAt,
+            x.Check?.Verdict, x.Check is null ? [] : DerivedJson.Read<List<StoredReason>>(x.Check.ReasonsJson),
+            x.Check is null ? null : DerivedJson.Read<CheckEvidence>(x.Check.EvidenceJson), x.Row.Earlier))];
         return whole ? new ReviewQueueSlice(items, items.Count, false, null)
             : new ReviewQueueSlice(items, Math.Min(counted, countLimit), counted > countLimit, more ? new ReviewQueueKey(items[^1].CalculationId, items[^1].StateId) : null);
     }
