@@ -16,7 +16,7 @@ public sealed record ReviewEntry(int Id, int CalculationId, string CalculationLa
 public sealed record ReviewQueueItem(
     int CalculationId, string CalculationLabel, string LevelOfTheory, int StateId, string StateLabel, int ReactionId, string ReactionLabel,
     int StudyId, string StudyName, string UploadedByUserId, string UploadedByName, DateTimeOffset UploadedAt,
-    Verdict? Verdict, IReadOnlyList<StoredReason> Reasons, CheckEvidence? Evidence, bool PreviouslyReviewed);
+    Verdict? Verdict, IReadOnlyList<CheckReason> Reasons, CheckEvidence? Evidence, bool PreviouslyReviewed);
 
 /// <summary>Where a page of the review queue starts: after this saddle point (its calculation, then its state), in queue order.</summary>
 public sealed record ReviewQueueKey(int CalculationId, int StateId);
@@ -114,7 +114,7 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
         IReadOnlyList<ReviewQueueItem> items = [.. rows.Select(r => (Row: r, Check: checks.GetValueOrDefault(r.CalcId))).Select(x => new ReviewQueueItem(
             x.Row.CalcId, x.Row.CalcLabel, x.Row.LevelOfTheory, x.Row.StateId, x.Row.StateLabel, x.Row.ReactionId, x.Row.ReactionLabel, x.Row.StudyId, x.Row.StudyName,
             x.Row.UploadedByUserId, string.IsNullOrEmpty(x.Row.UploaderName) ? x.Row.UploadedByUserId : x.Row.UploaderName, x.Row.UploadedAt,
-            x.Check?.Verdict, x.Check is null ? [] : DerivedJson.Read<List<StoredReason>>(x.Check.ReasonsJson),
+            x.Check?.Verdict, x.Check is null ? [] : DerivedJson.Read<List<CheckReason>>(x.Check.ReasonsJson),
             x.Check is null ? null : DerivedJson.Read<CheckEvidence>(x.Check.EvidenceJson), x.Row.Earlier))];
         return whole ? new ReviewQueueSlice(items, items.Count, false, null)
             : new ReviewQueueSlice(items, Math.Min(counted, countLimit), counted > countLimit, more ? new ReviewQueueKey(items[^1].CalculationId, items[^1].StateId) : null);
