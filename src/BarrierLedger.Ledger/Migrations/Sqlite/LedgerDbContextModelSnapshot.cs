@@ -1058,6 +1058,8 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.HasIndex("Sha256")
                         .IsUnique();
 
+                    b.HasIndex("UploadedByUserId", "SizeBytes");
+
                     b.ToTable("StoredFiles", (string)null);
                 });
 
