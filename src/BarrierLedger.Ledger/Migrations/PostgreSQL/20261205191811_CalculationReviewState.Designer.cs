@@ -12,7 +12,7 @@ using Npgsql.EntityFrameworkCore.PostgreSQL.Metadata;
 namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 {
     [DbContext(typeof(PostgreSqlLedgerDbContext))]
-    [Migration("20261205181958_CalculationReviewState")]
+    [Migration("20261205191811_CalculationReviewState")]
     partial class CalculationReviewState
     {
         /// <inheritdoc />
@@ -1178,6 +1178,8 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     b.HasIndex("Sha256")
                         .IsUnique();
+
+                    b.HasIndex("UploadedByUserId", "SizeBytes");
 
                     b.ToTable("StoredFiles", (string)null);
                 });

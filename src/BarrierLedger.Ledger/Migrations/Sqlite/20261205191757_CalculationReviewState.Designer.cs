@@ -11,7 +11,7 @@ using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 namespace BarrierLedger.Ledger.Migrations.Sqlite
 {
     [DbContext(typeof(LedgerDbContext))]
-    [Migration("20261205181924_CalculationReviewState")]
+    [Migration("20261205191757_CalculationReviewState")]
     partial class CalculationReviewState
     {
         /// <inheritdoc />
@@ -1060,6 +1060,8 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
 
                     b.HasIndex("Sha256")
                         .IsUnique();
+
+                    b.HasIndex("UploadedByUserId", "SizeBytes");
 
                     b.ToTable("StoredFiles", (string)null);
                 });
