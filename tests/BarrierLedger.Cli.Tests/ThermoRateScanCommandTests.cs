@@ -27,7 +27,7 @@ public class ThermoCommandTests
         var file = dir.Write("water.json", WaterForceField.QcSchemaJson());
         var j = RunJson(["thermo", "--json", file, .. options]);
         var cutoff = options.Contains("--low-mode-cutoff") ? 50.0 : 100.0;
-        var api = Thermochemistry.Compute(FrequencyAnalysis.FromHessian(WaterForceField.Molecule(), WaterForceField.Hessian()),
+        var api = IdealGasThermo.Compute(FrequencyAnalysis.FromHessian(WaterForceField.Molecule(), WaterForceField.Hessian()),
             new ThermoOptions(t, SymmetryNumber: sigma, Treatment: treatment, StandardState: state, QuasiRrhoCutoffCm1: cutoff));
         Assert.Equal(sigma, j.GetProperty("symmetry_number").GetInt32());
         Assert.Equal("C2v", j.GetProperty("point_group").GetString());

@@ -67,7 +67,7 @@ internal static class ThermoCommand
             var symmetry = PointGroups.Detect(analysis.Molecule, pr.GetValue(tolerance));
             var given = pr.GetValue(sigma);
             var options = new ThermoOptions(t, pressurePa, given ?? symmetry.SymmetryNumber, LowModeNames.Parse(pr.GetValue(lowModes)!), pr.GetValue(cutoff), state);
-            var r = Thermochemistry.Compute(analysis, options);
+            var r = IdealGasThermo.Compute(analysis, options);
             if (pr.GetValue(json)) ctx.WriteJson(ToJson(data, analysis, r, symmetry, given is not null));
             else WriteTable(ctx.Out, data, analysis, r, symmetry, given is not null);
             return ExitCodes.Ok;

@@ -5,7 +5,7 @@ using BarrierLedger.Core.Kinetics;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Core.Vibrations;
-using ThermoCalc = BarrierLedger.Core.Thermochemistry.Thermochemistry;
+using ThermoCalc = BarrierLedger.Core.Thermochemistry.IdealGasThermo;
 
 namespace BarrierLedger.Core.IsotopeEffects;
 

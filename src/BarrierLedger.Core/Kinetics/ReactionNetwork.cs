@@ -61,7 +61,7 @@ public sealed record StandardConcentration(
 {
     /// <summary>c° in mol/L at <paramref name="temperatureKelvin"/>.</summary>
     public double MolPerL(double temperatureKelvin) =>
-        Thermochemistry.Thermochemistry.ReferencePressurePascal(temperatureKelvin, State, PressurePascal, SolutionMolPerL)
+        Thermochemistry.IdealGasThermo.ReferencePressurePascal(temperatureKelvin, State, PressurePascal, SolutionMolPerL)
         / (PhysicalConstants.GasConstantJoulePerMoleKelvin * temperatureKelvin) / 1000.0;
 
     /// <summary>"1 mol/L", "1 atm" or "1 bar".</summary>

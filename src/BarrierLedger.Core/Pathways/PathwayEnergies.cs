@@ -322,7 +322,7 @@ public static class PathwayEnergies
     private static double StandardConcentration(ThermoOptions o) => o.StandardState switch
     {
         StandardState.Solution1Molar => o.ConcentrationMolPerL ?? 1.0,
-        _ => Thermochemistry.Thermochemistry.ReferencePressurePascal(o.TemperatureKelvin, o.StandardState, o.PressurePascal)
+        _ => Thermochemistry.IdealGasThermo.ReferencePressurePascal(o.TemperatureKelvin, o.StandardState, o.PressurePascal)
              / (PhysicalConstants.GasConstantJoulePerMoleKelvin * o.TemperatureKelvin) / 1000.0,
     };
 
@@ -382,7 +382,7 @@ public static class PathwayEnergies
                     extra.Add(new(PathwayEnergyCodes.ThermalTemperatureNotModel, CheckSeverity.Failure,
                         $"{sp.Label}: its thermal corrections are for {F(r.TemperatureKelvin)} K but the energy model is at {F(t)} K; recompute them at {F(t)} K or compute them here."));
                 if (r.StandardState == thermo.StandardState) return r;
-                var shift = Thermochemistry.Thermochemistry.StandardStateCorrection(r.TemperatureKelvin, r.StandardState, thermo.StandardState, thermo.ConcentrationMolPerL ?? 1.0);
+                var shift = Thermochemistry.IdealGasThermo.StandardStateCorrection(r.TemperatureKelvin, r.StandardState, thermo.StandardState, thermo.ConcentrationMolPerL ?? 1.0);
                 extra.Add(new(PathwayEnergyCodes.StandardStateConverted, CheckSeverity.Info,
                     $"{sp.Label}: Gibbs correction moved from {r.StandardState} to {thermo.StandardState} ({Signed(shift.KcalPerMol)} kcal/mol)."));
                 return r with { Gibbs = r.Gibbs + shift, StandardState = thermo.StandardState };
@@ -397,7 +397,7 @@ public static class PathwayEnergies
                 ThermoResult result;
                 try
                 {
-                    result = Thermochemistry.Thermochemistry.Compute(sp.Geometry, sp.FrequenciesCm1, thermo with { SymmetryNumber = Math.Max(1, sp.SymmetryNumber) });
+                    result = Thermochemistry.IdealGasThermo.Compute(sp.Geometry, sp.FrequenciesCm1, thermo with { SymmetryNumber = Math.Max(1, sp.SymmetryNumber) });
                 }
                 catch (ArgumentException ex)
                 {

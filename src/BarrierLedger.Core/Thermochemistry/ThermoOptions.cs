@@ -1,6 +1,6 @@
 namespace BarrierLedger.Core.Thermochemistry;
 
-/// <summary>How vibrations are treated in <see cref="Thermochemistry.Compute(Geometry.Molecule, IReadOnlyList{double}, ThermoOptions, IReadOnlyList{double})"/>.</summary>
+/// <summary>How vibrations are treated in <see cref="IdealGasThermo.Compute(Geometry.Molecule, IReadOnlyList{double}, ThermoOptions, IReadOnlyList{double})"/>.</summary>
 public enum ThermoTreatment
 {
     /// <summary>Rigid rotor, harmonic oscillator for every real mode.</summary>

@@ -7,13 +7,6 @@ using BarrierLedger.Ledger.Records;
 
 namespace BarrierLedger.Ledger.Derivation;
 
-/// <summary>Normalised keys for matching levels of theory (whitespace removed, case folded).</summary>
-public static class EnergyLevels
-{
-    public static string Key(string? level) =>
-        string.Concat((level ?? "").Where(c => !char.IsWhiteSpace(c))).ToLowerInvariant();
-}
-
 /// <summary>
 /// The energy model in force for a study, as values. <see cref="Fingerprint"/> covers everything that changes a derived
 /// number (not the display unit); <see cref="CheckFingerprint"/> covers what changes a frequency check.

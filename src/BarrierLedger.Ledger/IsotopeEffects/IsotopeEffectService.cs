@@ -9,7 +9,7 @@ using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.EntityFrameworkCore;
-using ThermoCalc = BarrierLedger.Core.Thermochemistry.Thermochemistry;
+using ThermoCalc = BarrierLedger.Core.Thermochemistry.IdealGasThermo;
 
 namespace BarrierLedger.Ledger.IsotopeEffects;
 

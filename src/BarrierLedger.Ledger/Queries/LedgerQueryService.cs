@@ -40,7 +40,7 @@ public sealed record LedgerRow(
     IReadOnlyList<ConsistencyReason> ConsistencyReasons, bool Derived, bool Stale, bool Retired, long Version);
 
 /// <summary>The ledger of one study: its rows and the energy model they were (or should be) computed under.</summary>
-public sealed record LedgerPage(int StudyId, string StudyName, EnergyModelView Model, IReadOnlyList<LedgerRow> Rows)
+public sealed record StudyLedger(int StudyId, string StudyName, EnergyModelView Model, IReadOnlyList<LedgerRow> Rows)
 {
     public int StaleCount => Rows.Count(r => r.Stale);
 }
@@ -57,7 +57,7 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
     }
 
     /// <summary>Every reaction of a study with its derived values, check verdict and review status, in one query.</summary>
-    public async Task<LedgerPage> GetLedgerRowsAsync(int studyId, LedgerFilter? filter = null, CancellationToken ct = default)
+    public async Task<StudyLedger> GetLedgerRowsAsync(int studyId, LedgerFilter? filter = null, CancellationToken ct = default)
     {
         filter ??= LedgerFilter.None;
         await using var db = await factory.CreateDbContextAsync(ct);
@@ -120,7 +120,7 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
                     || row.LevelOfTheory.Contains(filter.Text, StringComparison.OrdinalIgnoreCase))) continue;
             rows.Add(row);
         }
-        return new LedgerPage(studyId, study.Name, model, rows);
+        return new StudyLedger(studyId, study.Name, model, rows);
     }
 
     private static Energy? E(double? hartree) => hartree is { } h ? Energy.FromHartree(h) : null;

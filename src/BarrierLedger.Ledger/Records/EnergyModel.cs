@@ -3,7 +3,8 @@ using BarrierLedger.Core.Units;
 
 namespace BarrierLedger.Ledger.Records;
 
-/// <summary>How the thermal corrections are obtained.</summary>
+/// <summary>The tunnelling correction that multiplies each Eyring rate constant: none (κ from the model alone), or Wigner's
+/// κ from the saddle point's imaginary frequency (<see cref="Core.Kinetics.Tunnelling.Wigner"/>).</summary>
 public enum TunnellingCorrection
 {
     None,

@@ -3,7 +3,7 @@ using BarrierLedger.Core.Symmetry;
 using BarrierLedger.Core.Tests.ReferenceData;
 using BarrierLedger.Core.Tests.Support;
 using BarrierLedger.Core.Thermochemistry;
-using Thermo = BarrierLedger.Core.Thermochemistry.Thermochemistry;
+using Thermo = BarrierLedger.Core.Thermochemistry.IdealGasThermo;
 
 namespace BarrierLedger.Core.Tests.Symmetry;
 

@@ -2,7 +2,7 @@ using BarrierLedger.Core.IsotopeEffects;
 using BarrierLedger.Core.Tests.ReferenceData;
 using BarrierLedger.Core.Tests.Support;
 using BarrierLedger.Core.Thermochemistry;
-using ThermoCalc = BarrierLedger.Core.Thermochemistry.Thermochemistry;
+using ThermoCalc = BarrierLedger.Core.Thermochemistry.IdealGasThermo;
 
 namespace BarrierLedger.Core.Tests.Thermochemistry;
 

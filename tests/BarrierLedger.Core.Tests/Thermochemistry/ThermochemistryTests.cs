@@ -3,7 +3,7 @@ using BarrierLedger.Core.Tests.ReferenceData;
 using BarrierLedger.Core.Tests.Support;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
-using Thermo = BarrierLedger.Core.Thermochemistry.Thermochemistry;
+using Thermo = BarrierLedger.Core.Thermochemistry.IdealGasThermo;
 
 namespace BarrierLedger.Core.Tests.Thermochemistry;
 

@@ -18,7 +18,7 @@ namespace BarrierLedger.Core.Thermochemistry;
 /// </list>
 /// Constants CODATA 2018.
 /// </summary>
-public static class Thermochemistry
+public static class IdealGasThermo
 {
     private const double R = PhysicalConstants.GasConstantJoulePerMoleKelvin;
 
