@@ -25,6 +25,9 @@ public enum CheckSeverity
 /// </summary>
 public sealed record CheckReason(string Code, CheckSeverity Severity, string Message)
 {
+    /// <summary>A failure: the verdict of any list holding it is <see cref="Verdict.Failed"/> (a barrier with one is inconsistent).</summary>
+    public bool Blocking => Severity == CheckSeverity.Failure;
+
     public override string ToString() => $"[{Code}] {Message}";
 
     /// <summary>The verdict a list of reasons leads to: Failed if any failure, else Needs attention if any attention, else Passed.</summary>

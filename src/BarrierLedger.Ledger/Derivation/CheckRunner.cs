@@ -23,9 +23,6 @@ public sealed record ComponentEvidence(string Label, double Share, bool IsReacti
 
 public sealed record ScanEvidence(int ScanId, double SaddleCoordinate, double ScanMaximumCoordinate, double DistanceInSteps, string Unit);
 
-/// <summary>A stored check reason as read back.</summary>
-public sealed record StoredReason(string Code, string Severity, string Message);
-
 /// <summary>Runs the Core saddle-point check on a stored calculation and turns the result into a <see cref="FrequencyCheck"/>'s fields.</summary>
 internal static class CheckRunner
 {
@@ -57,7 +54,7 @@ internal static class CheckRunner
                 ? "No frequencies or normal modes are stored, so nothing shows that this is a saddle point. Upload the frequency calculation (modes or Hessian)."
                 : $"Only frequencies are stored ({significant} significant imaginary of {imaginary.Count} imaginary), no normal modes: what the imaginary mode does cannot be checked. Upload the modes or the Hessian.";
             var verdict = significant == 1 ? Verdict.NeedsAttention : Verdict.Failed;
-            var reasons = new[] { new StoredReason(NoModesCode, verdict == Verdict.Failed ? "Failure" : "Attention", text) };
+            var reasons = new[] { new CheckReason(NoModesCode, verdict == Verdict.Failed ? CheckSeverity.Failure : CheckSeverity.Attention, text) };
             var evidence = new CheckEvidence([.. imaginary.Select((f, k) => new ModeEvidence(k, f, Math.Abs(f) >= threshold, "unknown", false, "no normal mode stored", []))], null, threshold);
             return (verdict, DerivedJson.Write(reasons), DerivedJson.Write(evidence));
         }
@@ -98,12 +95,12 @@ internal static class CheckRunner
             [.. result.SignificantModes.Select(s => Evidence(s, true)), .. result.SoftModes.Select(s => Evidence(s, false))],
             result.Scan is { } sc && i.ScanId is { } sid ? new ScanEvidence(sid, sc.SaddleCoordinate, sc.ScanMaximumCoordinate, sc.DistanceInSteps, sc.Unit) : null,
             threshold) { Connection = connection, ModePrediction = prediction };
-        return (CheckReason.VerdictOf(ordered), DerivedJson.Write(ordered.Select(r => new StoredReason(r.Code, r.Severity.ToString(), r.Message)).ToList()),
+        return (CheckReason.VerdictOf(ordered), DerivedJson.Write(ordered),
             DerivedJson.Write(ev));
     }
 
     private static (Verdict, string, string) Fail(string code, string message, double threshold) =>
-        (Verdict.Failed, DerivedJson.Write(new[] { new StoredReason(code, "Failure", message) }), DerivedJson.Write(new CheckEvidence([], null, threshold)));
+        (Verdict.Failed, DerivedJson.Write(new[] { new CheckReason(code, CheckSeverity.Failure, message) }), DerivedJson.Write(new CheckEvidence([], null, threshold)));
 
     /// <summary>Rebuilds the check input from a stored calculation, the state's pairs and an optional scan.</summary>
     public static Input FromStored(Calculation c, Species sp, (int A, int B)[] pairs, Scan? scan, IReadOnlyList<ScanPointRecord>? points)

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using BarrierLedger.Core.Checks;
 
 namespace BarrierLedger.Ledger.Derivation;
 
@@ -9,6 +10,8 @@ internal static class DerivedJson
     {
         DefaultIgnoreCondition = JsonIgnoreCondition.Never,
         NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
+        // Reasons are stored with their severity as a word ("Failure", "Attention", "Info"), as they always were.
+        Converters = { new JsonStringEnumConverter<CheckSeverity>() },
     };
 
     public static string Write<T>(T value) => JsonSerializer.Serialize(value, Options);

@@ -1,3 +1,5 @@
+using BarrierLedger.Core.Checks;
+
 namespace BarrierLedger.Ledger.Derivation;
 
 /// <summary>One state of a pathway that is not stored yet, as the builder holds it: species ids with coefficients, the saddle point's calculation and its atom pairs (1-based).</summary>
@@ -6,5 +8,5 @@ public sealed record PreviewState(string Label, Records.StateKind Kind, int? Sad
 
 /// <summary>What the derivation gives for a pathway that is not stored yet (the same numbers and reasons a stored one gets), and the model used.</summary>
 public sealed record DerivedPreview(double? BarrierGibbsHartree, double? ReactionGibbsHartree, double? BarrierElectronicHartree, double? RateConstantPerSecond,
-    double? HalfLifeSeconds, double TemperatureKelvin, string LevelOfTheory, bool Consistent, IReadOnlyList<ConsistencyReason> Consistency,
+    double? HalfLifeSeconds, double TemperatureKelvin, string LevelOfTheory, bool Consistent, IReadOnlyList<CheckReason> Consistency,
     IReadOnlyList<DerivedState> States, IReadOnlyList<DerivedStep> Steps, ModelSettings Model);

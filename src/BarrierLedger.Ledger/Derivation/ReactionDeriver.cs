@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Storage;
 using CoreStateKind = BarrierLedger.Core.Pathways.StateKind;
@@ -8,7 +9,7 @@ namespace BarrierLedger.Ledger.Derivation;
 internal sealed record DerivedReaction(
     int ReactionId, long InputsRevision, double? BarrierGibbsHartree, double? ReactionGibbsHartree, double? BarrierElectronicHartree,
     double? RateConstantPerSecond, double? HalfLifeSeconds, double TemperatureKelvin, string LevelOfTheory, bool Consistent,
-    IReadOnlyList<ConsistencyReason> Consistency, IReadOnlyList<DerivedState> States, IReadOnlyList<DerivedStep> Steps,
+    IReadOnlyList<CheckReason> Consistency, IReadOnlyList<DerivedState> States, IReadOnlyList<DerivedStep> Steps,
     string ModelFingerprint, string InputFingerprint)
 {
     // Serialised as the values are made (on the deriving thread), so storing them is only the write.
@@ -30,7 +31,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
 
     public DerivedReaction Derive(ReactionInput r)
     {
-        var reasons = new List<ConsistencyReason>();
+        var reasons = new List<CheckReason>();
         var fingerprint = new System.Text.StringBuilder().Append(model.Fingerprint).Append('|').Append(r.Id);
         var states = new List<PathwayState>();
         var resolved = new List<List<(int SpeciesId, ResolvedSpecies Species)>>();
@@ -44,7 +45,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
             {
                 if (!inputs.Species.TryGetValue(speciesId, out var sp))
                 {
-                    reasons.Add(new(LedgerReasonCodes.MissingSpecies, "Failure", $"State {s.Label}: one of its species is retired."));
+                    reasons.Add(new(LedgerReasonCodes.MissingSpecies, CheckSeverity.Failure, $"State {s.Label}: one of its species is retired."));
                     complete = false;
                     continue;
                 }
@@ -66,11 +67,11 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
             try
             {
                 result = PathwayEnergies.Derive(new Pathway(r.Id.ToString(System.Globalization.CultureInfo.InvariantCulture), states), _resolver.CoreModel);
-                reasons.AddRange(result.Reasons.Select(x => new ConsistencyReason(x.Code, x.Severity.ToString(), x.Message)));
+                reasons.AddRange(result.Reasons);
             }
             catch (ArgumentException ex)
             {
-                reasons.Add(new(LedgerReasonCodes.PathwayShape, "Failure", ex.Message));
+                reasons.Add(new(LedgerReasonCodes.PathwayShape, CheckSeverity.Failure, ex.Message));
             }
         }
 
@@ -96,7 +97,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
         var levels = states.SelectMany(s => s.Terms).Select(t => t.Species.ElectronicLevel.ToString()).Distinct().Order(StringComparer.Ordinal).ToList();
         var levelText = string.Join("; ", levels);
         if (model.ThermalLevel.Trim().Length > 0) levelText += $" (thermal: {model.ThermalLevel})";
-        var distinct = reasons.DistinctBy(x => x.Code + x.Message).OrderBy(x => x.Severity switch { "Failure" => 0, "Attention" => 1, _ => 2 }).ToList();
+        var distinct = reasons.DistinctBy(x => x.Code + x.Message).OrderByDescending(x => x.Severity).ToList();
         return new DerivedReaction(r.Id, r.InputsRevision, overall?.GibbsBarrier?.Hartree, overall?.ReactionGibbs?.Hartree, overall?.ElectronicBarrier?.Hartree,
             overall?.RateConstantPerSecond, overall?.HalfLifeSeconds, model.TemperatureKelvin, levelText,
             result is not null && !distinct.Any(x => x.Blocking), distinct, derivedStates, steps, model.Fingerprint,

@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Pathways;
@@ -16,7 +17,7 @@ namespace BarrierLedger.Ledger.Derivation;
 /// geometry and frequencies for the thermal correction, the program-reported correction as fallback, σ), the calculations it
 /// came from, and the reasons found while choosing them. <see cref="Record"/> is null when the species has no usable energy.
 /// </summary>
-internal sealed record ResolvedSpecies(SpeciesRecord? Record, CalcInput? Energy, CalcInput? Thermal, CalcInput? Reported, IReadOnlyList<ConsistencyReason> Reasons)
+internal sealed record ResolvedSpecies(SpeciesRecord? Record, CalcInput? Energy, CalcInput? Thermal, CalcInput? Reported, IReadOnlyList<CheckReason> Reasons)
 {
     /// <summary>For a species with several conformers: each conformer resolved on its own calculations, by label (the record carries them too).</summary>
     public IReadOnlyDictionary<string, ResolvedSpecies>? Conformers { get; init; }
@@ -92,7 +93,7 @@ internal sealed class StateResolver(ModelSettings model, DerivationInputs inputs
         var byLabel = calcs.ToLookup(c => c.Conformer, StringComparer.Ordinal);
         var resolved = new Dictionary<string, ResolvedSpecies>(StringComparer.Ordinal);
         var order = new List<(int SetIndex, string Label)>();
-        var reasons = new List<ConsistencyReason>();
+        var reasons = new List<CheckReason>();
         for (var k = 0; k < set.Conformers.Length; k++)
         {
             var label = set.Conformers[k].Label;
@@ -100,7 +101,7 @@ internal sealed class StateResolver(ModelSettings model, DerivationInputs inputs
             var rs = BuildOne(sp, group, preferred is not null && group.Contains(preferred) ? preferred : null, state);
             if (rs.Record is null)
             {
-                reasons.Add(new(LedgerReasonCodes.ConformerLeftOut, "Info",
+                reasons.Add(new(LedgerReasonCodes.ConformerLeftOut, CheckSeverity.Info,
                     $"State {state}: conformer {Name(label)} of {sp.Label} has no electronic energy" + (_energyKey.Length > 0 ? $" at {model.EnergyLevel}" : "") + ", so it is left out."));
                 continue;
             }
@@ -141,17 +142,17 @@ internal sealed class StateResolver(ModelSettings model, DerivationInputs inputs
 
     private ResolvedSpecies BuildOne(SpeciesInput sp, IEnumerable<CalcInput> calcs, CalcInput? preferred, string state)
     {
-        var reasons = new List<ConsistencyReason>();
+        var reasons = new List<CheckReason>();
 
         var energy = EnergyCalculation(calcs, _energyKey, _energyGeometryKey, preferred);
         if (energy is null)
         {
-            reasons.Add(new(LedgerReasonCodes.MissingEnergy, "Failure",
+            reasons.Add(new(LedgerReasonCodes.MissingEnergy, CheckSeverity.Failure,
                 $"State {state}: species {sp.Label} has no electronic energy" + (_energyKey.Length > 0 ? $" at {model.EnergyLevel}" : "") + ", so the pathway has no energies."));
             return new(null, null, null, null, reasons);
         }
         if (sp.Formula.Length == 0)
-            reasons.Add(new(LedgerReasonCodes.FormulaUnknown, "Failure", $"Species {sp.Label} has no geometry stored, so conservation of atoms cannot be checked."));
+            reasons.Add(new(LedgerReasonCodes.FormulaUnknown, CheckSeverity.Failure, $"Species {sp.Label} has no geometry stored, so conservation of atoms cannot be checked."));
 
         var thermal = ThermalCalculation(calcs, _thermalKey, preferred);
         var reported = ReportedCalculation(calcs, model.TemperatureKelvin);

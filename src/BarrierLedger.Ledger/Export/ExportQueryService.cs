@@ -70,7 +70,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
                 continue;
             }
             var steps = DerivedJson.Read<List<DerivedStep>>(r.Derivation.StepsJson);
-            var stored = DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson);
+            var stored = DerivedJson.Read<List<CheckReason>>(r.Derivation.ConsistencyJson);
             var problems = stored.Where(c => c.Blocking).Select(c => c.Message).ToList();
             if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
             // The conformer checks (issue 21) do not block a barrier but can mislead: every row of the reaction footnotes them.
@@ -97,7 +97,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
     }
 
     /// <summary>The conformer checks (issue 21) among stored reasons: they do not block a barrier but can mislead, so exports footnote them.</summary>
-    private static List<string> ConformerCautions(IEnumerable<ConsistencyReason> stored) =>
+    private static List<string> ConformerCautions(IEnumerable<CheckReason> stored) =>
         [.. stored.Where(c => !c.Blocking && c.Code.StartsWith("conformers.", StringComparison.Ordinal)).Select(c => c.Message)];
 
     /// <summary>The reaction's profile for a figure; <paramref name="quantity"/> is "ΔG", "ΔH" or "ΔE".</summary>
@@ -123,7 +123,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
             return new DiagramStateInfo(s.Label, Energy.FromHartree(Pick(s, quantity)!.Value), saddle,
                 calcId is { } id && reviews.TryGetValue(id, out var rv) ? rv : ReviewState.AwaitingReview, verdict, reasons);
         }).ToList();
-        var stored = DerivedJson.Read<List<ConsistencyReason>>(r.Derivation.ConsistencyJson);
+        var stored = DerivedJson.Read<List<CheckReason>>(r.Derivation.ConsistencyJson);
         var problems = r.Derivation.Consistent ? [] : stored.Where(c => c.Blocking).Select(c => c.Message).ToList();
         if (!r.Derivation.Consistent && problems.Count == 0) problems.Add("inconsistent pathway");
         var model = await ModelAsync(db, r.StudyId, [r.Derivation.LevelOfTheory], ct);
@@ -227,7 +227,7 @@ public sealed class ExportQueryService(IDbContextFactory<LedgerDbContext> factor
     private static (Verdict?, IReadOnlyList<string>) CheckOf(int? calcId, Dictionary<int, FrequencyCheck> checks)
     {
         if (calcId is not { } id || !checks.TryGetValue(id, out var c)) return (null, []);
-        var reasons = DerivedJson.Read<List<StoredReason>>(c.ReasonsJson).Where(r => r.Severity != "Info").Select(r => r.Message).ToList();
+        var reasons = DerivedJson.Read<List<CheckReason>>(c.ReasonsJson).Where(r => r.Severity != CheckSeverity.Info).Select(r => r.Message).ToList();
         return (c.Verdict, reasons);
     }
 

@@ -37,7 +37,7 @@ public sealed record LedgerRow(
     int ReactionId, string Label, string Description, string OwnerUserId, string OwnerName,
     Energy? BarrierGibbs, Energy? ReactionGibbs, Energy? BarrierElectronic, double? RateConstantPerSecond, double? HalfLifeSeconds, double? TemperatureKelvin,
     Verdict? Verdict, ReviewState? ReviewStatus, int SaddlePointCount, string LevelOfTheory, bool Consistent,
-    IReadOnlyList<ConsistencyReason> ConsistencyReasons, bool Derived, bool Stale, bool Retired, long Version);
+    IReadOnlyList<CheckReason> ConsistencyReasons, bool Derived, bool Stale, bool Retired, long Version);
 
 /// <summary>The ledger of one study: its rows and the energy model they were (or should be) computed under.</summary>
 public sealed record StudyLedger(int StudyId, string StudyName, EnergyModelView Model, IReadOnlyList<LedgerRow> Rows)
@@ -95,10 +95,10 @@ public sealed class LedgerQueryService(IDbContextFactory<LedgerDbContext> factor
         var missing = raw.Where(r => r.SaddlePointCount is null).Select(r => r.Id).ToList();
         var computed = missing.Count == 0 ? null : await ReactionStatusSummary.ComputeAsync(db, missing, ct);
         // Most reactions share a handful of reason lists ("[]" above all): read each distinct text once.
-        var reasonLists = new Dictionary<string, IReadOnlyList<ConsistencyReason>>(StringComparer.Ordinal);
-        IReadOnlyList<ConsistencyReason> Reasons(string json)
+        var reasonLists = new Dictionary<string, IReadOnlyList<CheckReason>>(StringComparer.Ordinal);
+        IReadOnlyList<CheckReason> Reasons(string json)
         {
-            if (!reasonLists.TryGetValue(json, out var list)) reasonLists[json] = list = DerivedJson.Read<List<ConsistencyReason>>(json);
+            if (!reasonLists.TryGetValue(json, out var list)) reasonLists[json] = list = DerivedJson.Read<List<CheckReason>>(json);
             return list;
         }
 

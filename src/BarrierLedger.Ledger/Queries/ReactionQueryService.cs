@@ -21,7 +21,7 @@ public sealed record StateView(int Id, int Position, string Label, StateKind Kin
 
 /// <summary>A saddle point's frequency check with what the screen needs to animate its modes.</summary>
 public sealed record SaddleCheckView(int StateId, int CalculationId, string CalculationLabel, string LevelOfTheory, string UploadedByUserId, DateTimeOffset UploadedAt,
-    Verdict? Verdict, IReadOnlyList<StoredReason> Reasons, CheckEvidence? Evidence, bool CheckStale, Molecule? Geometry, IReadOnlyList<NormalMode> Modes);
+    Verdict? Verdict, IReadOnlyList<CheckReason> Reasons, CheckEvidence? Evidence, bool CheckStale, Molecule? Geometry, IReadOnlyList<NormalMode> Modes);
 
 /// <summary>A scan with its points and the Core analysis (spline, maxima, flags).</summary>
 public sealed record ScanView(int Id, string Label, int SpeciesId, string SpeciesLabel, string LevelOfTheory, ScanCoordinate Coordinate,
@@ -31,7 +31,7 @@ public sealed record ScanView(int Id, string Label, int SpeciesId, string Specie
 public sealed record ReactionDetail(
     int Id, string Label, string Description, int StudyId, string StudyName, string OwnerUserId, string OwnerName, bool Retired, long Version,
     EnergyModelView Model, bool Derived, bool Stale, Energy? BarrierGibbs, Energy? ReactionGibbs, double? RateConstantPerSecond, double? HalfLifeSeconds,
-    string LevelOfTheory, bool Consistent, IReadOnlyList<ConsistencyReason> ConsistencyReasons,
+    string LevelOfTheory, bool Consistent, IReadOnlyList<CheckReason> ConsistencyReasons,
     IReadOnlyList<StateView> States, IReadOnlyList<DerivedState> StateEnergies, IReadOnlyList<DerivedStep> Steps,
     IReadOnlyList<SaddleCheckView> SaddleChecks, IReadOnlyList<ScanView> Scans)
 {
@@ -87,7 +87,7 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
                 // The check is stale when the thresholds it used are not the model's (the recompute pass will refresh it).
                 var evidence = check is null ? null : DerivedJson.Read<CheckEvidence>(check.EvidenceJson);
                 checkViews.Add(new SaddleCheckView(s.Id, calc.Id, calc.Label, calc.LevelOfTheory, calc.UploadedByUserId, calc.UploadedAt, check?.Verdict,
-                    check is null ? [] : DerivedJson.Read<List<StoredReason>>(check.ReasonsJson), evidence,
+                    check is null ? [] : DerivedJson.Read<List<CheckReason>>(check.ReasonsJson), evidence,
                     check is null || evidence is null || evidence.ThresholdCm1 != settings.SignificantImaginaryCm1, mol, modes));
             }
         }
@@ -113,7 +113,7 @@ public sealed class ReactionQueryService(IDbContextFactory<LedgerDbContext> fact
         return new ReactionDetail(r.Id, r.Label, r.Description, r.StudyId, r.StudyName, r.OwnerUserId, r.OwnerName ?? r.OwnerUserId, r.Retired, r.Version,
             model, d is not null, stale, d?.BarrierGibbsHartree is { } bg ? Energy.FromHartree(bg) : null,
             d?.ReactionGibbsHartree is { } rg ? Energy.FromHartree(rg) : null, d?.RateConstantPerSecond, d?.HalfLifeSeconds, d?.LevelOfTheory ?? "",
-            d?.Consistent ?? false, d is null ? [] : DerivedJson.Read<List<ConsistencyReason>>(d.ConsistencyJson), stateViews,
+            d?.Consistent ?? false, d is null ? [] : DerivedJson.Read<List<CheckReason>>(d.ConsistencyJson), stateViews,
             d is null ? [] : DerivedJson.Read<List<DerivedState>>(d.StatesJson), d is null ? [] : DerivedJson.Read<List<DerivedStep>>(d.StepsJson),
             checkViews, scanViews) { Kinetics = Reactions.ReactionDefinition.ReadKinetics(r.Kinetics) };
     }

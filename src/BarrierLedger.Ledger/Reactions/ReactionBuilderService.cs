@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Checks;
 using System.Globalization;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
@@ -69,7 +70,7 @@ public sealed class ReactionBuilderService(IDbContextFactory<LedgerDbContext> fa
             var points = scan is null ? null : await db.ScanPoints.AsNoTracking().Where(p => p.ScanId == scan.Id)
                 .Select(p => new ScanPointRecord { Index = p.Index, Coordinate = p.Coordinate, EnergyHartree = p.EnergyHartree, Converged = p.Converged }).ToListAsync(ct);
             var (verdict, reasons, _) = CheckRunner.Run(CheckRunner.FromStored(full, full.Species!, [.. s.Pairs.Select(p => (p.A, p.B))], scan, points), model);
-            saddles.Add(new SaddlePreview(i, s.Label, cid, verdict, DerivedJson.Read<List<StoredReason>>(reasons), scan?.Id));
+            saddles.Add(new SaddlePreview(i, s.Label, cid, verdict, DerivedJson.Read<List<CheckReason>>(reasons), scan?.Id));
         }
         return new ReactionPreview(r.Problems, balance, derived, saddles);
     }

@@ -50,7 +50,7 @@ public sealed record DefinitionProblem(int? State, string Message);
 public sealed record StateBalance(int Position, string Label, string Formula, int Charge, int Electrons, bool Known);
 
 /// <summary>What the frequency check would say about a saddle-point state with these bonds and this scan, before anything is stored.</summary>
-public sealed record SaddlePreview(int Position, string StateLabel, int CalculationId, Verdict Verdict, IReadOnlyList<StoredReason> Reasons, int? ScanId);
+public sealed record SaddlePreview(int Position, string StateLabel, int CalculationId, Verdict Verdict, IReadOnlyList<CheckReason> Reasons, int? ScanId);
 
 /// <summary>
 /// The builder's live view of a definition: its shape problems (nothing can be saved while there are any), each state's balance,

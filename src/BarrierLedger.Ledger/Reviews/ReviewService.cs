@@ -16,7 +16,7 @@ public sealed record ReviewEntry(int Id, int CalculationId, string CalculationLa
 public sealed record ReviewQueueItem(
     int CalculationId, string CalculationLabel, string LevelOfTheory, int StateId, string StateLabel, int ReactionId, string ReactionLabel,
     int StudyId, string StudyName, string UploadedByUserId, string UploadedByName, DateTimeOffset UploadedAt,
-    Verdict? Verdict, IReadOnlyList<StoredReason> Reasons, CheckEvidence? Evidence, bool PreviouslyReviewed);
+    Verdict? Verdict, IReadOnlyList<CheckReason> Reasons, CheckEvidence? Evidence, bool PreviouslyReviewed);
 
 /// <summary>One page of the review queue and the number of saddle points waiting in all.</summary>
 public sealed record ReviewQueueSlice(IReadOnlyList<ReviewQueueItem> Items, int Total);
@@ -90,7 +90,7 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
         IReadOnlyList<ReviewQueueItem> items = [.. rows.Select(r => new ReviewQueueItem(
             r.CalcId, r.CalcLabel, r.LevelOfTheory, r.StateId, r.StateLabel, r.ReactionId, r.ReactionLabel, r.StudyId, r.StudyName,
             r.UploadedByUserId, string.IsNullOrEmpty(r.UploaderName) ? r.UploadedByUserId : r.UploaderName, r.UploadedAt,
-            r.Check?.Verdict, r.Check is null ? [] : DerivedJson.Read<List<StoredReason>>(r.Check.ReasonsJson),
+            r.Check?.Verdict, r.Check is null ? [] : DerivedJson.Read<List<CheckReason>>(r.Check.ReasonsJson),
             r.Check is null ? null : DerivedJson.Read<CheckEvidence>(r.Check.EvidenceJson), r.Earlier))];
         return new ReviewQueueSlice(items, total);
     }

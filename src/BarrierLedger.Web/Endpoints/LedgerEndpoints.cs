@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Checks;
 using System.Globalization;
 using System.Security.Claims;
 using System.Text;
@@ -11,7 +12,7 @@ namespace BarrierLedger.Web.Endpoints;
 public sealed record ApiLedgerRow(int ReactionId, string Label, string Description, string Owner,
     double? BarrierGibbsHartree, double? BarrierGibbsKcalPerMol, double? ReactionGibbsHartree, double? ReactionGibbsKcalPerMol,
     double? BarrierElectronicHartree, double? BarrierElectronicKcalPerMol, double? RateConstantPerSecond, double? HalfLifeSeconds, double? TemperatureKelvin,
-    string? Verdict, string? ReviewStatus, int SaddlePointCount, string LevelOfTheory, bool Consistent, IReadOnlyList<ConsistencyReason> ConsistencyReasons,
+    string? Verdict, string? ReviewStatus, int SaddlePointCount, string LevelOfTheory, bool Consistent, IReadOnlyList<CheckReason> ConsistencyReasons,
     bool Derived, bool Stale, bool Retired,
     double? RateConstantLower95 = null, double? RateConstantUpper95 = null, double? HalfLifeLower95 = null, double? HalfLifeUpper95 = null,
     string Uncertainty = "");
@@ -22,7 +23,7 @@ public sealed record ApiState(int Id, int Position, string Label, string Kind, s
     IReadOnlyList<int[]> ReactionCoordinate, IReadOnlyList<string> ReactionCoordinateLabels, string? ReviewStatus);
 
 public sealed record ApiSaddleCheck(int StateId, int CalculationId, string CalculationLabel, string LevelOfTheory, string? Verdict,
-    IReadOnlyList<StoredReason> Reasons, bool CheckStale);
+    IReadOnlyList<CheckReason> Reasons, bool CheckStale);
 
 public sealed record ApiScan(int Id, string Label, string Species, string LevelOfTheory, int PointCount);
 
@@ -30,7 +31,7 @@ public sealed record ApiScan(int Id, string Label, string Species, string LevelO
 public sealed record ApiReaction(int Id, string Label, string Description, int StudyId, string StudyName, string Owner, bool Retired,
     ModelSettings Model, bool Derived, bool Stale, double? BarrierGibbsHartree, double? BarrierGibbsKcalPerMol, double? ReactionGibbsHartree,
     double? ReactionGibbsKcalPerMol, double? RateConstantPerSecond, double? HalfLifeSeconds, string LevelOfTheory, bool Consistent,
-    IReadOnlyList<ConsistencyReason> ConsistencyReasons, IReadOnlyList<ApiState> States, IReadOnlyList<DerivedState> StateEnergies,
+    IReadOnlyList<CheckReason> ConsistencyReasons, IReadOnlyList<ApiState> States, IReadOnlyList<DerivedState> StateEnergies,
     IReadOnlyList<DerivedStep> Steps, IReadOnlyList<ApiSaddleCheck> SaddleChecks, IReadOnlyList<ApiScan> Scans);
 
 /// <param name="Comment">Why (required to return, and to verify a saddle point that failed its check or that you uploaded yourself).</param>

@@ -109,7 +109,7 @@ public sealed class ConformerDerivationTests
         var row = await RowAsync(ledger, studyId);
         Assert.Equal(0.009, row.BarrierGibbs!.Value.Hartree, 9); // c3 takes no part: it has no G
         var reason = Assert.Single(row.ConsistencyReasons, r => r.Code == ConformerSelection.LowerConformerCode);
-        Assert.Equal("Attention", reason.Severity);
+        Assert.Equal(BarrierLedger.Core.Checks.CheckSeverity.Attention, reason.Severity);
         Assert.StartsWith("State R: a lower conformer of R exists than the one the barrier uses: c3 lies 2.20 kcal/mol below anti", reason.Message);
         Assert.Contains("lower this state's G by about 2.20 kcal/mol, raising ΔG‡", reason.Message);
 

@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Checks;
 using BarrierLedger.Demo;
 using BarrierLedger.Core.Kinetics;
 using BarrierLedger.Ledger.Derivation;
@@ -136,7 +137,7 @@ public class ReactionKineticsTests
         var first = detail.Steps.OrderBy(x => x.SaddlePosition).First();
         var from = detail.States.Single(s => s.Position == first.SaddlePosition - 1);
         var saddle = detail.States.Single(s => s.Position == first.SaddlePosition);
-        var reason = new ConsistencyReason(BarrierLedger.Core.Pathways.PathwayEnergyCodes.NegativeBarrier, "Failure",
+        var reason = new CheckReason(BarrierLedger.Core.Pathways.PathwayEnergyCodes.NegativeBarrier, CheckSeverity.Failure,
             $"Step {from.Label} → {saddle.Label}: the saddle point lies 1.2 kcal/mol below the minimum before it under this energy model.");
         var refused = detail with
         {
