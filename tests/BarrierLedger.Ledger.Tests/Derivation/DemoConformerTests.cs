@@ -5,10 +5,12 @@ using BarrierLedger.Ledger.Conformers;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Queries;
+using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Tests.Export;
 using BarrierLedger.Ledger.Tests.Support;
 using Microsoft.EntityFrameworkCore;
+using Xunit.Abstractions;
 
 namespace BarrierLedger.Ledger.Tests.Derivation;
 
@@ -18,7 +20,7 @@ namespace BarrierLedger.Ledger.Tests.Derivation;
 /// footnotes. Which check belongs where is <see cref="DemoScenario.ConformerChecks"/>; the structures behind the marks (mirror
 /// pair, duplicate) are checked on their own in the demo tests. The energies are invented.
 /// </summary>
-public sealed class DemoConformerTests
+public sealed class DemoConformerTests(ITestOutputHelper output)
 {
     private const string Member = "member-1";
     private static readonly string[] s_codes = [ConformerSelection.LowerConformerCode, ConformerSelection.UncheckedSaddleConformerCode, ConformerSelection.DuplicatesInEnsembleCode];
@@ -123,5 +125,62 @@ public sealed class DemoConformerTests
         Assert.Contains(bu.ConsistencyReasons, r => r.Code == ConformerSelection.LowerConformerCode
             && r.Message.Contains("aa lies 0.30 kcal/mol below g+a", StringComparison.Ordinal)
             && r.Message.Contains("lower this state's G by about 0.30 kcal/mol, raising ΔG‡", StringComparison.Ordinal));
+    }
+
+    /// <summary>
+    /// Item 6's conformer "that changes the barrier by more than 1 kcal/mol", end to end: the reaction was drawn from g+g+; with every
+    /// other 1-chlorobutane conformer retired the ledger measures BU from g+g+ and ΔG‡ comes out lower than with the whole set by
+    /// exactly g+g+'s ΔG on the species page (the "too low" barrier). Check: ΔG‡ = G(saddle point) − G(reactant state), so
+    /// two barriers to the same saddle point differ by the difference of their reactants' G (definition of a barrier; analytic).
+    /// The size of the gap (above 1 kcal/mol) is the demo's invented data.
+    /// </summary>
+    [SkippableTheory, MemberData(nameof(Stores.Both), MemberType = typeof(Stores))]
+    public async Task MeasuredFromTheConformerDrawnFirst_TheBarrierComesOutLowerByItsGibbsGap(StoreProvider store)
+    {
+        var (ledger, studyId) = await DemoLedger.CreateAsync(store);
+        await using var _ = ledger;
+        async Task<double> BarrierAsync() =>
+            (await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId)).Rows.Single(r => r.Label == "BU").BarrierGibbs!.Value.KcalPerMol;
+        int speciesId;
+        List<int> others;
+        await using (var db = await ledger.Factory.CreateDbContextAsync())
+        {
+            speciesId = await db.Species.Where(s => s.Label == "1-chlorobutane").Select(s => s.Id).SingleAsync();
+            others = await db.Calculations.Where(c => c.SpeciesId == speciesId && c.Conformer != "g+g+").Select(c => c.Id).ToListAsync();
+        }
+        Assert.Equal(8, others.Count); // g+a, g−a, g+a (2), aa: structure and single point each
+
+        await SetModelAsync(ledger, studyId, ConformerChoice.BoltzmannEnsemble);
+        var ensemble = await BarrierAsync();
+        await SetModelAsync(ledger, studyId, ConformerChoice.Lowest);
+        var lowest = await BarrierAsync();
+        var gap = (await ledger.Get<ConformerQueryService>().GetAsync(speciesId))!.Rows.Single(r => r.Name == "g+g+").RelativeKcalPerMol!.Value;
+
+        var records = ledger.Get<RecordService>();
+        foreach (var id in others)
+        {
+            var version = (await records.GetVersionAsync(RecordKind.Calculation, id))!.Value;
+            Assert.True((await records.RetireAsync(RecordKind.Calculation, id, version, Member, "only the conformer the reaction was drawn from")).Saved);
+        }
+        await ledger.Get<RecomputeService>().Request(studyId).WaitAsync(TimeSpan.FromMinutes(5));
+        var fromDrawn = await BarrierAsync();
+        var bu = (await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId)).Rows.Single(r => r.Label == "BU");
+        Assert.DoesNotContain(bu.ConsistencyReasons, r => r.Code == ConformerSelection.LowerConformerCode);
+        output.WriteLine($"BU ΔG‡ (kcal/mol): ensemble {ensemble:F4}; lowest conformer {lowest:F4}; from g+g+ alone {fromDrawn:F4}; g+g+ ΔG {gap:F4}");
+
+        Assert.True(gap > 1.0, $"g+g+ lies {gap} kcal/mol above g+a");
+        Assert.Equal(lowest - gap, fromDrawn, 6);
+        // Under the ensemble choice the reactant is now g+g+ alone (a one-term Boltzmann sum is that term), while the saddle point is
+        // still the two-conformer ensemble: G‡ = G(chain anti) − RT ln(1 + exp(−ΔG/RT)) with ΔG of chain g+ from the TS species page
+        // (Boltzmann sum written out by hand; R from CODATA 2018, 8.314462618 J/(mol K), 4184 J per kcal).
+        await SetModelAsync(ledger, studyId, ConformerChoice.BoltzmannEnsemble);
+        var ensembleOfOne = await BarrierAsync();
+        int tsId;
+        await using (var db = await ledger.Factory.CreateDbContextAsync())
+            tsId = await db.Species.Where(s => s.Label == "TS-BU").Select(s => s.Id).SingleAsync();
+        var tsGap = (await ledger.Get<ConformerQueryService>().GetAsync(tsId))!.Rows.Single(r => r.Name == "chain g+").RelativeKcalPerMol!.Value;
+        const double rt = 8.314462618 * 298.15 / 4184.0;
+        Assert.Equal(fromDrawn - rt * Math.Log(1.0 + Math.Exp(-tsGap / rt)), ensembleOfOne, 6);
+        output.WriteLine($"after retiring, ensemble choice: {ensembleOfOne:F4} (chain g+ ΔG {tsGap:F4})");
     }
 }
