@@ -29,7 +29,8 @@ public static class DemoData
     /// <summary>
     /// A large ledger of <paramref name="reactions"/> reactions for benchmarks and load tests: studies of
     /// <see cref="ReactionsPerScaleStudy"/> reactions, each a bundle in its own folder <c>study-0001/</c>. Reaction j follows
-    /// the showcase reaction j mod 6 (so every verdict appears), with its saddle point(s) displaced by up to 0.01 Å per
+    /// the showcase reactions in turn, those whose species have one conformer each (so every verdict appears; the
+    /// conformer ensembles of BU are not repeated), with its saddle point(s) displaced by up to 0.01 Å per
     /// coordinate (and so a Hessian of its own) and its invented energies (and those of its scan) shifted by up to ±4 kcal/mol.
     /// Minima are shared within a study. Deterministic for given arguments: a pseudo-random generator started from
     /// <paramref name="variant"/> and the study number drives every choice.
@@ -59,7 +60,10 @@ public static class DemoData
     private static DemoStudy ScaleStudy(DemoStudy showcase, int studyIndex, int firstReaction, int count, int variant)
     {
         var rng = new Random(unchecked(variant * 7919 + studyIndex * 104729 + 17));
-        var baseSpecies = showcase.Species.ToDictionary(s => s.Label);
+        // Species with several conformers (several entries under one label) stay in the showcase only.
+        var single = showcase.Species.GroupBy(s => s.Label).Where(g => g.Count() == 1).Select(g => g.Single()).ToList();
+        var baseSpecies = single.ToDictionary(s => s.Label);
+        var templates = showcase.Reactions.Where(r => r.States.SelectMany(s => s.Terms).All(t => baseSpecies.ContainsKey(t.Species))).ToList();
         var species = new List<DemoSpecies>();
         var used = new HashSet<string>(StringComparer.Ordinal);
         var reactions = new List<DemoReaction>();
@@ -67,7 +71,7 @@ public static class DemoData
         for (var k = 0; k < count; k++)
         {
             var number = firstReaction + k + 1;
-            var template = showcase.Reactions[(number - 1) % showcase.Reactions.Count];
+            var template = templates[(number - 1) % templates.Count];
             var suffix = $"{number:00000}";
             var renamed = new Dictionary<string, string>(StringComparer.Ordinal);
             var states = new List<DemoState>();

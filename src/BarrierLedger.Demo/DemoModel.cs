@@ -9,7 +9,8 @@ public sealed record DemoFile(string RelativePath, string Content);
 
 /// <summary>
 /// A species of a demo study with its one structure calculation (optimisation plus Hessian at the geometry level) and,
-/// optionally, a single point at another level.
+/// optionally, a single point at another level. Several entries with the same <see cref="Label"/> and each its own
+/// <see cref="Conformer"/> are the conformers of one species, in the order listed; a saddle-point state names the first.
 /// </summary>
 /// <param name="Label">Unique label in the study.</param>
 /// <param name="Slug">File-name stem (lower case, no spaces).</param>
@@ -21,6 +22,8 @@ public sealed record DemoFile(string RelativePath, string Content);
 /// <param name="SinglePointLevel">Level of the single point.</param>
 /// <param name="Note">Free text kept with the calculations.</param>
 /// <param name="GeometryLevel">Level of the optimisation and Hessian when it is not the study's.</param>
+/// <param name="Conformer">Conformer label when the species has several conformers, else null.</param>
+/// <param name="Frequencies">False: the optimisation has no Hessian yet (written as extended XYZ with its energy).</param>
 public sealed record DemoSpecies(
     string Label,
     string Slug,
@@ -31,7 +34,9 @@ public sealed record DemoSpecies(
     double? SinglePointEnergyHartree,
     string SinglePointLevel,
     string Note = "",
-    string? GeometryLevel = null);
+    string? GeometryLevel = null,
+    string? Conformer = null,
+    bool Frequencies = true);
 
 /// <summary>One state of a demo pathway: a sum of species; saddle-point states name their species and reaction bonds (1-based).</summary>
 public sealed record DemoState(string Label, bool IsSaddlePoint, IReadOnlyList<(string Species, int Coefficient)> Terms, IReadOnlyList<(int First, int Second)> ReactionCoordinate)

@@ -6,7 +6,7 @@ using BarrierLedger.Core.Units;
 namespace BarrierLedger.Demo;
 
 /// <summary>
-/// The demo study: an invented group's six reactions, chosen so that together they show every check the tool makes.
+/// The demo study: an invented group's eight reactions, chosen so that together they show every check the tool makes.
 /// All energies are invented (plausible magnitudes, stated as invented in the study description); Hessians come from
 /// <see cref="ValenceForceField"/>.
 /// <list type="bullet">
@@ -23,6 +23,8 @@ namespace BarrierLedger.Demo;
 /// geometry), so the reaction energy mixes levels of theory whichever energies the energy model takes. Its IRC connects both sides.</item>
 /// <item>EO: acetaldehyde to oxirane as its owner drew it; the stored saddle point (found again from another guess) is the
 /// 1,3-hydrogen shift of KE, and its IRC lands on vinyl alcohol, not oxirane. Fails.</item>
+/// <item>BU: iodide displacing chloride from 1-chlorobutane, with 1-chlorobutane in five conformers and the saddle point in two:
+/// the barrier is taken from the lowest reactant conformer, and every conformer check of issue 21 shows (<see cref="ConformerChecks"/>).</item>
 /// </list>
 /// </summary>
 public static class DemoScenario
@@ -41,10 +43,11 @@ public static class DemoScenario
         "made up within plausible ranges. No real person, group, paper or product is behind them. " +
         "Protocol as written on the calculations: geometries and Hessians at wB97X-D/def2-SVP in the gas phase; electronic energies " +
         "from single points at revDSD-PBEP86-D4/def2-QZVPP with a continuum model of acetonitrile. " +
-        "The seven reactions are chosen to show every check: DA passes and can be verified; MT needs attention (two soft methyl " +
+        "The eight reactions are chosen to show every check: DA passes and can be verified; MT needs attention (two soft methyl " +
         "rotations); IX is a two-step pathway with a catalyst; EL fails (the stored saddle point is a rotamer); CB has a relaxed " +
         "scan with a jump; KE mixes levels of theory (vinyl alcohol was computed with def2-TZVP geometries) and its IRC connects " +
-        "both sides; EO fails because the IRC of its saddle point lands on vinyl alcohol instead of the oxirane drawn.";
+        "both sides; EO fails because the IRC of its saddle point lands on vinyl alcohol instead of the oxirane drawn; BU keeps " +
+        "1-chlorobutane and its saddle point as conformer ensembles, so every conformer check shows.";
 
     private static double Kcal(double x) => Energy.FromKcalPerMol(x).Hartree;
 
@@ -75,9 +78,9 @@ public static class DemoScenario
     {
         var species = new List<DemoSpecies>();
         DemoSpecies Add(string label, string slug, Molecule m, CalculationKind kind, ForceFieldSpec? ff, double sp, double solvKcal,
-            string spLevel = SinglePointLevel, string note = "", string? geometryLevel = null)
+            string spLevel = SinglePointLevel, string note = "", string? geometryLevel = null, string? conformer = null, bool frequencies = true)
         {
-            var s = new DemoSpecies(label, slug, m, kind, ff, OptEnergy(m, R8(sp), solvKcal), R8(sp), spLevel, note, geometryLevel);
+            var s = new DemoSpecies(label, slug, m, kind, ff, OptEnergy(m, R8(sp), solvKcal), R8(sp), spLevel, note, geometryLevel, conformer, frequencies);
             species.Add(s);
             return s;
         }
@@ -158,6 +161,28 @@ public static class DemoScenario
             acetaldehyde + Kcal(67.25), 3.9,
             note: "Optimised from a guess with C2 close to O3, meant as the ring closure to oxirane.");
 
+        // BU: iodide + 1-chlorobutane → 1-iodobutane + chloride, IX's first step on a butyl chain, with conformer ensembles
+        // (τ1 = Cl5–C1–C2–C3, τ2 = C1–C2–C3–C4). Invented energies relative to the all-anti conformer, within the usual few tenths
+        // of a kcal/mol per gauche turn (common practice, no source): g+g+ +1.55 (the one computed first), the mirror pair
+        // g+a/g−a +0.30 (identical energies, as mirror images have), g+a again from another start +0.31 (a duplicate), and aa 0,
+        // optimised but its frequencies not yet computed. The saddle point: chain anti (the checked one the state names) and
+        // gauche +0.45, computed with frequencies but never checked.
+        const double chlorobutane = -617.5327;
+        const string again = "Optimised again from another starting structure; it converged to g+a.";
+        Add("1-chlorobutane", "chlorobutane-gg", DemoStructures.Chlorobutane(65, 65), min, plain, chlorobutane + Kcal(1.55), 2.4,
+            conformer: "g+g+", note: "The first conformer computed; the reaction was drawn from it.");
+        Add("1-chlorobutane", "chlorobutane-ga-plus", DemoStructures.Chlorobutane(65, 180), min, plain, chlorobutane + Kcal(0.30), 2.4, conformer: "g+a");
+        Add("1-chlorobutane", "chlorobutane-ga-minus", DemoStructures.Chlorobutane(-65, 180), min, plain, chlorobutane + Kcal(0.30), 2.4, conformer: "g−a");
+        Add("1-chlorobutane", "chlorobutane-ga-again", DemoStructures.Chlorobutane(64.4, 179.3), min, plain, chlorobutane + Kcal(0.31), 2.4,
+            conformer: "g+a (2)", note: again);
+        Add("1-chlorobutane", "chlorobutane-aa", DemoStructures.Chlorobutane(180, 180), min, plain, chlorobutane, 2.4,
+            conformer: "aa", frequencies: false, note: "Found by a later conformer search; optimised, frequencies not yet computed.");
+        var buMode = new ForceFieldSpec(Reaction: [new ReactionCurvature([(0, 5, 1.0), (0, 4, -1.0)], -0.9)]);
+        Add("TS-BU", "ts-bu-a", DemoStructures.ChlorobutaneIodideSaddle(180), ts, buMode, chlorobutane + iodide + Kcal(22.4), 52.0, conformer: "chain anti");
+        Add("TS-BU", "ts-bu-g", DemoStructures.ChlorobutaneIodideSaddle(65), ts, buMode, chlorobutane + iodide + Kcal(22.85), 52.0, conformer: "chain g+",
+            note: "Frequencies computed; not yet looked at.");
+        Add("1-iodobutane", "iodobutane", DemoStructures.Iodobutane, min, plain, chlorobutane + iodide + Kcal(3.0) - chloride, 2.0);
+
         var reactions = new List<DemoReaction>
         {
             new("DA", "Diels–Alder cycloaddition of butadiene and ethylene (concerted, both C–C bonds form together). " +
@@ -214,9 +239,17 @@ public static class DemoScenario
                 DemoState.Saddle("TS", "TS-EO", [], (2, 3), (2, 4), (1, 4)),
                 DemoState.Minimum("oxirane", "oxirane"),
             ]),
+            new("BU", "Iodide displaces chloride from 1-chlorobutane (the butyl version of IX's first step). 1-Chlorobutane is stored in " +
+                      "five conformers (a lower one drawn first, a mirror-image pair, a duplicate, a lower one still without frequencies) and " +
+                      "the saddle point in two, one never checked: every conformer check shows.",
+            [
+                DemoState.Minimum("1-chlorobutane + iodide", "1-chlorobutane", "iodide"),
+                DemoState.Saddle("TS", "TS-BU", [], (1, 6), (1, 5)),
+                DemoState.Minimum("1-iodobutane + chloride", "1-iodobutane", "chloride"),
+            ]),
         };
 
-        var byLabel = species.ToDictionary(s => s.Label);
+        var byLabel = species.DistinctBy(s => s.Label).ToDictionary(s => s.Label);
         var scans = new List<DemoScan>
         {
             DielsAlderScan(byLabel["TS-DA"]),
@@ -244,6 +277,20 @@ public static class DemoScenario
         ("CB", "relaxed scan with a jump (C3–C4, between 2.6 and 2.7 Å a CH2 group flips)", "Passed (the scan is flagged, not the saddle point)", "Passed"),
         ("KE", "barrier mixing levels of theory (one state at another level); an IRC that connects both sides", "Passed: the IRC connects acetaldehyde and vinyl alcohol", "Failed: vinyl alcohol was optimised and single-pointed on def2-TZVP geometries"),
         ("EO", "an IRC that lands on another minimum than the one drawn", "Failed: the IRC connects acetaldehyde with vinyl alcohol (KE), not oxirane", "Passed"),
+        ("BU", "conformer ensembles: a barrier taken from the lowest reactant conformer (g+a, 1.2 kcal/mol below the g+g+ drawn first), a " +
+               "mirror-image pair, a duplicate, a lower conformer still without frequencies, an unchecked saddle-point conformer 0.45 kcal/mol " +
+               "above the one used", "Passed for the saddle point the state names (anti chain); the gauche-chain one is not checked", "Passed"),
+    ];
+
+    /// <summary>
+    /// The conformer checks (issue 21) the demo is meant to show, all on BU and nowhere else: reason code, and the energy-model
+    /// conformer choice under which it appears (duplicates only matter in a Boltzmann sum).
+    /// </summary>
+    public static IReadOnlyList<(string Reaction, string Code, bool EnsembleOnly)> ConformerChecks { get; } =
+    [
+        ("BU", "conformers.lower-conformer-exists", false),
+        ("BU", "conformers.unchecked-saddle-conformer", false),
+        ("BU", "conformers.duplicates-in-ensemble", true),
     ];
 
     /// <summary>

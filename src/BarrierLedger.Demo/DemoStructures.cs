@@ -409,4 +409,59 @@ internal static class DemoStructures
             return Done(g);
         }
     }
+    /// <summary>
+    /// 1-Halobutane numbered C1–C4 (C1 carries the halogen), X5, H6, H7 (on C1), H8, H9 (on C2), H10, H11 (on C3), H12–H14 (on C4);
+    /// <paramref name="tau1"/> is the dihedral X5–C1–C2–C3 and <paramref name="tau2"/> C1–C2–C3–C4 (180 anti, ±65 gauche).
+    /// C–C 1.520–1.530 Å, C–C–C 112.5–112.8°, C–X–C 111.0°, methylene H–C–H 107.5°, methyl staggered.
+    /// </summary>
+    public static Molecule Halobutane(Element x, double rCX, double tau1, double tau2)
+    {
+        var c1 = Vec3.Zero;
+        var c2 = new Vec3(1.520, 0, 0);
+        var xPos = GeometryBuilder.Place(new Vec3(0, 0, 1), c2, c1, rCX, 111.0, 90);
+        return Butyl(c1, c2, xPos, x, null, tau1, tau2, 0);
+    }
+
+    /// <summary>1-Chlorobutane in the conformer given by its two dihedrals (see <see cref="Halobutane"/>).</summary>
+    public static Molecule Chlorobutane(double tau1, double tau2) => Halobutane(Cl, 1.795, tau1, tau2);
+
+    /// <summary>1-Iodobutane, all anti (numbered as <see cref="Halobutane"/>, I5).</summary>
+    public static Molecule Iodobutane => Halobutane(I, 2.140, 180, 180);
+
+    /// <summary>
+    /// Iodide displacing chloride from 1-chlorobutane: C1–C4, Cl5, I6, H7, H8 (on C1), H9–H15 as in <see cref="Halobutane"/>; C1 at the origin,
+    /// Cl5 leaving on +z (2.38 Å), I6 entering on −z (2.68 Å), C2, H7 and H8 nearly planar around C1 (bent 1.5° away from
+    /// chlorine, as the methyl case <see cref="IodideSaddle"/>), C1–C2 1.495 Å. The chain points away from both halogens
+    /// (Cl5–C1–C2–C3 90°); <paramref name="tau2"/> is C1–C2–C3–C4.
+    /// </summary>
+    public static Molecule ChlorobutaneIodideSaddle(double tau2)
+    {
+        var c1 = Vec3.Zero;
+        var c2 = 1.495 * GeometryBuilder.Polar(91.5, 0);
+        var cl = new Vec3(0, 0, 2.38);
+        var i = new Vec3(0, 0, -2.68);
+        return Butyl(c1, c2, cl, Cl, (i, [1.074 * GeometryBuilder.Polar(91.5, 120), 1.074 * GeometryBuilder.Polar(91.5, 240)]), 90, tau2, -1);
+    }
+
+    private static Molecule Butyl(Vec3 c1, Vec3 c2, Vec3 xPos, Element x, (Vec3 Iodine, Vec3[] C1Hydrogens)? saddle, double tau1, double tau2, int charge)
+    {
+        var c3 = GeometryBuilder.Place(xPos, c1, c2, 1.528, 112.5, tau1);
+        var c4 = GeometryBuilder.Place(c1, c2, c3, 1.530, 112.8, tau2);
+        var g = new GeometryBuilder();
+        var a1 = g.At(C, c1);
+        var a2 = g.At(C, c2);
+        var a3 = g.At(C, c3);
+        var a4 = g.At(C, c4);
+        var a5 = g.At(x, xPos);
+        if (saddle is { } s)
+        {
+            g.At(I, s.Iodine);
+            foreach (var h in s.C1Hydrogens) g.At(H, c1 + h);
+        }
+        else g.Methylene(a1, a5, a2);
+        g.Methylene(a2, a1, a3);
+        g.Methylene(a3, a2, a4);
+        foreach (var phi in new[] { 180.0, 60.0, -60.0 }) g.Z(H, a4, 1.093, a3, 111.0, a2, phi);
+        return Done(g, charge);
+    }
 }

@@ -4,6 +4,7 @@ using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Conformers;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Scans;
@@ -43,10 +44,22 @@ public static class DemoWriter
         var files = new List<DemoFile>();
         var species = new JsonArray();
         var calculations = new JsonArray();
+        var speciesByLabel = new Dictionary<string, JsonObject>(StringComparer.Ordinal);
         foreach (var s in study.Species)
         {
-            species.Add(new JsonObject { ["label"] = s.Label, ["charge"] = s.Geometry.Charge, ["multiplicity"] = s.Geometry.Multiplicity });
-            var structurePath = $"structures/{s.Slug}.json";
+            if (!speciesByLabel.TryGetValue(s.Label, out var entry))
+            {
+                entry = new JsonObject { ["label"] = s.Label, ["charge"] = s.Geometry.Charge, ["multiplicity"] = s.Geometry.Multiplicity };
+                speciesByLabel[s.Label] = entry;
+                species.Add(entry);
+            }
+            var conformerCalcs = new JsonArray();
+            if (s.Conformer is not null)
+            {
+                if (entry["conformers"] is not JsonArray list) entry["conformers"] = list = [];
+                list.Add(new JsonObject { ["label"] = s.Conformer, ["calculations"] = conformerCalcs });
+            }
+            var structurePath = s.Frequencies ? $"structures/{s.Slug}.json" : $"structures/{s.Slug}.xyz";
             var isAtom = s.ForceField is null;
             var calc = new JsonObject
             {
@@ -63,7 +76,9 @@ public static class DemoWriter
             };
             if (s.Note.Length > 0) calc["note"] = s.Note;
             calculations.Add(calc);
-            files.Add(new DemoFile(prefix + structurePath, structureFiles?.Invoke(s) ?? QcSchema(s, s.GeometryLevel ?? study.GeometryLevel, isAtom)));
+            conformerCalcs.Add(OptLabel(s));
+            files.Add(new DemoFile(prefix + structurePath, !s.Frequencies ? XyzWriter.ToExtendedText(s.Geometry, s.OptEnergyHartree)
+                : structureFiles?.Invoke(s) ?? QcSchema(s, s.GeometryLevel ?? study.GeometryLevel, isAtom)));
             if (s.SinglePointEnergyHartree is { } sp)
             {
                 var spPath = $"structures/{s.Slug}.sp.xyz";
@@ -75,6 +90,7 @@ public static class DemoWriter
                     ["level_of_theory"] = s.SinglePointLevel,
                     ["file"] = spPath,
                 });
+                conformerCalcs.Add(SinglePointLabel(s));
                 files.Add(new DemoFile(prefix + spPath, XyzWriter.ToExtendedText(s.Geometry, sp)));
             }
         }
@@ -95,7 +111,7 @@ public static class DemoWriter
                 var state = new JsonObject { ["label"] = st.Label, ["kind"] = st.IsSaddlePoint ? "saddle_point" : "minimum", ["terms"] = terms };
                 if (st.IsSaddlePoint)
                 {
-                    var saddle = study.Species.Single(x => x.Label == st.Terms[0].Species);
+                    var saddle = study.Species.First(x => x.Label == st.Terms[0].Species);
                     state["calculation"] = OptLabel(saddle);
                     state["reacting_bonds"] = new JsonArray([.. st.ReactionCoordinate.Select(p => (JsonNode)new JsonArray(p.First, p.Second))]);
                 }
@@ -139,7 +155,7 @@ public static class DemoWriter
         foreach (var irc in study.Ircs ?? [])
         {
             var path = $"irc/{irc.Slug}.xyz";
-            var saddle = study.Species.Single(x => x.Label == irc.Saddle);
+            var saddle = study.Species.First(x => x.Label == irc.Saddle);
             ircs.Add(new JsonObject { ["label"] = irc.Label, ["saddle_point"] = OptLabel(saddle), ["level_of_theory"] = irc.Level, ["path_file"] = path });
             var text = new StringBuilder();
             foreach (var (g, e) in irc.Frames) text.Append(XyzWriter.ToExtendedText(g, e));
@@ -155,12 +171,16 @@ public static class DemoWriter
                 ["name"] = study.Name,
                 ["description"] = study.Description,
                 // The study's stated protocol: single-point energies on the optimised geometries, thermal corrections from the
-                // frequency calculations, 1 mol/L. Without it each state would use its own calculations and mix levels.
+                // frequency calculations, 1 mol/L, conformers as Boltzmann ensembles. Without it each state would use its own
+                // calculations and mix levels. BU keeps its reactant and saddle point as conformer ensembles; under the ensemble
+                // every conformer check applies (duplicates only matter in a Boltzmann sum). Species with one conformer get the
+                // same energies either way.
                 ["energy_model"] = new JsonObject
                 {
                     ["energies_from"] = DemoScenario.SinglePointLevel,
                     ["thermal_from"] = DemoScenario.GeometryLevel,
                     ["standard_state"] = "1 mol/L",
+                    ["conformers"] = BundleEnergyModel.ConformerName(ConformerChoice.BoltzmannEnsemble),
                 },
             },
             ["species"] = species,
@@ -173,11 +193,17 @@ public static class DemoWriter
         return files;
     }
 
-    /// <summary>Label of a species' structure calculation (optimisation with Hessian, or the energy of a lone atom).</summary>
-    public static string OptLabel(DemoSpecies s) => s.ForceField is null ? $"{s.Label} energy" : $"{s.Label} opt+freq";
+    /// <summary>
+    /// Label of a species' structure calculation (optimisation with Hessian, an optimisation still without one, or the energy of
+    /// a lone atom), with the conformer's label after the species'.
+    /// </summary>
+    public static string OptLabel(DemoSpecies s) =>
+        s.ForceField is null ? $"{Name(s)} energy" : s.Frequencies ? $"{Name(s)} opt+freq" : $"{Name(s)} opt";
 
     /// <summary>Label of a species' single point.</summary>
-    public static string SinglePointLabel(DemoSpecies s) => $"{s.Label} single point";
+    public static string SinglePointLabel(DemoSpecies s) => $"{Name(s)} single point";
+
+    private static string Name(DemoSpecies s) => s.Conformer is null ? s.Label : $"{s.Label} {s.Conformer}";
 
     /// <summary>
     /// A QCSchema AtomicResult: molecule in bohr, model from the level of theory, properties.return_energy, and the Hessian

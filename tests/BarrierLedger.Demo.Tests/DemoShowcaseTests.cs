@@ -53,7 +53,7 @@ public class DemoShowcaseTests
         var result = BundleReader.Read(manifest, DemoWriter.ManifestName, openFile: p => File.OpenRead(Path.Combine(Folder, p)));
         Assert.Empty(result.Issues);
         Assert.Contains("invented", result.Value!.Study.Description, StringComparison.Ordinal);
-        Assert.Equal(7, result.Value.Reactions.Length);
+        Assert.Equal(8, result.Value.Reactions.Length);
     }
 
     /// <summary>What each saddle point must get from the frequency check, and why.</summary>
@@ -75,6 +75,8 @@ public class DemoShowcaseTests
         // KE's hydrogen shift again: its mode moves C2–H4, one of the declared bonds, so the mode alone does not catch it; the
         // IRC does (Each_IRC_gets_its_intended_connection_verdict).
         { "EO", "TS", Verdict.Passed, SaddleCheckCodes.ReactionMode },
+        // The butyl version of IX's first step, on the anti-chain saddle-point conformer the state names.
+        { "BU", "TS", Verdict.Passed, SaddleCheckCodes.ReactionMode },
     };
 
     [Theory]
@@ -130,6 +132,7 @@ public class DemoShowcaseTests
         { "CB", Verdict.Passed },
         { "KE", Verdict.Failed },     // vinyl alcohol's single point sits on a def2-TZVP geometry: two electronic levels
         { "EO", Verdict.Passed },     // the saddle point belongs to another reaction, but the energies are consistent
+        { "BU", Verdict.Passed },     // C4H9ClI⁻ in every state; every conformer at the study's levels
     };
 
     [Theory]
@@ -169,6 +172,12 @@ public class DemoShowcaseTests
                 Assert.Empty(c.HessianHartreePerBohr2); // a lone ion: energy only
                 continue;
             }
+            if (c.HessianHartreePerBohr2.Length == 0)
+            {
+                // Only BU's aa conformer is stored optimised with its frequencies still to come (what the lower-conformer check needs).
+                Assert.Equal("1-chlorobutane aa opt", c.Label);
+                continue;
+            }
             var modes = FrequencyAnalysis.FromHessian(c.Geometry!, [.. c.HessianHartreePerBohr2]).Modes;
             Assert.True(modes.All(m => m.FrequencyCm1 > 50), $"{c.Label}: lowest mode {modes.Min(m => m.FrequencyCm1):0.0} cm⁻¹");
         }
@@ -177,9 +186,12 @@ public class DemoShowcaseTests
     [Fact]
     public void Structures_have_standard_bond_lengths_and_no_close_contacts()
     {
+        // A state's reacting bonds hold for every saddle-point conformer of its species (the same atoms in the same order).
         var reactionPairs = Bundle.Reactions.SelectMany(r => r.States)
             .Where(s => s.Calculation is not null)
-            .SelectMany(s => s.ReactionCoordinate.Select(p => (s.Calculation!, new Bond(p.First - 1, p.Second - 1))))
+            .SelectMany(s => s.ReactionCoordinate.SelectMany(p => Bundle.Calculations
+                .Where(c => c.Kind == CalculationKind.SaddlePoint && c.Species == s.Terms[0].Species)
+                .Select(c => (c.Label, new Bond(p.First - 1, p.Second - 1)))))
             .ToHashSet();
         foreach (var c in Bundle.Calculations.Where(c => c.Geometry is { AtomCount: > 1 } && c.Kind != CalculationKind.SinglePoint))
         {
@@ -262,6 +274,38 @@ public class DemoShowcaseTests
         Assert.All(result.Ends, e => Assert.InRange(e.Reached!.RmsdAngstrom, 0, 1e-5));
     }
 
+    [Fact]
+    public void Every_saddle_point_conformer_has_exactly_one_imaginary_frequency()
+    {
+        // The unchecked saddle-point conformer of BU must be a true saddle point too, only never checked by the ledger.
+        var saddles = Bundle.Calculations.Where(c => c.Kind == CalculationKind.SaddlePoint).ToList();
+        Assert.Contains(saddles, c => c.Label == "TS-BU chain g+ opt+freq");
+        foreach (var c in saddles)
+        {
+            var modes = FrequencyAnalysis.FromHessian(c.Geometry!, [.. c.HessianHartreePerBohr2]).Modes;
+            // MT's two soft rotor modes are its point (The_rotor_case_...); every other saddle point has one imaginary mode.
+            var expected = c.Label == "TS-MT opt+freq" ? 3 : 1;
+            Assert.True(expected == modes.Count(m => m.FrequencyCm1 < 0), $"{c.Label}: {string.Join(", ", modes.Where(m => m.FrequencyCm1 < 0).Select(m => m.FrequencyCm1.ToString("0")))}");
+        }
+    }
+
+    [Fact]
+    public void The_conformer_reaction_has_a_mirror_image_pair_a_duplicate_and_a_lower_conformer_without_frequencies()
+    {
+        var conformers = Bundle.Calculations.Where(c => c.Species == "1-chlorobutane" && c.Kind == CalculationKind.Minimum)
+            .ToDictionary(c => c.Conformer, c => c.Geometry!.PositionsAngstrom.Take(5).ToList()); // C1–C4 and Cl5: the heavy atoms
+        Assert.Equal(["aa", "g+a", "g+a (2)", "g+g+", "g−a"], conformers.Keys.Order(StringComparer.Ordinal));
+        // Mirror images: reflecting g+a's heavy atoms through the xy plane (z → −z) gives g−a's up to a rigid motion: Kabsch RMSD 0
+        // (analytic); without the reflection no rotation superposes them.
+        var mirrored = conformers["g+a"].Select(p => p with { Z = -p.Z }).ToList();
+        Assert.InRange(Kabsch.Superpose(mirrored, conformers["g−a"]).RmsdAngstrom, 0, 1e-5);
+        Assert.True(Kabsch.Superpose(conformers["g+a"], conformers["g−a"]).RmsdAngstrom > 0.3);
+        // The re-optimised copy is within the 0.1 Å duplicate threshold of issue 21.
+        Assert.InRange(Kabsch.Superpose(conformers["g+a (2)"], conformers["g+a"]).RmsdAngstrom, 0.001, 0.1);
+        var aa = Bundle.Calculations.Single(c => c.Label == "1-chlorobutane aa opt");
+        Assert.Empty(aa.HessianHartreePerBohr2);
+    }
+
     private static SaddleCheckResult Check(string reaction, string stateLabel)
     {
         var state = Bundle.Reactions.Single(r => r.Label == reaction).States.Single(s => s.Label == stateLabel);
@@ -290,9 +334,10 @@ public class DemoShowcaseTests
         {
             if (records.TryGetValue(label, out var r)) return r;
             var sp = Bundle.Species.Single(s => s.Label == label);
-            var single = Bundle.Calculations.Single(c => c.Species == label && (singlePoints
+            // A species with conformers (BU) enters with its lowest conformer, as the ledger's "lowest conformer" choice takes it.
+            var single = Bundle.Calculations.Where(c => c.Species == label && (singlePoints
                 ? c.Kind == CalculationKind.SinglePoint && c.LevelOfTheory.GeometryLevel is not null
-                : c.LevelOfTheory.GeometryLevel is null));
+                : c.LevelOfTheory.GeometryLevel is null)).MinBy(c => c.EnergyHartree!.Value)!;
             return records[label] = new SpeciesRecord(label, Formula.Of(single.Geometry!), sp.Charge, sp.Multiplicity,
                 Energy.FromHartree(single.EnergyHartree!.Value), single.LevelOfTheory, Geometry: single.Geometry);
         }

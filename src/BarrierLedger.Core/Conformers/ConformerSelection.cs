@@ -158,7 +158,8 @@ public static class ConformerSelection
         ArgumentNullException.ThrowIfNull(conformers);
         ArgumentNullException.ThrowIfNull(selection);
         var inv = CultureInfo.InvariantCulture;
-        string K(double kcal) => kcal.ToString("0.00", inv);
+        // A minus sign, not a hyphen, as in the tool's other messages.
+        string K(double kcal) => kcal.ToString("0.00", inv).Replace('-', '−');
         var reasons = new List<CheckReason>();
         var used = conformers[selection.Lowest];
         var inEnsemble = selection.Included.ToHashSet();

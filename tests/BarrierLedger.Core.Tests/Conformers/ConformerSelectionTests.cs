@@ -86,7 +86,7 @@ public class ConformerSelectionTests
         Assert.All(r, x => Assert.Equal(ConformerSelection.UncheckedSaddleConformerCode, x.Code));
         Assert.Contains("t2 (ΔG = +0.60 kcal/mol from t1)", r[0].Message);
         Assert.Contains("has a conformer within 1.00 kcal/mol that was not checked", r[0].Message);
-        Assert.Contains("t4 (ΔE = -2.00 kcal/mol from t1)", r[1].Message); // below the used one, judged by E
+        Assert.Contains("t4 (ΔE = −2.00 kcal/mol from t1)", r[1].Message); // below the used one, judged by E
     }
 
     [Fact]

@@ -33,7 +33,7 @@ public sealed class DemoImportTests
 
         var page = await ledger.Get<LedgerQueryService>().GetLedgerRowsAsync(studyId);
         var rows = page.Rows.ToDictionary(r => r.Label);
-        Assert.Equal(7, rows.Count);
+        Assert.Equal(8, rows.Count);
         // A two-step pathway whose spectator species (fluoride, iodide, chloride) must each keep their own energy:
         // before the fix the saddle point's energy was used for every species of its state (a barrier of −697 Eh).
         Assert.True(rows["IX"].Consistent, string.Join(" ", rows["IX"].ConsistencyReasons.Select(r => r.Message)));
