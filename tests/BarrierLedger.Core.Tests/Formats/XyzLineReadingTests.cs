@@ -21,7 +21,8 @@ public sealed class XyzLineReadingTests
         { "\n \n\t\n1\n\nH 0 abc 0\n", 6, ["coordinate y of atom 1", "'abc'"] },
         // A last line of white space only is the end of the file, not an atom line.
         { "2\n\nH 0 0 0\n   ", 1, ["declares 2 atoms", "ends after 1 atom line(s)"] },
-        { "2\r\n\r\nH 0 0 0\r\n\r\n", 1, ["declares 2 atoms", "ends after 1 atom line(s)"] },
+        // ...but an empty line followed by the final newline is a line of its own: a blank atom line.
+        { "2\r\n\r\nH 0 0 0\r\n\r\n", 4, ["blank line inside frame 1", "atom 2 of 2"] },
         // No newline at the end: the count is the last line.
         { "3", 2, ["file ends after the atom count"] },
         // A line of no-break spaces inside a frame is blank (white space as char.IsWhiteSpace has it).
