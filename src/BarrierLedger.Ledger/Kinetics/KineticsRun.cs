@@ -156,7 +156,7 @@ public static class KineticsRun
         foreach (var r in reactions)
         {
             var prefix = reactions.Count > 1 ? $"{r.Label}: " : "";
-            foreach (var s in r.States.Where(s => s.Kind == Records.StateKind.SaddlePoint && s.ReviewStatus != ReviewState.Verified))
+            foreach (var s in r.States.Where(s => s.Kind == Core.Pathways.StateKind.SaddlePoint && s.ReviewStatus != ReviewState.Verified))
                 cautions.Add($"{prefix}saddle point {s.Label} is not verified by a reviewer ({ReviewStateText(s.ReviewStatus)}); its rate constant may rest on a wrong structure.");
             if (!r.Consistent)
                 cautions.Add($"{prefix}the barriers break a consistency rule: {string.Join("; ", r.ConsistencyReasons.Select(x => x.Message.TrimEnd('.')))}.");
