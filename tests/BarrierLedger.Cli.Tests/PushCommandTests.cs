@@ -128,4 +128,28 @@ public sealed class PushCommandTests
         Assert.Contains("conformers: species butane: conformer anti-again duplicates anti (RMSD 0.000 Å", run.Out);
         Assert.Equal(["anti", "anti-again"], await server.ConformersAsync());
     }
+
+    [Fact]
+    public async Task Push_PastTheStorageQuota_Exit2_SayingQuotaUsageAndSize_AndStoresNothing()
+    {
+        await using var server = new PushTestServer();
+        await server.StartAsync("--BarrierLedger:Uploads:UserQuotaMiB=1");
+        using var dir = new TempDir();
+        var tokenFile = dir.Write("token", await server.CreateUploadTokenAsync("mira") + "\n");
+        // Padded with a blank tail to 600 KiB and 500 KiB: together past a 1 MiB quota (sizes counted by the test, not the store).
+        var first = dir.Write("water.xyz", WaterXyz().PadRight(600 * 1024 - 1) + "\n");
+        var second = dir.Write("water-b.xyz", WaterXyz("-76.4200").PadRight(500 * 1024 - 1) + "\n");
+
+        var stored = await Task.Run(() => CliRunner.Run(Args(server.BaseUrl, tokenFile, first)));
+        Assert.True(stored.Code == 0, stored.Out + stored.Err);
+        var before = await server.CountsAsync();
+
+        var refused = await Task.Run(() => CliRunner.Run(Args(server.BaseUrl, tokenFile, second)));
+
+        Assert.Equal(ExitCodes.Unreadable, refused.Code);
+        Assert.Contains("413", refused.Err);
+        Assert.Contains("your quota is 1 MiB, you have stored 600 KiB, and this upload would add 500 KiB", refused.Err);
+        Assert.DoesNotContain("retry", refused.Out);
+        Assert.Equal(before, await server.CountsAsync());
+    }
 }

@@ -1171,6 +1171,8 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                     b.HasIndex("Sha256")
                         .IsUnique();
 
+                    b.HasIndex("UploadedByUserId", "SizeBytes");
+
                     b.ToTable("StoredFiles", (string)null);
                 });
 

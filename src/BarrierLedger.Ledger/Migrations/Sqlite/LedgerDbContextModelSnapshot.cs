@@ -1053,6 +1053,8 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.HasIndex("Sha256")
                         .IsUnique();
 
+                    b.HasIndex("UploadedByUserId", "SizeBytes");
+
                     b.ToTable("StoredFiles", (string)null);
                 });
 
