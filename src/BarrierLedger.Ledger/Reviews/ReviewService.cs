@@ -1,5 +1,6 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
