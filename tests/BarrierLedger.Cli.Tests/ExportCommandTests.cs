@@ -14,7 +14,7 @@ public class ExportCommandTests
     /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
     private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
 
-    private static string DemoFolder
+    internal static string DemoFolder
     {
         get
         {

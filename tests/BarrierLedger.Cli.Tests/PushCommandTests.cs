@@ -1,4 +1,7 @@
 using System.Text;
+using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Tests.Conformers;
 
 namespace BarrierLedger.Cli.Tests;
 
@@ -96,6 +99,34 @@ public sealed class PushCommandTests
         Assert.Equal(ExitCodes.UsageError, noToken.Code);
         Assert.Contains("BARRIERLEDGER_TOKEN", noToken.Err);
         Assert.Equal((0, 0, 0), await server.CountsAsync());
+    }
+
+    /// <summary>
+    /// <c>--conformer-per-file</c> (issue 21, item 1): each file is stored as the conformer named after it, and push prints the
+    /// server's conformer notes. Butane from internal coordinates (FlexibleMolecules; bond lengths and angles from memory); the
+    /// second file is the first turned 90° about z and moved, so its heavy-atom RMSD to it is 0 (rigid motion, analytic) and it is
+    /// a duplicate. Energies invented.
+    /// </summary>
+    [Fact]
+    public async Task Push_ConformerPerFile_StoresEachFileAsItsOwnConformer_AndPrintsTheDuplicate()
+    {
+        await using var server = new PushTestServer();
+        await server.StartAsync();
+        using var dir = new TempDir();
+        var tokenFile = dir.Write("token", await server.CreateUploadTokenAsync("mira"));
+        var anti = FlexibleMolecules.Butane(180);
+        var moved = new Molecule(anti.Elements,
+            [.. anti.PositionsAngstrom.Select(p => new Vec3(-p.Y + 3.0, p.X - 1.0, p.Z + 2.0))], anti.Charge, anti.Multiplicity);
+        var first = dir.Write("anti.xyz", XyzWriter.ToExtendedText(anti, -158.4000));
+        var second = dir.Write("anti-again.xyz", XyzWriter.ToExtendedText(moved, -158.4000));
+
+        var run = await Task.Run(() => CliRunner.Run(
+            "push", "--server", server.BaseUrl, "--token-file", tokenFile, "--study", "Push conformers", "--species", "butane", "--kind", "Minimum",
+            "--level", Level, "--charge", "0", "--multiplicity", "1", "--conformer-per-file", "--together", first, second));
+
+        Assert.True(run.Code == 0, run.Out + run.Err);
+        Assert.Contains("conformers: species butane: conformer anti-again duplicates anti (RMSD 0.000 Å", run.Out);
+        Assert.Equal(["anti", "anti-again"], await server.ConformersAsync());
     }
 
     [Fact]

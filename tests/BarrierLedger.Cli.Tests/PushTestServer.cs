@@ -107,6 +107,13 @@ internal sealed class PushTestServer : IAsyncDisposable
         return (await db.Uploads.CountAsync(), await db.Calculations.CountAsync(), await db.StoredFiles.CountAsync());
     }
 
+    /// <summary>The conformer label of every stored calculation, in the order stored.</summary>
+    public async Task<IReadOnlyList<string>> ConformersAsync()
+    {
+        await using var db = await Ledger.GetRequiredService<IDbContextFactory<LedgerDbContext>>().CreateDbContextAsync();
+        return await db.Calculations.OrderBy(c => c.Id).Select(c => c.Conformer).ToListAsync();
+    }
+
     private static string WebDll
     {
         get

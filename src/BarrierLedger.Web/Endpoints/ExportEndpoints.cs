@@ -1,9 +1,12 @@
 using System.Globalization;
+using System.Security.Claims;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Backups;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Storage;
+using BarrierLedger.Ledger.Uploads;
 using BarrierLedger.Web.Components.Account;
 using Microsoft.AspNetCore.Authorization;
 using Microsoft.AspNetCore.Identity;
@@ -81,20 +84,29 @@ public static class ExportEndpoints
         return File(format == "svg" ? svg : png);
     });
 
-    private static async Task<IResult> BackupAsync(BackupService backup, HttpContext http, CancellationToken ct)
+    /// <summary>The admin's backup download; each one is audited (who, when, the archive's size), since a backup holds the whole ledger.</summary>
+    private static async Task<IResult> BackupAsync(BackupService backup, AuditService audit, HttpContext http, CancellationToken ct)
     {
         var ms = new MemoryStream();
+        BackupManifest manifest;
         try
         {
-            await backup.CreateArchiveAsync(ms, ct);
+            manifest = await backup.CreateArchiveAsync(ms, ct);
         }
         catch (NotSupportedException ex) // a PostgreSQL ledger: backed up with pg_dump, not as this archive
         {
             return ApiProblems.Problem(StatusCodes.Status409Conflict, "not-exportable", "Cannot export", ex.Message);
         }
+        var name = $"barrierledger-backup-{manifest.CreatedAt.UtcDateTime:yyyyMMdd-HHmmss}.zip";
+        var user = http.User.FindFirstValue(ClaimTypes.NameIdentifier)!;
+        await audit.RecordAsync(user, BackupDownloaded, "Backup", name,
+            $"Backup {name} downloaded: {ms.Length.ToString(CultureInfo.InvariantCulture)} bytes ({StorageQuota.Format(ms.Length)}), the database and {manifest.Files.Count} stored file(s).", ct);
         ms.Position = 0;
-        return Results.File(ms, "application/zip", $"barrierledger-backup-{DateTime.UtcNow:yyyyMMdd-HHmmss}.zip");
+        return Results.File(ms, "application/zip", name);
     }
+
+    /// <summary>The audit action of a backup download.</summary>
+    public const string BackupDownloaded = "backup.downloaded";
 
     private static IResult File(ExportFile f) => Results.File(f.Content, f.ContentType, f.FileName);
 
