@@ -195,8 +195,7 @@ internal static class ExportCommand
     }
 
     private static EnergyUnit ParseUnit(string? text) =>
-        Energy.TryParseUnit(text, out var u) && u is EnergyUnit.KcalPerMol or EnergyUnit.KJPerMol or EnergyUnit.ElectronVolt or EnergyUnit.Hartree
-            ? u : throw new UsageException($"--unit: '{text}' is not one of kcal/mol, kJ/mol, eV, hartree");
+        BarrierUnits.TryParse(text, out var u, out var why) ? u : throw new UsageException($"--unit: {why}");
 
     private static TableFormat ParseFormat(string text) => text switch
     {
@@ -208,7 +207,7 @@ internal static class ExportCommand
 
     private static Option<string?> StudyOption() => new("--study") { Description = "Study name or id (default: the only study)" };
 
-    private static Option<string> UnitOption() => new("--unit") { Description = "kcal/mol, kJ/mol, eV or hartree", DefaultValueFactory = _ => "kcal/mol" };
+    private static Option<string> UnitOption() => new("--unit") { Description = BarrierUnits.Expected, DefaultValueFactory = _ => "kcal/mol" };
 
     private static Option<int> DecimalsOption()
     {

@@ -70,7 +70,7 @@ public static class ExportEndpoints
             if (!int.TryParse(r, NumberStyles.Integer, CultureInfo.InvariantCulture, out var id)) return ApiProblems.BadRequest($"reaction id '{r}' is not a number.");
             ids.Add(id);
         }
-        if (!TryUnit(unit, out var u)) return ApiProblems.BadRequest($"unit must be KcalPerMol, KJPerMol, ElectronVolt or Hartree, not '{unit}'.");
+        if (!BarrierUnits.TryParse(unit, out var u, out var why)) return ApiProblems.BadRequest($"unit: {why}");
         var options = new TableOptions(cols.Count == 0 ? TableOptions.DefaultColumns : cols, u, decimals ?? 1);
         return File(await export.TableAsync(study, reactions is null ? null : ids, f, options, ct));
     });
@@ -79,7 +79,7 @@ public static class ExportEndpoints
     {
         if (format is not ("svg" or "png")) return ApiProblems.BadRequest($"a diagram is svg or png, not '{format}'.");
         if (quantity is not (null or "G" or "H" or "E")) return ApiProblems.BadRequest($"quantity must be G, H or E, not '{quantity}'.");
-        if (!TryUnit(unit, out var u)) return ApiProblems.BadRequest($"unit must be KcalPerMol, KJPerMol, ElectronVolt or Hartree, not '{unit}'.");
+        if (!BarrierUnits.TryParse(unit, out var u, out var why)) return ApiProblems.BadRequest($"unit: {why}");
         var (svg, png) = await export.DiagramAsync(reactionId, "Δ" + (quantity ?? "G"), u, decimals ?? 1, ct);
         return File(format == "svg" ? svg : png);
     });
@@ -107,14 +107,6 @@ public static class ExportEndpoints
 
     /// <summary>The audit action of a backup download.</summary>
     public const string BackupDownloaded = "backup.downloaded";
-
-    private static bool TryUnit(string? text, out EnergyUnit unit)
-    {
-        unit = EnergyUnit.KcalPerMol;
-        if (string.IsNullOrEmpty(text)) return true;
-        return (Enum.TryParse(text, true, out unit) && Enum.IsDefined(unit) && unit != EnergyUnit.Wavenumber)
-            || (Energy.TryParseUnit(text, out unit) && unit != EnergyUnit.Wavenumber);
-    }
 
     private static IResult File(ExportFile f) => Results.File(f.Content, f.ContentType, f.FileName);
 
