@@ -56,6 +56,7 @@ public static class Program
         root.Subcommands.Add(ThermoCommand.Create(context));
         root.Subcommands.Add(KieCommand.Create(context));
         root.Subcommands.Add(RateCommand.Create(context));
+        root.Subcommands.Add(KineticsCommand.Create(context));
         root.Subcommands.Add(ScanCommand.Create(context));
         root.Subcommands.Add(ValidateCommand.Create(context));
         root.Subcommands.Add(PushCommand.Create(context));

@@ -36,7 +36,9 @@ public static class LedgerServiceCollectionExtensions
         services.AddSingleton<AuditService>();
         services.AddSingleton<Accounts.AccountAccess>();
         services.AddSingleton<DerivationService>();
-        services.TryAddSingleton(sp => new UploadGate(sp.GetService<LedgerOptions>()?.Uploads ?? new UploadReadOptions()));
+        services.TryAddSingleton(sp => sp.GetService<LedgerOptions>()?.Uploads ?? new UploadReadOptions());
+        services.TryAddSingleton(sp => new UploadGate(sp.GetRequiredService<UploadReadOptions>()));
+        services.AddSingleton<StorageQuota>();
         services.AddSingleton<UploadService>();
         services.AddSingleton<RecomputeService>();
         services.AddSingleton<EnergyModelService>();

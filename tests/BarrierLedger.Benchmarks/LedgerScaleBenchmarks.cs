@@ -113,9 +113,9 @@ public class LedgerScaleBenchmarks
                     null, null, null, null, null, ""));
             }
             d.Reactions.Add(new DraftReaction($"R{r:D4}", "invented", [
-                new DraftState("A + B", StateKind.Minimum, [new DraftTerm($"r{r}-a", 1), new DraftTerm($"r{r}-b", 1)], null, []),
-                new DraftState("TS", StateKind.SaddlePoint, [new DraftTerm($"r{r}-ts", 1)], $"r{r}-ts", [(1, 3)]),
-                new DraftState("C + D", StateKind.Minimum, [new DraftTerm($"r{r}-c", 1), new DraftTerm($"r{r}-d", 1)], null, []),
+                new DraftState("A + B", Core.Pathways.StateKind.Minimum, [new DraftTerm($"r{r}-a", 1), new DraftTerm($"r{r}-b", 1)], null, []),
+                new DraftState("TS", Core.Pathways.StateKind.SaddlePoint, [new DraftTerm($"r{r}-ts", 1)], $"r{r}-ts", [(1, 3)]),
+                new DraftState("C + D", Core.Pathways.StateKind.Minimum, [new DraftTerm($"r{r}-c", 1), new DraftTerm($"r{r}-d", 1)], null, []),
             ]));
         }
         return d;

@@ -14,7 +14,7 @@ public class ExportCommandTests
     /// <summary>Input formats only (a folder's README or notes are not part of the upload).</summary>
     private static bool IsDataFile(string path) => Path.GetExtension(path).ToLowerInvariant() is ".json" or ".xyz" or ".extxyz" or ".csv" or ".zip";
 
-    private static string DemoFolder
+    internal static string DemoFolder
     {
         get
         {
@@ -91,6 +91,29 @@ public class ExportCommandTests
         var (code, _, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--columns", "reaction,speed", "--out", Path.Combine(temp.Path, "x.csv"));
         Assert.Equal(ExitCodes.UsageError, code);
         Assert.Contains("unknown column 'speed'", err);
+    }
+
+    // The same parser and sentence as the two HTTP surfaces (Web.Tests ExportUnitsTests).
+    [Theory]
+    [InlineData("cm-1")]
+    [InlineData("furlongs")]
+    public void ExportTable_UnitNotForBarriers_IsAUsageErrorWithCoresSentence(string text)
+    {
+        using var temp = new TempDir();
+        var (code, _, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--unit", text, "--out", Path.Combine(temp.Path, "x.csv"));
+        Assert.Equal(ExitCodes.UsageError, code);
+        Assert.False(BarrierLedger.Core.Units.BarrierUnits.TryParse(text, out _, out var why));
+        Assert.Contains($"--unit: {why}", err);
+    }
+
+    [Fact]
+    public void ExportTable_UnitInElectronVolt_HeadsTheColumnsInEv()
+    {
+        using var temp = new TempDir();
+        var path = Path.Combine(temp.Path, "t.csv");
+        var (code, _, err) = CliRunner.Run("export", "table", "--bundle", DemoFolder, "--format", "csv", "--columns", "reaction,barrier-dG", "--unit", "ElectronVolt", "--out", path);
+        Assert.True(code == 0, err);
+        Assert.Contains("ΔG‡ (eV)", File.ReadAllText(path));
     }
 
     [Fact]

@@ -1,4 +1,7 @@
 using System.Text;
+using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Tests.Conformers;
 
 namespace BarrierLedger.Cli.Tests;
 
@@ -96,5 +99,57 @@ public sealed class PushCommandTests
         Assert.Equal(ExitCodes.UsageError, noToken.Code);
         Assert.Contains("BARRIERLEDGER_TOKEN", noToken.Err);
         Assert.Equal((0, 0, 0), await server.CountsAsync());
+    }
+
+    /// <summary>
+    /// <c>--conformer-per-file</c> (issue 21, item 1): each file is stored as the conformer named after it, and push prints the
+    /// server's conformer notes. Butane from internal coordinates (FlexibleMolecules; bond lengths and angles from memory); the
+    /// second file is the first turned 90° about z and moved, so its heavy-atom RMSD to it is 0 (rigid motion, analytic) and it is
+    /// a duplicate. Energies invented.
+    /// </summary>
+    [Fact]
+    public async Task Push_ConformerPerFile_StoresEachFileAsItsOwnConformer_AndPrintsTheDuplicate()
+    {
+        await using var server = new PushTestServer();
+        await server.StartAsync();
+        using var dir = new TempDir();
+        var tokenFile = dir.Write("token", await server.CreateUploadTokenAsync("mira"));
+        var anti = FlexibleMolecules.Butane(180);
+        var moved = new Molecule(anti.Elements,
+            [.. anti.PositionsAngstrom.Select(p => new Vec3(-p.Y + 3.0, p.X - 1.0, p.Z + 2.0))], anti.Charge, anti.Multiplicity);
+        var first = dir.Write("anti.xyz", XyzWriter.ToExtendedText(anti, -158.4000));
+        var second = dir.Write("anti-again.xyz", XyzWriter.ToExtendedText(moved, -158.4000));
+
+        var run = await Task.Run(() => CliRunner.Run(
+            "push", "--server", server.BaseUrl, "--token-file", tokenFile, "--study", "Push conformers", "--species", "butane", "--kind", "Minimum",
+            "--level", Level, "--charge", "0", "--multiplicity", "1", "--conformer-per-file", "--together", first, second));
+
+        Assert.True(run.Code == 0, run.Out + run.Err);
+        Assert.Contains("conformers: species butane: conformer anti-again duplicates anti (RMSD 0.000 Å", run.Out);
+        Assert.Equal(["anti", "anti-again"], await server.ConformersAsync());
+    }
+
+    [Fact]
+    public async Task Push_PastTheStorageQuota_Exit2_SayingQuotaUsageAndSize_AndStoresNothing()
+    {
+        await using var server = new PushTestServer();
+        await server.StartAsync("--BarrierLedger:Uploads:UserQuotaMiB=1");
+        using var dir = new TempDir();
+        var tokenFile = dir.Write("token", await server.CreateUploadTokenAsync("mira") + "\n");
+        // Padded with a blank tail to 600 KiB and 500 KiB: together past a 1 MiB quota (sizes counted by the test, not the store).
+        var first = dir.Write("water.xyz", WaterXyz().PadRight(600 * 1024 - 1) + "\n");
+        var second = dir.Write("water-b.xyz", WaterXyz("-76.4200").PadRight(500 * 1024 - 1) + "\n");
+
+        var stored = await Task.Run(() => CliRunner.Run(Args(server.BaseUrl, tokenFile, first)));
+        Assert.True(stored.Code == 0, stored.Out + stored.Err);
+        var before = await server.CountsAsync();
+
+        var refused = await Task.Run(() => CliRunner.Run(Args(server.BaseUrl, tokenFile, second)));
+
+        Assert.Equal(ExitCodes.Unreadable, refused.Code);
+        Assert.Contains("413", refused.Err);
+        Assert.Contains("your quota is 1 MiB, you have stored 600 KiB, and this upload would add 500 KiB", refused.Err);
+        Assert.DoesNotContain("retry", refused.Out);
+        Assert.Equal(before, await server.CountsAsync());
     }
 }

@@ -36,7 +36,8 @@ internal sealed class PushTestServer : IAsyncDisposable
     public string DataDirectory { get; }
     public string Output { get { lock (_output) return _output.ToString(); } }
 
-    public async Task StartAsync()
+    /// <param name="settings">Extra command-line settings for the app, e.g. "--BarrierLedger:Uploads:UserQuotaMiB=1".</param>
+    public async Task StartAsync(params string[] settings)
     {
         var start = new ProcessStartInfo("dotnet") { WorkingDirectory = DataDirectory, RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
         start.ArgumentList.Add(WebDll);
@@ -44,6 +45,7 @@ internal sealed class PushTestServer : IAsyncDisposable
         start.ArgumentList.Add(BaseUrl);
         start.ArgumentList.Add($"--BarrierLedger:DataDirectory={DataDirectory}");
         start.ArgumentList.Add("--no-demo");
+        foreach (var setting in settings) start.ArgumentList.Add(setting);
         start.Environment["ASPNETCORE_ENVIRONMENT"] = "Production";
         var listening = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
         var process = new Process { StartInfo = start };
@@ -103,6 +105,13 @@ internal sealed class PushTestServer : IAsyncDisposable
     {
         await using var db = await Ledger.GetRequiredService<IDbContextFactory<LedgerDbContext>>().CreateDbContextAsync();
         return (await db.Uploads.CountAsync(), await db.Calculations.CountAsync(), await db.StoredFiles.CountAsync());
+    }
+
+    /// <summary>The conformer label of every stored calculation, in the order stored.</summary>
+    public async Task<IReadOnlyList<string>> ConformersAsync()
+    {
+        await using var db = await Ledger.GetRequiredService<IDbContextFactory<LedgerDbContext>>().CreateDbContextAsync();
+        return await db.Calculations.OrderBy(c => c.Id).Select(c => c.Conformer).ToListAsync();
     }
 
     private static string WebDll

@@ -2,6 +2,7 @@ using System.Text;
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Pathways;
 
 namespace BarrierLedger.Demo.Tests;
 
@@ -53,7 +54,7 @@ public class DemoScaleTests
         Assert.False(da[0].Geometry!.SameAs(da[1].Geometry!, 1e-4));
 
         var verdicts = new HashSet<Verdict>();
-        foreach (var state in bundle.Reactions.SelectMany(r => r.States).Where(s => s.Kind == BundleStateKind.SaddlePoint))
+        foreach (var state in bundle.Reactions.SelectMany(r => r.States).Where(s => s.Kind == StateKind.SaddlePoint))
         {
             var calc = bundle.Calculations.Single(c => c.Label == state.Calculation);
             verdicts.Add(SaddleCheck.Run(SaddleCheckInput.FromHessian(calc.Geometry!, [.. calc.HessianHartreePerBohr2],

@@ -157,9 +157,9 @@ public class DemoShowcaseTests
     public void The_catalyst_appears_in_several_states_of_the_two_step_pathway()
     {
         var ix = Bundle.Reactions.Single(r => r.Label == "IX");
-        Assert.Equal(2, ix.States.Count(s => s.Kind == BundleStateKind.SaddlePoint));
+        Assert.Equal(2, ix.States.Count(s => s.Kind == StateKind.SaddlePoint));
         Assert.True(ix.States.Count(s => s.Terms.Any(t => t.Species == "iodide")) >= 2);
-        Assert.Equal(BundleStateKind.Minimum, ix.States[2].Kind); // the intermediate, iodomethane + chloride + fluoride
+        Assert.Equal(StateKind.Minimum, ix.States[2].Kind); // the intermediate, iodomethane + chloride + fluoride
     }
 
     [Fact]
@@ -263,7 +263,7 @@ public class DemoShowcaseTests
         StateStructure Of(BundleState s, string label) => new(label, [.. s.Terms.Select(t => new StateSpecies(t.Species,
             Bundle.Calculations.First(c => c.Species == t.Species && c.Kind == CalculationKind.Minimum).Geometry!, t.Coefficient))]);
         var others = Bundle.Reactions.Where(x => x.Label != reaction)
-            .SelectMany(x => x.States.Where(s => s.Kind == BundleStateKind.Minimum).Select(s => Of(s, $"{s.Label} ({x.Label})")))
+            .SelectMany(x => x.States.Where(s => s.Kind == StateKind.Minimum).Select(s => Of(s, $"{s.Label} ({x.Label})")))
             .Where(s => s.Formula == formula).ToList();
         var path = IrcPath.FromFrames([.. irc.Structures.Structures.Select(f => f.Geometry)], [.. irc.Structures.Structures.Select(f => f.EnergyHartree!.Value)], calc.Geometry);
         var result = ConnectionCheck.Run(new ConnectionCheckInput(calc.Geometry!, Of(r.States[0], r.States[0].Label), Of(r.States[2], r.States[2].Label), others, path));
@@ -343,7 +343,7 @@ public class DemoShowcaseTests
         }
         var r = Bundle.Reactions.Single(x => x.Label == reaction);
         return new Pathway(r.Label, [.. r.States.Select(s => new PathwayState(s.Label,
-            s.Kind == BundleStateKind.SaddlePoint ? StateKind.SaddlePoint : StateKind.Minimum,
+            s.Kind,
             [.. s.Terms.Select(t => new StateTerm(Record(t.Species), t.Coefficient))]))]);
     }
 }

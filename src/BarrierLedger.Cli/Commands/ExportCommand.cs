@@ -195,8 +195,7 @@ internal static class ExportCommand
     }
 
     private static EnergyUnit ParseUnit(string? text) =>
-        Energy.TryParseUnit(text, out var u) && u is EnergyUnit.KcalPerMol or EnergyUnit.KJPerMol or EnergyUnit.ElectronVolt or EnergyUnit.Hartree
-            ? u : throw new UsageException($"--unit: '{text}' is not one of kcal/mol, kJ/mol, eV, hartree");
+        BarrierUnits.TryParse(text, out var u, out var why) ? u : throw new UsageException($"--unit: {why}");
 
     private static TableFormat ParseFormat(string text) => text switch
     {
@@ -208,7 +207,7 @@ internal static class ExportCommand
 
     private static Option<string?> StudyOption() => new("--study") { Description = "Study name or id (default: the only study)" };
 
-    private static Option<string> UnitOption() => new("--unit") { Description = "kcal/mol, kJ/mol, eV or hartree", DefaultValueFactory = _ => "kcal/mol" };
+    private static Option<string> UnitOption() => new("--unit") { Description = BarrierUnits.Expected, DefaultValueFactory = _ => "kcal/mol" };
 
     private static Option<int> DecimalsOption()
     {
@@ -221,12 +220,15 @@ internal static class ExportCommand
         return o;
     }
 
-    private static void Write(CliContext ctx, string path, byte[] content)
+    private static void Write(CliContext ctx, string path, byte[] content) => Write(ctx.Out, path, content);
+
+    /// <summary>Writes a file (creating its folder) and says so on <paramref name="log"/>.</summary>
+    internal static void Write(TextWriter log, string path, byte[] content)
     {
         var full = Path.GetFullPath(path);
         if (Path.GetDirectoryName(full) is { } d) Directory.CreateDirectory(d);
         File.WriteAllBytes(full, content);
-        ctx.Out.WriteLine($"wrote {path} ({content.Length} bytes)");
+        log.WriteLine($"wrote {path} ({content.Length} bytes)");
     }
 
     internal static async Task<int> ResolveStudyAsync(IServiceProvider services, string? text, CancellationToken ct)
@@ -240,7 +242,7 @@ internal static class ExportCommand
         return match?.Id ?? throw new UsageException($"--study: no study named or numbered '{text}'; there are: {string.Join("; ", studies.Select(s => $"{s.Id} \"{s.Name}\""))}");
     }
 
-    private static async Task<IReadOnlyCollection<int>?> ResolveReactionsAsync(IServiceProvider services, int studyId, string? text, CancellationToken ct)
+    internal static async Task<IReadOnlyCollection<int>?> ResolveReactionsAsync(IServiceProvider services, int studyId, string? text, CancellationToken ct)
     {
         if (string.IsNullOrWhiteSpace(text)) return null;
         var study = (await services.GetRequiredService<ExportQueryService>().ListStudiesAsync(ct)).Single(s => s.Id == studyId);

@@ -89,8 +89,7 @@ internal static class KieCommand
             }
 
             var unitText = pr.GetValue(unit)!;
-            if (!Energy.TryParseUnit(unitText, out var u) || u == EnergyUnit.Wavenumber)
-                throw new UsageException($"--unit '{unitText}' is not an energy unit for barriers; expected kcal/mol, kJ/mol, hartree or eV");
+            if (!BarrierUnits.TryParse(unitText, out var u, out var unitProblem)) throw new UsageException($"--unit: {unitProblem}");
             var kind = pr.GetValue(tunnelling) switch
             {
                 "wigner" => KieTunnelling.Wigner,

@@ -202,6 +202,9 @@ internal static class PushCommand
                     ctx.Out.WriteLine($"      stored: upload {json.GetProperty("uploadId")} in study {json.GetProperty("studyId")}: {calcs} calculation(s), {reactions} reaction(s), {scans} scan(s)");
                 foreach (var d in json.GetProperty("duplicates").EnumerateArray().Where(d => !again)) ctx.Out.WriteLine($"      not stored again: {d.GetString()}");
                 foreach (var w in json.GetProperty("warnings").EnumerateArray()) ctx.Out.WriteLine("      " + Issue(w));
+                // Duplicates and mirror images among the conformers the upload gave a species (issue 21), as the upload page says them.
+                if (json.TryGetProperty("conformers", out var conformers))
+                    foreach (var c in conformers.EnumerateArray()) ctx.Out.WriteLine("      conformers: " + c.GetString());
                 return ExitCodes.Ok;
             }
             var detail = json.ValueKind == JsonValueKind.Object && json.TryGetProperty("detail", out var d2) ? d2.GetString() : text.Length > 300 ? text[..300] : text;

@@ -24,8 +24,7 @@ internal static class RateCommand
         command.SetAction(pr =>
         {
             var unitText = pr.GetValue(unit)!;
-            if (!Energy.TryParseUnit(unitText, out var u) || u == EnergyUnit.Wavenumber)
-                throw new UsageException($"--unit '{unitText}' is not an energy unit for barriers; expected kcal/mol, kJ/mol, hartree or eV");
+            if (!BarrierUnits.TryParse(unitText, out var u, out var why)) throw new UsageException($"--unit: {why}");
             var t = pr.GetValue(temperature);
             if (!(t > 0) || !double.IsFinite(t)) throw new UsageException($"--temperature must be above 0 K, got {t}");
             var dg = Energy.From(pr.GetValue(barrier), u);

@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Conformers;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Vibrations;
 
@@ -109,13 +110,6 @@ public sealed record BundleCalculation(
     string Note,
     string Conformer = "");
 
-/// <summary>Whether a state of a pathway is a minimum or a saddle point.</summary>
-public enum BundleStateKind
-{
-    Minimum,
-    SaddlePoint,
-}
-
 /// <summary>One species in a state with its (whole, positive) coefficient: "2 H2O" is ("H2O", 2).</summary>
 public sealed record BundleTerm(string Species, int Coefficient);
 
@@ -128,7 +122,7 @@ public sealed record BundleAtomPair(int First, int Second);
 /// </summary>
 public sealed record BundleState(
     string Label,
-    BundleStateKind Kind,
+    StateKind Kind,
     ImmutableArray<BundleTerm> Terms,
     string? Calculation,
     ImmutableArray<BundleAtomPair> ReactionCoordinate);

@@ -3,6 +3,7 @@ using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Kinetics;
 using static BarrierLedger.Core.Formats.BundleManifestReader;
 using static BarrierLedger.Core.Formats.BundleSchema;
+using BarrierLedger.Core.Pathways;
 
 namespace BarrierLedger.Core.Formats;
 
@@ -60,7 +61,7 @@ internal static class BundleReactionReader
         }
         var setup = new KineticsSetup(channels, j.Bool(k, kp, "enantiomeric") ?? false,
             j.Number(k, kp, "temperature_kelvin", required: false), j.Number(k, kp, "time_hours", required: false));
-        foreach (var (key, message) in setup.Problems([.. states.Select(s => (s.Label, s.Kind == BundleStateKind.SaddlePoint))]))
+        foreach (var (key, message) in setup.Problems([.. states.Select(s => (s.Label, s.Kind == StateKind.SaddlePoint))]))
         {
             j.Issues.ErrorAt(JsonInput.Child(kp, key), message);
             ok = false;
@@ -77,9 +78,9 @@ internal static class BundleReactionReader
         var ok = true;
         var label = j.String(s, p, "label", required: true);
         var kindText = j.String(s, p, "kind", required: true);
-        BundleStateKind kind = BundleStateKind.Minimum;
-        if (kindText == "minimum") kind = BundleStateKind.Minimum;
-        else if (kindText == "saddle_point") kind = BundleStateKind.SaddlePoint;
+        StateKind kind = StateKind.Minimum;
+        if (kindText == "minimum") kind = StateKind.Minimum;
+        else if (kindText == "saddle_point") kind = StateKind.SaddlePoint;
         else if (kindText is not null) { issues.ErrorAt(JsonInput.Child(p, "kind"), $"is '{kindText}'; expected 'minimum' or 'saddle_point'"); ok = false; }
         var terms = new List<BundleTerm>();
         if (j.Array(s, p, "terms", required: true) is { } tArr)
@@ -110,7 +111,7 @@ internal static class BundleReactionReader
             issues.ErrorAt(JsonInput.Child(p, "calculation"), $"names calculation '{calcLabel}', which is not in $.calculations");
             ok = false;
         }
-        if (kind == BundleStateKind.SaddlePoint && calcLabel is null)
+        if (kind == StateKind.SaddlePoint && calcLabel is null)
         {
             issues.ErrorAt(p, "a saddle_point state must name its calculation (key 'calculation')");
             ok = false;
@@ -120,7 +121,7 @@ internal static class BundleReactionReader
             issues.ErrorAt(JsonInput.Child(p, "calculation"), $"calculation '{calc.Label}' is of species '{calc.Species}', which is not among this state's terms");
             ok = false;
         }
-        if (calc is not null && kind == BundleStateKind.SaddlePoint && calc.Kind is not (CalculationKind.SaddlePoint or CalculationKind.Frequencies or CalculationKind.SinglePoint))
+        if (calc is not null && kind == StateKind.SaddlePoint && calc.Kind is not (CalculationKind.SaddlePoint or CalculationKind.Frequencies or CalculationKind.SinglePoint))
             issues.WarningAt(JsonInput.Child(p, "calculation"), $"calculation '{calc.Label}' is a {calc.Kind.Words()} calculation, not a saddle point");
         var pairs = new List<BundleAtomPair>();
         // "reacting_bonds" (the forming and breaking atom pairs); "reaction_coordinate" is the name format_version 1 bundles were
@@ -134,7 +135,7 @@ internal static class BundleReactionReader
         if (j.Array(s, p, bondsKey, required: false) is { } rc)
         {
             var rcp = JsonInput.Child(p, bondsKey);
-            if (kind != BundleStateKind.SaddlePoint) { issues.ErrorAt(rcp, "only a saddle_point state has forming/breaking bonds"); ok = false; }
+            if (kind != StateKind.SaddlePoint) { issues.ErrorAt(rcp, "only a saddle_point state has forming/breaking bonds"); ok = false; }
             var atoms = calc?.Geometry?.AtomCount;
             var k = 0;
             foreach (var pair in rc.EnumerateArray())

@@ -1,5 +1,6 @@
 using System.IO.Compression;
 using System.Text.Json;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Scans;
 
 namespace BarrierLedger.Core.Formats;
@@ -64,7 +65,7 @@ public static class BundleWriter
                 Objects(w, "states", r.States, s =>
                 {
                     w.WriteString("label", s.Label);
-                    w.WriteString("kind", s.Kind == BundleStateKind.SaddlePoint ? "saddle_point" : "minimum");
+                    w.WriteString("kind", s.Kind == StateKind.SaddlePoint ? "saddle_point" : "minimum");
                     Objects(w, "terms", s.Terms, t =>
                     {
                         w.WriteString("species", t.Species);

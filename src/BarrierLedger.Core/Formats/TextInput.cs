@@ -65,20 +65,28 @@ internal static class TextInput
         return null;
     }
 
-    /// <summary>Decodes UTF-8 (BOM allowed); refuses binary content (NUL bytes) with an error.</summary>
-    public static string? Decode(byte[] bytes, IssueCollector issues)
+    /// <summary>
+    /// Refuses binary content (a NUL byte) with an error naming its line; otherwise true, with <paramref name="start"/> past a
+    /// UTF-8 byte-order mark.
+    /// </summary>
+    public static bool CheckText(byte[] bytes, IssueCollector issues, out int start)
     {
         var span = bytes.AsSpan();
+        start = 0;
         var nul = span.IndexOf((byte)0);
         if (nul >= 0)
         {
             var line = 1 + span[..nul].Count((byte)'\n');
             issues.Error(line, "found a NUL byte: this is a binary file, expected plain text (UTF-8)");
-            return null;
+            return false;
         }
-        if (span.StartsWith(Encoding.UTF8.Preamble)) span = span[3..];
-        return Encoding.UTF8.GetString(span);
+        if (span.StartsWith(Encoding.UTF8.Preamble)) start = Encoding.UTF8.Preamble.Length;
+        return true;
     }
+
+    /// <summary>Decodes UTF-8 (BOM allowed); refuses binary content (NUL bytes) with an error.</summary>
+    public static string? Decode(byte[] bytes, IssueCollector issues) =>
+        CheckText(bytes, issues, out var start) ? Encoding.UTF8.GetString(bytes, start, bytes.Length - start) : null;
 
     public static string? ReadText(Stream stream, ReaderLimits limits, IssueCollector issues)
     {

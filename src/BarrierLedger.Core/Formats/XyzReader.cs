@@ -28,9 +28,9 @@ public static class XyzReader
     {
         limits ??= ReaderLimits.Default;
         var issues = new IssueCollector(fileName, limits.MaxIssues);
-        var text = TextInput.ReadText(stream, limits, issues);
-        if (text is null) return issues.Result<XyzDocument>(null);
-        return Parse(text, issues, limits, warnUnstatedOddElectrons);
+        var bytes = TextInput.ReadBytes(stream, limits.MaxBytes, issues);
+        if (bytes is null || !TextInput.CheckText(bytes, issues, out var start)) return issues.Result<XyzDocument>(null);
+        return Parse(new TextLines(bytes, start), issues, limits, warnUnstatedOddElectrons);
     }
 
     /// <summary>Reads from text already in memory (the same rules as <see cref="Read(Stream, string, ReaderLimits?)"/>).</summary>
@@ -43,28 +43,37 @@ public static class XyzReader
             issues.Error(null, $"file is larger than the limit of {TextInput.FormatBytes(limits.MaxBytes)}");
             return issues.Result<XyzDocument>(null);
         }
-        return Parse(text, issues, limits, true);
+        return Parse(new TextLines(text), issues, limits, true);
     }
 
     private sealed record Column(string Name, char Type, int Count, int Offset);
 
-    private static ReadResult<XyzDocument> Parse(string text, IssueCollector issues, ReaderLimits limits, bool warnUnstatedOddElectrons)
+    /// <summary>
+    /// One pass over the lines, a frame at a time: only the current line is decoded, so memory holds the file's bytes and the
+    /// frames read, never the whole text or all its lines.
+    /// </summary>
+    private static ReadResult<XyzDocument> Parse(TextLines lines, IssueCollector issues, ReaderLimits limits, bool warnUnstatedOddElectrons)
     {
-        var lines = TextInput.SplitLines(text);
         var frames = new List<XyzFrame>();
         var extended = false;
         var warnedExtraColumns = false;
         var warnedLattice = false;
-        var i = 0;
+        var fields = new List<Range>();
+        var elementsSeen = new Dictionary<string, Element>(StringComparer.Ordinal);
         int? previousCount = null;
+        Span<double> xyz = stackalloc double[3];
         while (true)
         {
-            while (i < lines.Length && string.IsNullOrWhiteSpace(lines[i])) i++;
-            if (i >= lines.Length) break;
-            var countLine = i + 1;
-            var countText = lines[i].Trim();
-            if (!Numbers.TryParseInt(countText, out var count) || count < 0)
+            ReadOnlySpan<char> line;
+            do
             {
+                if (!lines.TryTake(out line)) goto done;
+            } while (line.IsWhiteSpace());
+            var countLine = lines.Number;
+            var countSpan = line.Trim();
+            if (!Numbers.TryParseInt(countSpan, out var count) || count < 0)
+            {
+                var countText = countSpan.ToString();
                 var hint = previousCount is { } pc
                     ? $" (the frame before declared {pc} atoms; is that count too small, or is this a stray line?)"
                     : "";
@@ -82,12 +91,12 @@ public static class XyzReader
                 issues.Error(countLine, $"more than {limits.MaxFrames} frames (ReaderLimits.MaxFrames)");
                 break;
             }
-            if (i + 1 >= lines.Length)
+            if (!lines.TryTake(out line))
             {
                 issues.Error(countLine + 1, $"file ends after the atom count; expected a comment line and {count} atom lines");
                 break;
             }
-            var comment = lines[i + 1];
+            var comment = line.ToString();
             var commentLine = countLine + 1;
             var frameOk = true;
 
@@ -144,18 +153,20 @@ public static class XyzReader
                                 ?? columns?.FirstOrDefault(c => c.Name.Equals("Z", StringComparison.OrdinalIgnoreCase));
             var posColumn = columns?.First(c => c.Name.Equals("pos", StringComparison.OrdinalIgnoreCase));
             var atomsRead = 0;
+            var endedEarly = false;
             for (var a = 0; a < count; a++)
             {
-                var li = i + 2 + a;
-                if (li >= lines.Length || (li == lines.Length - 1 && string.IsNullOrWhiteSpace(lines[li])))
+                if (!lines.HasMore || lines.NextIsLastAndBlank())
                 {
                     issues.Error(countLine, $"frame {frames.Count + 1} declares {count} atoms but the file ends after {a} atom line(s)");
                     frameOk = false;
+                    endedEarly = true;
                     break;
                 }
-                var lineNo = li + 1;
-                var fields = lines[li].Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries);
-                if (fields.Length == 0)
+                lines.TryTake(out line);
+                var lineNo = lines.Number;
+                Split(line, fields);
+                if (fields.Count == 0)
                 {
                     issues.Error(lineNo, $"blank line inside frame {frames.Count + 1}, expected atom {a + 1} of {count}: an element and 3 coordinates");
                     frameOk = false;
@@ -164,44 +175,43 @@ public static class XyzReader
                 int elementField = 0, xField = 1;
                 if (columns is not null)
                 {
-                    if (fields.Length != expectedColumns)
+                    if (fields.Count != expectedColumns)
                     {
-                        issues.Error(lineNo, $"expected {expectedColumns} columns as declared by Properties, found {fields.Length}");
+                        issues.Error(lineNo, $"expected {expectedColumns} columns as declared by Properties, found {fields.Count}");
                         frameOk = false;
                         continue;
                     }
                     elementField = speciesColumn!.Offset;
                     xField = posColumn!.Offset;
                 }
-                else if (fields.Length < 4)
+                else if (fields.Count < 4)
                 {
-                    issues.Error(lineNo, $"expected an element and 3 coordinates (x y z in Å), found {fields.Length} field(s): {TextInput.Quote(lines[li].Trim())}");
+                    issues.Error(lineNo, $"expected an element and 3 coordinates (x y z in Å), found {fields.Count} field(s): {TextInput.Quote(line.Trim().ToString())}");
                     frameOk = false;
                     continue;
                 }
-                else if (fields.Length > 4 && !warnedExtraColumns)
+                else if (fields.Count > 4 && !warnedExtraColumns)
                 {
                     warnedExtraColumns = true;
-                    issues.Warning(lineNo, $"{fields.Length - 4} column(s) after x y z are ignored (declare them with Properties= to name them)");
+                    issues.Warning(lineNo, $"{fields.Count - 4} column(s) after x y z are ignored (declare them with Properties= to name them)");
                 }
-                if (!Numbers.TryParseElement(fields[elementField], out var element, out var elError))
+                if (!TryElement(line[fields[elementField]], elementsSeen, out var element, out var elError))
                 {
                     issues.Error(lineNo, elError);
                     frameOk = false;
                 }
-                var xyz = new double[3];
                 var coordOk = true;
                 for (var c = 0; c < 3; c++)
                 {
-                    var f = fields[xField + c];
+                    var f = line[fields[xField + c]];
                     if (!Numbers.TryParseDouble(f, out xyz[c]))
                     {
-                        issues.Error(lineNo, $"coordinate {"xyz"[c]} of atom {a + 1} is {TextInput.Quote(f)}, expected a number");
+                        issues.Error(lineNo, $"coordinate {"xyz"[c]} of atom {a + 1} is {TextInput.Quote(f.ToString())}, expected a number");
                         coordOk = false;
                     }
                     else if (!double.IsFinite(xyz[c]))
                     {
-                        issues.Error(lineNo, $"coordinate {"xyz"[c]} of atom {a + 1} is {f}, expected a finite number");
+                        issues.Error(lineNo, $"coordinate {"xyz"[c]} of atom {a + 1} is {f.ToString()}, expected a finite number");
                         coordOk = false;
                     }
                     else if (StructureChecks.ImplausibleCoordinate(xyz[c]) is { } far)
@@ -215,12 +225,10 @@ public static class XyzReader
                 positions[a] = new Vec3(xyz[0], xyz[1], xyz[2]);
                 atomsRead++;
             }
-            var next = i + 2 + count;
             if (!frameOk || issues.HasErrors)
             {
                 // Later frames are read on so every error in the file is listed, as long as the layout is intact.
-                if (next > lines.Length) break;
-                i = next;
+                if (endedEarly) break;
                 previousCount = count;
                 continue;
             }
@@ -238,11 +246,37 @@ public static class XyzReader
                                                 "read as neutral singlet, which is impossible: state them in the comment or in the bundle species");
             }
             frames.Add(new XyzFrame(molecule, energy, comment, keys, countLine));
-            i = next;
             previousCount = count;
         }
+        done:
         if (frames.Count == 0 && !issues.HasErrors) issues.Error(1, "no structure found: the file is empty; expected an atom count on the first line");
         return issues.Result(new XyzDocument([.. frames], extended));
+    }
+
+    /// <summary>The white-space separated fields of <paramref name="line"/> (as <c>string.Split(null, RemoveEmptyEntries)</c> finds them).</summary>
+    private static void Split(ReadOnlySpan<char> line, List<Range> fields)
+    {
+        fields.Clear();
+        var i = 0;
+        while (true)
+        {
+            while (i < line.Length && char.IsWhiteSpace(line[i])) i++;
+            if (i == line.Length) return;
+            var start = i;
+            while (i < line.Length && !char.IsWhiteSpace(line[i])) i++;
+            fields.Add(start..i);
+        }
+    }
+
+    /// <summary><see cref="Numbers.TryParseElement"/>, remembering each token already read (a file names the same few elements on every line).</summary>
+    private static bool TryElement(ReadOnlySpan<char> token, Dictionary<string, Element> seen, out Element element, out string error)
+    {
+        error = "";
+        if (seen.GetAlternateLookup<ReadOnlySpan<char>>().TryGetValue(token, out element!)) return true;
+        var text = token.ToString();
+        if (!Numbers.TryParseElement(text, out element, out error)) return false;
+        seen[text] = element;
+        return true;
     }
 
     private static bool ReadKeys(ImmutableDictionary<string, string> keys, int line, IssueCollector issues,

@@ -1,17 +1,11 @@
 using System.Collections.Immutable;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Units;
 
 namespace BarrierLedger.Core.Kinetics;
 
-/// <summary>Whether a state of a catalytic cycle is a minimum (intermediate) or a saddle point (transition state).</summary>
-public enum CycleStateKind
-{
-    Intermediate,
-    TransitionState,
-}
-
 /// <summary>One state of a catalytic cycle: a label (e.g. "INT2", "TS3"), its Gibbs energy relative to any common zero, and its kind.</summary>
-public sealed record CycleState(string Label, Energy Gibbs, CycleStateKind Kind);
+public sealed record CycleState(string Label, Energy Gibbs, StateKind Kind);
 
 /// <summary>Degree of TOF control X_TOF of one state (Kozuch and Shaik 2011), between 0 and 1; they sum to 1 over each kind.</summary>
 public sealed record DegreeOfControl(CycleState State, double Degree);
@@ -69,10 +63,10 @@ public static class EnergeticSpan
             if (states[i] is null) throw new ArgumentException($"State {i + 1} is null.", nameof(states));
             if (!double.IsFinite(states[i].Gibbs.Hartree)) throw new ArgumentException($"State {i + 1} ({states[i].Label}) has a non-finite energy.", nameof(states));
         }
-        if (states[0].Kind != CycleStateKind.Intermediate)
+        if (states[0].Kind != StateKind.Minimum)
             throw new ArgumentException($"The cycle must start with the intermediate that begins a turnover; '{states[0].Label}' is a transition state.", nameof(states));
-        var tsIndex = Enumerable.Range(0, states.Count).Where(i => states[i].Kind == CycleStateKind.TransitionState).ToArray();
-        var intIndex = Enumerable.Range(0, states.Count).Where(i => states[i].Kind == CycleStateKind.Intermediate).ToArray();
+        var tsIndex = Enumerable.Range(0, states.Count).Where(i => states[i].Kind == StateKind.SaddlePoint).ToArray();
+        var intIndex = Enumerable.Range(0, states.Count).Where(i => states[i].Kind == StateKind.Minimum).ToArray();
         if (tsIndex.Length == 0) throw new ArgumentException("The cycle has no transition state.", nameof(states));
 
         var rt = R * temperatureKelvin / 1000.0; // kJ/mol

@@ -172,7 +172,7 @@ internal static class MonteCarlo
             var t = times[k];
             var target = q.TargetsOrDefault[k];
             parts.Add($"{Microkinetics.Format.Percent(target)} conversion of {q.Substrate} {where}: " +
-                      $"{Microkinetics.Format.Duration(t.Median)} ({Microkinetics.Format.Percent(level)} interval {Microkinetics.Format.Duration(t.Lower)} to {Range(t.Upper)})");
+                      $"{Range(t.Median)} ({Microkinetics.Format.Percent(level)} interval {Microkinetics.Format.Duration(t.Lower)} to {Range(t.Upper)})");
         }
         foreach (var y in yields)
             parts.Add($"{y.Quantity} {Microkinetics.Format.Percent(y.Median)} ({Microkinetics.Format.Percent(y.Lower)} to {Microkinetics.Format.Percent(y.Upper)})");

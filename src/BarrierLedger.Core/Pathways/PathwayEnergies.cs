@@ -242,7 +242,7 @@ public static class PathwayEnergies
             && states[^1].Kind == StateKind.Minimum && states.Any(s => s.Kind == StateKind.SaddlePoint))
         {
             var cycle = states.Take(states.Count - 1)
-                .Select(s => new CycleState(s.Label, s.RelativeGibbs!.Value, s.Kind == StateKind.SaddlePoint ? CycleStateKind.TransitionState : CycleStateKind.Intermediate))
+                .Select(s => new CycleState(s.Label, s.RelativeGibbs!.Value, s.Kind))
                 .ToList();
             span = EnergeticSpan.Analyze(cycle, states[^1].RelativeGibbs!.Value, t);
         }

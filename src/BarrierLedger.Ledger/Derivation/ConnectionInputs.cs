@@ -3,6 +3,7 @@ using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Paths;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.EntityFrameworkCore;

@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Storage;
 using Microsoft.EntityFrameworkCore;

@@ -76,7 +76,7 @@ public sealed class DerivationService(TimeProvider time)
     /// </summary>
     internal async Task<int> RefreshChecksAsync(LedgerDbContext db, ModelSettings model, IReadOnlyCollection<int> studyIds, IReadOnlyCollection<int>? reactionIds, bool force, CancellationToken ct)
     {
-        var q = db.ReactionStates.AsNoTracking().Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired
+        var q = db.ReactionStates.AsNoTracking().Where(s => s.Kind == Core.Pathways.StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired
                                                              && studyIds.Contains(s.Reaction.StudyId));
         if (reactionIds is not null) q = q.Where(s => EF.Parameter(reactionIds).Contains(s.ReactionId));
         var states = await q.OrderBy(s => s.Id).Select(s => new

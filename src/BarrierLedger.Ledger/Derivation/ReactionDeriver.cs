@@ -1,7 +1,6 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Storage;
-using CoreStateKind = BarrierLedger.Core.Pathways.StateKind;
 
 namespace BarrierLedger.Ledger.Derivation;
 
@@ -38,7 +37,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
         var complete = true;
         foreach (var s in r.States)
         {
-            var saddle = s.Kind == Records.StateKind.SaddlePoint;
+            var saddle = s.Kind == StateKind.SaddlePoint;
             var terms = new List<StateTerm>();
             var used = new List<(int, ResolvedSpecies)>();
             foreach (var (speciesId, coefficient) in s.Terms)
@@ -56,7 +55,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
                 terms.Add(new StateTerm(rs.Record, coefficient));
                 used.Add((speciesId, rs));
             }
-            states.Add(new PathwayState(s.Label, saddle ? CoreStateKind.SaddlePoint : CoreStateKind.Minimum, terms,
+            states.Add(new PathwayState(s.Label, s.Kind, terms,
                 saddle ? ImaginaryOf(s.SaddleCalculationId) : null));
             resolved.Add(used);
         }
@@ -87,7 +86,7 @@ internal sealed class ReactionDeriver(ModelSettings model, DerivationInputs inpu
 
         var steps = result is null ? [] : result.Steps.Select(step =>
         {
-            var position = r.States.First(x => x.Label == step.SaddlePoint && x.Kind == Records.StateKind.SaddlePoint).Position;
+            var position = r.States.First(x => x.Label == step.SaddlePoint && x.Kind == StateKind.SaddlePoint).Position;
             return new DerivedStep(position, step.SaddlePoint, step.From, step.To, step.ElectronicBarrier.Hartree, step.GibbsBarrier?.Hartree,
                 step.ElectronicReactionEnergy.Hartree, step.GibbsReactionEnergy?.Hartree, step.Molecularity, step.RateConstant, step.RateConstantUnit,
                 step.HalfLifeSeconds, step.ImaginaryFrequencyCm1, step.TransmissionCoefficient, step.EnthalpyBarrier?.Hartree);

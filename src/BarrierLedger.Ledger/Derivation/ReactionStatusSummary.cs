@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Records;
 using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Storage;

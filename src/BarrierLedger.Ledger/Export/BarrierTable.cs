@@ -32,18 +32,21 @@ public sealed record TableCell(CellKind Kind, string Text, double? Number = null
 
     public static TableCell Empty { get; } = new(CellKind.Empty, "");
 
+    /// <summary>The number format of a <see cref="CellKind.Scientific"/> cell: <see cref="Decimals"/> mantissa decimals ("0.00E+00" for three significant digits).</summary>
+    public string ScientificFormat => "0." + new string('0', Decimals) + "E+00";
+
     /// <summary>Plain text with an ASCII minus (what CSV carries and what parses back).</summary>
     public string Plain => Kind switch
     {
         CellKind.Fixed => Number!.Value.ToString("F" + Decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture),
-        CellKind.Scientific => Number!.Value.ToString("0.00E+00", CultureInfo.InvariantCulture),
+        CellKind.Scientific => Number!.Value.ToString(ScientificFormat, CultureInfo.InvariantCulture),
         CellKind.Imaginary => Number!.Value.ToString("F0", CultureInfo.InvariantCulture),
         _ => Text,
     };
 }
 
-/// <summary>A column header in the three notations the writers need.</summary>
-public sealed record TableHeader(ExportColumn Column, string Plain, string Latex, string Markdown, bool Numeric);
+/// <summary>A column header in the three notations the writers need; <see cref="Column"/> is null for a table that is not a barrier table (kinetics).</summary>
+public sealed record TableHeader(ExportColumn? Column, string Plain, string Latex, string Markdown, bool Numeric);
 
 /// <summary>A formatted row: its cells (one per chosen column) and the marks of its footnotes.</summary>
 public sealed record TableRow(IReadOnlyList<TableCell> Cells, IReadOnlyList<string> Marks);
@@ -67,6 +70,9 @@ public sealed record BarrierTable(
 {
     /// <summary>Header of the marks column that every format appends.</summary>
     public const string NoteHeader = "Note";
+
+    /// <summary>Name of the XLSX sheet (the kinetics tables name theirs).</summary>
+    public string SheetName { get; init; } = XlsxTableWriter.SheetName;
 
     /// <summary>
     /// Builds the table. Energies are converted from hartree and rounded half away from zero to <see cref="TableOptions.Decimals"/>
@@ -187,6 +193,10 @@ public sealed record BarrierTable(
         _ => throw new ArgumentOutOfRangeException(nameof(c), c, "Unknown column."),
     };
 
+    /// <summary>A number rounded to <paramref name="decimals"/> places (half away from zero), e.g. a percentage.</summary>
+    internal static TableCell FixedCell(double x, int decimals) =>
+        new(CellKind.Fixed, "", Math.Round(x, decimals, MidpointRounding.AwayFromZero), decimals);
+
     private static TableCell EnergyCell(Energy? e, TableOptions o)
     {
         if (e is not { } v || !double.IsFinite(v.Hartree)) return TableCell.Empty;
@@ -195,13 +205,15 @@ public sealed record BarrierTable(
         return new TableCell(CellKind.Fixed, "", rounded, o.Decimals);
     }
 
-    private static TableCell ScientificCell(double? x)
+    /// <summary>A positive quantity to 1 + <paramref name="decimals"/> significant digits (three unless asked; empty when there is none, it is not finite or not positive).</summary>
+    internal static TableCell ScientificCell(double? x, int decimals = 2)
     {
         if (x is not { } v || !double.IsFinite(v) || v <= 0) return TableCell.Empty;
         var exponent = (int)Math.Floor(Math.Log10(v));
-        var mantissa = Math.Round(v / Math.Pow(10, exponent), 2, MidpointRounding.AwayFromZero);
+        var mantissa = Math.Round(v / Math.Pow(10, exponent), decimals, MidpointRounding.AwayFromZero);
         if (mantissa >= 10) { mantissa /= 10; exponent++; }
-        var number = double.Parse($"{mantissa.ToString("0.00", CultureInfo.InvariantCulture)}E{exponent.ToString(CultureInfo.InvariantCulture)}", CultureInfo.InvariantCulture);
-        return new TableCell(CellKind.Scientific, "", number, 2, mantissa, exponent);
+        var digits = "0." + new string('0', decimals);
+        var number = double.Parse($"{mantissa.ToString(digits, CultureInfo.InvariantCulture)}E{exponent.ToString(CultureInfo.InvariantCulture)}", CultureInfo.InvariantCulture);
+        return new TableCell(CellKind.Scientific, "", number, decimals, mantissa, exponent);
     }
 }

@@ -1,5 +1,6 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Reviews;
 using BarrierLedger.Ledger.Derivation;

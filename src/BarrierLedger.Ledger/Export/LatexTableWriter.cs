@@ -49,7 +49,7 @@ public static class LatexTableWriter
     internal static string Format(TableCell c) => c.Bounds is not null ? c.Join(Format) : c.Kind switch
     {
         CellKind.Fixed => c.Number < 0 ? "$-$" + c.Plain[1..] : c.Plain,
-        CellKind.Scientific => $"${c.Mantissa.ToString("0.00", CultureInfo.InvariantCulture)} \\times 10^{{{c.Exponent.ToString(CultureInfo.InvariantCulture)}}}$",
+        CellKind.Scientific => $"${c.Mantissa.ToString("0." + new string('0', c.Decimals), CultureInfo.InvariantCulture)} \\times 10^{{{c.Exponent.ToString(CultureInfo.InvariantCulture)}}}$",
         CellKind.Imaginary => c.Plain + "$i$",
         CellKind.Empty => "--",
         _ => Escape(c.Text),

@@ -32,7 +32,7 @@ public static class MarkdownTableWriter
     internal static string Format(TableCell c) => c.Bounds is not null ? c.Join(Format) : c.Kind switch
     {
         CellKind.Fixed => c.Plain.Replace('-', '\u2212'),
-        CellKind.Scientific => $"{c.Mantissa.ToString("0.00", CultureInfo.InvariantCulture)}×10{Superscript(c.Exponent)}",
+        CellKind.Scientific => $"{c.Mantissa.ToString("0." + new string('0', c.Decimals), CultureInfo.InvariantCulture)}×10{Superscript(c.Exponent)}",
         CellKind.Imaginary => c.Plain + "i",
         CellKind.Empty => "–",
         _ => Escape(c.Text),

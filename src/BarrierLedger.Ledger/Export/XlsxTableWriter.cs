@@ -27,7 +27,7 @@ public static class XlsxTableWriter
         for (var c = 0; c < columns; c++) options.Column(c + 1).Width = Math.Clamp(widths[c] + 2, 6, 60);
 
         await using var book = await Spreadsheet.CreateNewAsync(destination, cancellationToken: ct).ConfigureAwait(false);
-        await book.StartWorksheetAsync(SheetName, options, ct).ConfigureAwait(false);
+        await book.StartWorksheetAsync(table.SheetName, options, ct).ConfigureAwait(false);
         var bold = book.AddStyle(new Style { Font = { Bold = true } });
         var italic = book.AddStyle(new Style { Font = { Italic = true } });
         var header = book.AddStyle(new Style
@@ -65,7 +65,7 @@ public static class XlsxTableWriter
                 cells[c] = v.Kind switch
                 {
                     CellKind.Fixed => new Cell(v.Number!.Value, Format(v.Decimals == 0 ? "0" : "0." + new string('0', v.Decimals), last)),
-                    CellKind.Scientific => new Cell(v.Number!.Value, Format("0.00E+00", last)),
+                    CellKind.Scientific => new Cell(v.Number!.Value, Format(v.ScientificFormat, last)),
                     CellKind.Imaginary => new Cell(v.Number!.Value, Format("0\"i\"", last)),
                     // An empty cell stays empty (no value), with the rule under the last row.
                     CellKind.Empty => last ? new Cell((string?)null, lastRowText) : new Cell((string?)null),
@@ -107,7 +107,7 @@ public static class XlsxTableWriter
                 var chars = v.Kind switch
                 {
                     CellKind.Fixed => v.Plain.Length + 1,
-                    CellKind.Scientific => 10,
+                    CellKind.Scientific => v.Decimals + 8,
                     CellKind.Imaginary => v.Plain.Length + 2,
                     CellKind.Empty => 0,
                     _ => v.Text.Length,

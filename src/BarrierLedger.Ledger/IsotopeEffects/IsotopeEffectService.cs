@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Globalization;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.IsotopeEffects;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Auditing;

@@ -1,5 +1,6 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Core.Vibrations;

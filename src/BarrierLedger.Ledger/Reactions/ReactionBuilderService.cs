@@ -2,6 +2,7 @@ using BarrierLedger.Core.Checks;
 using System.Globalization;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;

@@ -80,7 +80,7 @@ public sealed class ReactionBundleService(IDbContextFactory<LedgerDbContext> fac
         }).ToImmutableArray();
 
         var bundleReaction = new BundleReaction(reaction.Label, reaction.Description, [.. states.Select(s => new BundleState(s.Label,
-            s.Kind == StateKind.SaddlePoint ? BundleStateKind.SaddlePoint : BundleStateKind.Minimum,
+            s.Kind,
             [.. s.Terms.OrderBy(t => t.Id).Select(t => new BundleTerm(speciesLabel[t.SpeciesId], t.Coefficient))],
             s.SaddleCalculationId is { } cid ? calcLabels[cid] : null,
             [.. s.CoordinatePairs.OrderBy(p => p.Id).Select(p => new BundleAtomPair(p.AtomA, p.AtomB))]))], ReactionDefinition.ReadKinetics(reaction.Kinetics));

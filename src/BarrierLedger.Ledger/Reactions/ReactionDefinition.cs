@@ -1,6 +1,7 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
 using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
 

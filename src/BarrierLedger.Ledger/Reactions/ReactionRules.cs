@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Records;
 
 namespace BarrierLedger.Ledger.Reactions;

@@ -1,5 +1,6 @@
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Records;
 

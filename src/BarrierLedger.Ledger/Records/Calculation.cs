@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Ledger.Reviews;
 
 namespace BarrierLedger.Ledger.Records;
 
@@ -59,6 +60,14 @@ public class Calculation : IVersioned, IRetirable
     public string Note { get; set; } = "";
     public string UploadedByUserId { get; set; } = "";
     public DateTimeOffset UploadedAt { get; set; }
+
+    /// <summary>
+    /// Where this saddle point stands in review: the state its newest <see cref="Review"/> entry leads to
+    /// (<see cref="ReviewStates.After"/>), kept by the ledger whenever an entry is written, so the review queue finds the waiting
+    /// saddle points without reading every history. The history stays the truth; this is its summary. Not a user edit: writing
+    /// it does not bump <see cref="Version"/>.
+    /// </summary>
+    public ReviewState ReviewState { get; set; } = ReviewState.AwaitingReview;
 
     public bool Retired { get; set; }
     public DateTimeOffset? RetiredAt { get; set; }

@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Checks;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Reviews;
 
 namespace BarrierLedger.Ledger.Records;
@@ -33,13 +34,6 @@ public class Reaction : IVersioned, IRetirable
 
     public List<ReactionState> States { get; set; } = [];
     public ReactionDerivation? Derivation { get; set; }
-}
-
-/// <summary>Whether a state is a minimum or a saddle point.</summary>
-public enum StateKind
-{
-    Minimum,
-    SaddlePoint,
 }
 
 /// <summary>One state of a pathway ("A + B", "TS1"): a sum of species with coefficients.</summary>

@@ -1,5 +1,6 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Derivation;
@@ -18,8 +19,15 @@ public sealed record ReviewQueueItem(
     int StudyId, string StudyName, string UploadedByUserId, string UploadedByName, DateTimeOffset UploadedAt,
     Verdict? Verdict, IReadOnlyList<CheckReason> Reasons, CheckEvidence? Evidence, bool PreviouslyReviewed);
 
-/// <summary>One page of the review queue and the number of saddle points waiting in all.</summary>
-public sealed record ReviewQueueSlice(IReadOnlyList<ReviewQueueItem> Items, int Total);
+/// <summary>Where a page of the review queue starts: after this saddle point (its calculation, then its state), in queue order.</summary>
+public sealed record ReviewQueueKey(int CalculationId, int StateId);
+
+/// <summary>
+/// One page of the review queue. <see cref="Total"/> is the number of saddle points waiting in all, counted up to
+/// <see cref="ReviewService.CountLimit"/>: when more wait, <see cref="MoreThanTotal"/> is set and the page says "more than".
+/// <see cref="Next"/> is where the following page starts, or null on the last page.
+/// </summary>
+public sealed record ReviewQueueSlice(IReadOnlyList<ReviewQueueItem> Items, int Total, bool MoreThanTotal, ReviewQueueKey? Next);
 
 /// <summary>
 /// The decision a reviewer makes is based on what they saw: <see cref="Waiting"/> (the saddle point had no decision, or was
@@ -44,32 +52,40 @@ public sealed class ReviewerRequiredException(string message) : UnauthorizedAcce
 /// </summary>
 public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, AuditService audit, TimeProvider time)
 {
-    /// <summary>Saddle points in use by a live reaction whose current calculation has no verdict yet, oldest upload first.</summary>
+    /// <summary>The queue's total is counted up to this many saddle points (beyond it the page says "more than"), so that
+    /// opening the queue costs the same whatever the size of the ledger.</summary>
+    public const int CountLimit = 1000;
+
+    /// <summary>Saddle points in use by a live reaction whose current calculation has no verdict yet, oldest upload first (the whole queue, for tools and tests).</summary>
     public async Task<IReadOnlyList<ReviewQueueItem>> QueueAsync(int? studyId = null, CancellationToken ct = default) =>
-        (await QueuePageAsync(0, int.MaxValue, studyId, ct)).Items;
+        (await QueuePageAsync(null, int.MaxValue, studyId, ct)).Items;
 
     /// <summary>
-    /// One page of the queue, oldest first, with the queue's total length. Which saddle points wait, their order and the
-    /// count are decided in the database; only the page's items are read in full (reasons and evidence), so a queue of
-    /// thousands costs a reviewer's screen one page.
+    /// One page of the queue in queue order (calculation id, then state id: the order of upload), starting after
+    /// <paramref name="after"/> (null: the first page), with the number waiting (see <see cref="ReviewQueueSlice"/>). Which
+    /// saddle points wait is read from each calculation's stored <see cref="Calculation.ReviewState"/>, the page is found by
+    /// its key in the (calculation, state) index instead of by skipping rows, and only the page's items are read in full
+    /// (reasons and evidence): a queue of tens of thousands costs a reviewer's screen one page.
     /// </summary>
-    public async Task<ReviewQueueSlice> QueuePageAsync(int skip, int take, int? studyId = null, CancellationToken ct = default)
+    public Task<ReviewQueueSlice> QueuePageAsync(ReviewQueueKey? after, int take, int? studyId = null, CancellationToken ct = default) =>
+        QueuePageAsync(after, take, studyId, CountLimit, ct);
+
+    internal async Task<ReviewQueueSlice> QueuePageAsync(ReviewQueueKey? after, int take, int? studyId, int countLimit, CancellationToken ct)
     {
-        ArgumentOutOfRangeException.ThrowIfNegative(skip);
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(take);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(countLimit);
         await using var db = await factory.CreateDbContextAsync(ct);
         var q = db.ReactionStates.AsNoTracking()
             .Where(s => s.Kind == StateKind.SaddlePoint && s.SaddleCalculationId != null && !s.Reaction!.Retired && !s.Reaction.Study!.Retired
-                        && !s.SaddleCalculation!.Retired);
+                        && !s.SaddleCalculation!.Retired
+                        && (s.SaddleCalculation.ReviewState == ReviewState.AwaitingReview || s.SaddleCalculation.ReviewState == ReviewState.Reopened));
         if (studyId is { } sid) q = q.Where(s => s.Reaction!.StudyId == sid);
-        // Waiting: never reviewed, or its latest review reopened it.
-        q = q.Where(s => db.Reviews.Where(v => v.CalculationId == s.SaddleCalculationId).OrderByDescending(v => v.Id)
-                             .Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefault() == null
-                         || db.Reviews.Where(v => v.CalculationId == s.SaddleCalculationId).OrderByDescending(v => v.Id)
-                             .Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefault() == ReviewOutcome.Reopened);
-        var total = await q.CountAsync(ct);
-        var ordered = q.OrderBy(s => s.SaddleCalculationId).ThenBy(s => s.Id).Skip(skip);
-        if (take < int.MaxValue) ordered = ordered.Take(take);
+        var whole = take == int.MaxValue;
+        var counted = whole ? -1 : await q.Take(countLimit + 1).CountAsync(ct);
+        if (after is { } key)
+            q = q.Where(s => s.SaddleCalculationId > key.CalculationId || (s.SaddleCalculationId == key.CalculationId && s.Id > key.StateId));
+        var ordered = q.OrderBy(s => s.SaddleCalculationId).ThenBy(s => s.Id).AsQueryable();
+        if (!whole) ordered = ordered.Take(take + 1); // one more than the page: tells whether a next page exists
         var rows = await ordered.Select(s => new
         {
             CalcId = s.SaddleCalculationId!.Value,
@@ -84,15 +100,25 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
             s.SaddleCalculation.UploadedByUserId,
             UploaderName = db.Users.Where(u => u.Id == s.SaddleCalculation.UploadedByUserId).Select(u => u.DisplayName).FirstOrDefault(),
             s.SaddleCalculation.UploadedAt,
-            Earlier = db.Reviews.Any(v => v.Calculation!.SpeciesId == s.SaddleCalculation.SpeciesId && v.Calculation.Kind == CalculationKind.SaddlePoint),
-            Check = db.FrequencyChecks.Where(c => c.CalculationId == s.SaddleCalculationId).Select(c => new { c.Verdict, c.ReasonsJson, c.EvidenceJson }).FirstOrDefault(),
+            // Reviewed before: a saddle-point calculation of the species has a review entry, i.e. a stored state other than
+            // "awaiting review" (every entry leads elsewhere); read through the (species, kind) index, not the review history.
+            Earlier = db.Calculations.Any(c => c.SpeciesId == s.SaddleCalculation.SpeciesId && c.Kind == CalculationKind.SaddlePoint
+                                               && c.ReviewState != ReviewState.AwaitingReview),
         }).ToListAsync(ct);
-        IReadOnlyList<ReviewQueueItem> items = [.. rows.Select(r => new ReviewQueueItem(
-            r.CalcId, r.CalcLabel, r.LevelOfTheory, r.StateId, r.StateLabel, r.ReactionId, r.ReactionLabel, r.StudyId, r.StudyName,
-            r.UploadedByUserId, string.IsNullOrEmpty(r.UploaderName) ? r.UploadedByUserId : r.UploaderName, r.UploadedAt,
-            r.Check?.Verdict, r.Check is null ? [] : DerivedJson.Read<List<CheckReason>>(r.Check.ReasonsJson),
-            r.Check is null ? null : DerivedJson.Read<CheckEvidence>(r.Check.EvidenceJson), r.Earlier))];
-        return new ReviewQueueSlice(items, total);
+        var more = !whole && rows.Count > take;
+        if (more) rows.RemoveAt(rows.Count - 1);
+        // The page's checks by their (unique) calculation index, in a second round trip: as a subquery of the page EF joins a
+        // numbering of every check in the ledger instead.
+        var calcIds = rows.Select(r => r.CalcId).Distinct().ToList();
+        var checks = await db.FrequencyChecks.AsNoTracking().Where(c => EF.Parameter(calcIds).Contains(c.CalculationId))
+            .Select(c => new { c.CalculationId, c.Verdict, c.ReasonsJson, c.EvidenceJson }).ToDictionaryAsync(c => c.CalculationId, ct);
+        IReadOnlyList<ReviewQueueItem> items = [.. rows.Select(r => (Row: r, Check: checks.GetValueOrDefault(r.CalcId))).Select(x => new ReviewQueueItem(
+            x.Row.CalcId, x.Row.CalcLabel, x.Row.LevelOfTheory, x.Row.StateId, x.Row.StateLabel, x.Row.ReactionId, x.Row.ReactionLabel, x.Row.StudyId, x.Row.StudyName,
+            x.Row.UploadedByUserId, string.IsNullOrEmpty(x.Row.UploaderName) ? x.Row.UploadedByUserId : x.Row.UploaderName, x.Row.UploadedAt,
+            x.Check?.Verdict, x.Check is null ? [] : DerivedJson.Read<List<CheckReason>>(x.Check.ReasonsJson),
+            x.Check is null ? null : DerivedJson.Read<CheckEvidence>(x.Check.EvidenceJson), x.Row.Earlier))];
+        return whole ? new ReviewQueueSlice(items, items.Count, false, null)
+            : new ReviewQueueSlice(items, Math.Min(counted, countLimit), counted > countLimit, more ? new ReviewQueueKey(items[^1].CalculationId, items[^1].StateId) : null);
     }
 
     /// <summary>
@@ -154,7 +180,7 @@ public sealed class ReviewService(IDbContextFactory<LedgerDbContext> factory, Au
                     : $"Saddle point '{calc.Label}' was {latest.Outcome.ToString().ToLowerInvariant()} by {who} at {latest.At:yyyy-MM-dd HH:mm} UTC while you were deciding; nothing was recorded. Reload to see it as it is now.");
             }
             var review = new Review { CalculationId = calculationId, Outcome = outcome, Comment = comment.Trim(), ReviewerUserId = reviewerUserId, At = time.GetUtcNow() };
-            db.Reviews.Add(review);
+            await ReviewStates.RecordAsync(db, review, token);
             audit.Record(db, reviewerUserId, outcome == ReviewOutcome.Verified ? "review.verified" : "review.returned", nameof(Calculation), calculationId,
                 $"Saddle point '{calc.Label}' {(outcome == ReviewOutcome.Verified ? selfReview ? "verified by its own uploader (self-review)" : "verified" : "returned")}" + (comment.Length > 0 ? $": {comment.Trim()}" : "."),
                 before: ReviewStates.Text(ReviewStates.After(previous)), after: ReviewStates.Text(ReviewStates.After(outcome)));

@@ -5,8 +5,9 @@ using Microsoft.EntityFrameworkCore;
 namespace BarrierLedger.Ledger.Reviews;
 
 /// <summary>
-/// Where a saddle point stands in review. The state is never stored for a calculation: it is the state the calculation's
-/// latest <see cref="Review"/> entry leads to (<see cref="ReviewStates.After"/>), so the history is the single truth.
+/// Where a saddle point stands in review: the state the calculation's latest <see cref="Review"/> entry leads to
+/// (<see cref="ReviewStates.After"/>), so the history is the single truth. <see cref="Calculation.ReviewState"/> holds it as a
+/// summary, written in the same transaction as every entry (<see cref="ReviewStates.RecordAsync"/>), for the review queue.
 /// A reaction's state combines its saddle points' states (<see cref="ReviewStates.Combine"/>). docs/ledger.md, "Review
 /// states", draws the machine.
 /// </summary>
@@ -81,7 +82,19 @@ public static class ReviewStates
         var last = await db.Reviews.Where(v => v.CalculationId == calculationId).OrderByDescending(v => v.Id)
             .Select(v => (ReviewOutcome?)v.Outcome).FirstOrDefaultAsync(ct);
         if (last is not (ReviewOutcome.Verified or ReviewOutcome.Returned)) return null;
-        db.Reviews.Add(new Review { CalculationId = calculationId, Outcome = ReviewOutcome.Reopened, ReviewerUserId = userId, At = at, Comment = comment });
+        await RecordAsync(db, new Review { CalculationId = calculationId, Outcome = ReviewOutcome.Reopened, ReviewerUserId = userId, At = at, Comment = comment }, ct);
         return last;
+    }
+
+    /// <summary>
+    /// Adds a review entry (saved with the caller's transaction) and sets the calculation's stored
+    /// <see cref="Calculation.ReviewState"/> to the state it leads to, at once and without bumping the calculation's version
+    /// (a review is not an edit of the calculation). The only way entries are written.
+    /// </summary>
+    internal static async Task RecordAsync(LedgerDbContext db, Review review, CancellationToken ct)
+    {
+        db.Reviews.Add(review);
+        var state = After(review.Outcome);
+        await db.Calculations.Where(c => c.Id == review.CalculationId).ExecuteUpdateAsync(u => u.SetProperty(c => c.ReviewState, state), ct);
     }
 }

@@ -52,7 +52,7 @@ internal static class BundleImport
                 c.ThermalCorrections?.GibbsHartree, FileKey(c.File), c.Note, c.Conformer));
         foreach (var r in b.Reactions)
             draft.Reactions.Add(new DraftReaction(r.Label, r.Description, [.. r.States.Select(s => new DraftState(s.Label,
-                s.Kind == BundleStateKind.SaddlePoint ? StateKind.SaddlePoint : StateKind.Minimum,
+                s.Kind,
                 [.. s.Terms.Select(t => new DraftTerm(t.Species, t.Coefficient))], s.Calculation,
                 [.. s.ReactionCoordinate.Select(p => (p.First, p.Second))]))], r.Kinetics));
         foreach (var s in b.Scans)

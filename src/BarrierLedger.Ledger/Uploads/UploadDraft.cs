@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Vibrations;
 using BarrierLedger.Ledger.Records;

@@ -9,6 +9,12 @@ public sealed class UploadReadOptions
     /// <summary>Seconds an upload waits for a turn before it is answered "busy, try again". Default 60 (a waiting upload holds
     /// only its own bytes; small uploads queue behind a large one instead of being refused).</summary>
     public double WaitSeconds { get; set; } = 60;
+
+    /// <summary>
+    /// Storage quota per user in MiB ("BarrierLedger:Uploads:UserQuotaMiB"): the original files one user may store in all. An upload
+    /// that would take a user past it is refused whole. 0 or less: no quota. Default 2048 (2 GiB).
+    /// </summary>
+    public long UserQuotaMiB { get; set; } = 2048;
 }
 
 /// <summary>The server is reading as many uploads as it reads at once; the message says so and when to try again.</summary>

@@ -2,6 +2,7 @@ using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Formats;
 using BarrierLedger.Core.Geometry;
 using BarrierLedger.Core.Paths;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Vibrations;
 using BarrierLedger.Ledger.Reactions;
 using BarrierLedger.Ledger.Records;

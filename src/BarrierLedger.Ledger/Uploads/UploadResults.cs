@@ -74,5 +74,8 @@ public sealed record UploadOutcome(
     /// </summary>
     public string? KeyConflict { get; init; }
 
+    /// <summary>Set (with <see cref="Stored"/> false) when the upload would take its uploader past the storage quota. Nothing was written.</summary>
+    public QuotaRefusal? QuotaRefusal { get; init; }
+
     internal static UploadOutcome Failed(IEnumerable<UploadIssue> issues) => new(false, null, null, [], [], [], [], [.. issues]);
 }

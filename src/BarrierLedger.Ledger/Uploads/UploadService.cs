@@ -18,10 +18,11 @@ namespace BarrierLedger.Ledger.Uploads;
 /// <summary>
 /// The upload workflow: read files (Core readers) into a draft, match it against the store, show a preview, and store it
 /// as one transaction with its original files. Any error: nothing is written and every error is returned at once. A
-/// calculation already stored from the same file for the same species is reported and not stored twice.
+/// calculation already stored from the same file for the same species is reported and not stored twice. An upload that would take
+/// its uploader past the storage quota (<see cref="StorageQuota"/>) is refused whole.
 /// </summary>
 public sealed class UploadService(
-    IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time, UploadGate gate)
+    IDbContextFactory<LedgerDbContext> factory, DerivationService derivation, AuditService audit, TimeProvider time, UploadGate gate, StorageQuota quota)
 {
     /// <summary>Reads and checks the files against the store; writes nothing.</summary>
     public async Task<UploadPreview> PreviewAsync(IReadOnlyList<UploadFile> files, UploadChoices choices, CancellationToken ct = default)
@@ -78,6 +79,8 @@ public sealed class UploadService(
             }
             var plan = await UploadPlan.ResolveAsync(db, draft, choices, token);
             if (plan.Issues.Any(i => i.IsError)) return UploadOutcome.Failed(plan.Issues);
+            if (await quota.CheckAsync(db, uploaderUserId, plan.FileSha, draft.Files, token) is { } refusal)
+                return UploadOutcome.Failed(plan.Issues) with { QuotaRefusal = refusal };
             var outcome = await WriteAsync(db, plan, key, content, uploaderUserId, token);
             await tx.CommitAsync(token);
             return outcome;

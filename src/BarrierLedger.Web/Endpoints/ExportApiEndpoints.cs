@@ -11,18 +11,18 @@ internal static class ExportApiEndpoints
         api.MapGet("/studies/{studyId:int}/exports/table", async (int studyId, string? format, string? unit, int? decimals, ExportService exports, CancellationToken ct) =>
             {
                 if (!TryEnum(format ?? "csv", out TableFormat f)) return ApiProblems.BadRequest($"format '{format}' is not one of {string.Join(", ", Enum.GetNames<TableFormat>())}.");
-                if (!TryEnum(unit ?? "KcalPerMol", out EnergyUnit u)) return ApiProblems.BadRequest($"unit '{unit}' is not one of {string.Join(", ", Enum.GetNames<EnergyUnit>())}.");
+                if (!BarrierUnits.TryParse(unit, out var u, out var why)) return ApiProblems.BadRequest($"unit: {why}");
                 if (decimals is < 0 or > 6) return ApiProblems.BadRequest("decimals must be between 0 and 6.");
                 return await FileAsync(() => exports.TableAsync(studyId, null, f, TableOptions.Default with { Unit = u, Decimals = decimals ?? 1 }, ct));
             })
             .RequireApi(ApiPolicies.Read).WithName("ExportTable")
-            .WithSummary("Barrier table of a study: ?format=Csv|Xlsx|Latex|Markdown, &unit=KcalPerMol|KJPerMol|ElectronVolt|Hartree|Wavenumber, &decimals=1");
+            .WithSummary("Barrier table of a study: ?format=Csv|Xlsx|Latex|Markdown, &unit=kcal/mol|kJ/mol|eV|hartree (or KcalPerMol|KJPerMol|ElectronVolt|Hartree; not a wavenumber), &decimals=1");
 
         api.MapGet("/reactions/{reactionId:int}/exports/diagram", async (int reactionId, string? format, string? quantity, string? unit, int? decimals, ExportService exports, CancellationToken ct) =>
             {
                 var q = (quantity ?? "G").ToUpperInvariant() switch { "G" => "ΔG", "H" => "ΔH", "E" => "ΔE", _ => null };
                 if (q is null) return ApiProblems.BadRequest($"quantity '{quantity}' is not one of G, H, E.");
-                if (!TryEnum(unit ?? "KcalPerMol", out EnergyUnit u)) return ApiProblems.BadRequest($"unit '{unit}' is not one of {string.Join(", ", Enum.GetNames<EnergyUnit>())}.");
+                if (!BarrierUnits.TryParse(unit, out var u, out var why)) return ApiProblems.BadRequest($"unit: {why}");
                 var png = string.Equals(format, "png", StringComparison.OrdinalIgnoreCase);
                 if (!png && format is not null && !string.Equals(format, "svg", StringComparison.OrdinalIgnoreCase)) return ApiProblems.BadRequest($"format '{format}' is not one of svg, png.");
                 return await FileAsync(async () =>

@@ -1,9 +1,12 @@
 using System.Globalization;
+using System.Security.Claims;
 using BarrierLedger.Core.Units;
+using BarrierLedger.Ledger.Auditing;
 using BarrierLedger.Ledger.Backups;
 using BarrierLedger.Ledger.Export;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Storage;
+using BarrierLedger.Ledger.Uploads;
 using BarrierLedger.Web.Components.Account;
 using Microsoft.AspNetCore.Authorization;
 using Microsoft.AspNetCore.Identity;
@@ -67,7 +70,7 @@ public static class ExportEndpoints
             if (!int.TryParse(r, NumberStyles.Integer, CultureInfo.InvariantCulture, out var id)) return ApiProblems.BadRequest($"reaction id '{r}' is not a number.");
             ids.Add(id);
         }
-        if (!TryUnit(unit, out var u)) return ApiProblems.BadRequest($"unit must be KcalPerMol, KJPerMol, ElectronVolt or Hartree, not '{unit}'.");
+        if (!BarrierUnits.TryParse(unit, out var u, out var why)) return ApiProblems.BadRequest($"unit: {why}");
         var options = new TableOptions(cols.Count == 0 ? TableOptions.DefaultColumns : cols, u, decimals ?? 1);
         return File(await export.TableAsync(study, reactions is null ? null : ids, f, options, ct));
     });
@@ -76,33 +79,34 @@ public static class ExportEndpoints
     {
         if (format is not ("svg" or "png")) return ApiProblems.BadRequest($"a diagram is svg or png, not '{format}'.");
         if (quantity is not (null or "G" or "H" or "E")) return ApiProblems.BadRequest($"quantity must be G, H or E, not '{quantity}'.");
-        if (!TryUnit(unit, out var u)) return ApiProblems.BadRequest($"unit must be KcalPerMol, KJPerMol, ElectronVolt or Hartree, not '{unit}'.");
+        if (!BarrierUnits.TryParse(unit, out var u, out var why)) return ApiProblems.BadRequest($"unit: {why}");
         var (svg, png) = await export.DiagramAsync(reactionId, "Δ" + (quantity ?? "G"), u, decimals ?? 1, ct);
         return File(format == "svg" ? svg : png);
     });
 
-    private static async Task<IResult> BackupAsync(BackupService backup, HttpContext http, CancellationToken ct)
+    /// <summary>The admin's backup download; each one is audited (who, when, the archive's size), since a backup holds the whole ledger.</summary>
+    private static async Task<IResult> BackupAsync(BackupService backup, AuditService audit, HttpContext http, CancellationToken ct)
     {
         var ms = new MemoryStream();
+        BackupManifest manifest;
         try
         {
-            await backup.CreateArchiveAsync(ms, ct);
+            manifest = await backup.CreateArchiveAsync(ms, ct);
         }
         catch (NotSupportedException ex) // a PostgreSQL ledger: backed up with pg_dump, not as this archive
         {
             return ApiProblems.Problem(StatusCodes.Status409Conflict, "not-exportable", "Cannot export", ex.Message);
         }
+        var name = $"barrierledger-backup-{manifest.CreatedAt.UtcDateTime:yyyyMMdd-HHmmss}.zip";
+        var user = http.User.FindFirstValue(ClaimTypes.NameIdentifier)!;
+        await audit.RecordAsync(user, BackupDownloaded, "Backup", name,
+            $"Backup {name} downloaded: {ms.Length.ToString(CultureInfo.InvariantCulture)} bytes ({StorageQuota.Format(ms.Length)}), the database and {manifest.Files.Count} stored file(s).", ct);
         ms.Position = 0;
-        return Results.File(ms, "application/zip", $"barrierledger-backup-{DateTime.UtcNow:yyyyMMdd-HHmmss}.zip");
+        return Results.File(ms, "application/zip", name);
     }
 
-    private static bool TryUnit(string? text, out EnergyUnit unit)
-    {
-        unit = EnergyUnit.KcalPerMol;
-        if (string.IsNullOrEmpty(text)) return true;
-        return (Enum.TryParse(text, true, out unit) && Enum.IsDefined(unit) && unit != EnergyUnit.Wavenumber)
-            || (Energy.TryParseUnit(text, out unit) && unit != EnergyUnit.Wavenumber);
-    }
+    /// <summary>The audit action of a backup download.</summary>
+    public const string BackupDownloaded = "backup.downloaded";
 
     private static IResult File(ExportFile f) => Results.File(f.Content, f.ContentType, f.FileName);
 

@@ -52,7 +52,8 @@ internal static class UploadEndpoints
                 "and optional fields study, studyId, species, kind, level, charge, multiplicity, scanAtoms (e.g. '2,3'), attachToState, " +
                 "ircOf (the saddle-point calculation label that the XYZ files are an IRC of: one file = path, two = forward/backward ends), uploadKey. " +
                 "The Idempotency-Key header (or uploadKey) makes a retried upload store nothing twice; a key belongs to its user, and the same key " +
-                "with other files or choices is refused with 409 (idempotency-key-reused).");
+                "with other files or choices is refused with 409 (idempotency-key-reused). An upload that would take the user past the storage quota " +
+                "(BarrierLedger:Uploads:UserQuotaMiB) is refused with 413 (storage-quota-exceeded, with quotaBytes, usedBytes and uploadBytes).");
 
         api.MapPost("/uploads/preview", PreviewAsync)
             .RequireApi(ApiPolicies.Read)
@@ -76,6 +77,9 @@ internal static class UploadEndpoints
         catch (UploadsBusyException busy) { return Busy(request, busy); }
         if (outcome.KeyConflict is { } clash)
             return ApiProblems.Problem(StatusCodes.Status409Conflict, "idempotency-key-reused", "Upload key already used for other content", clash);
+        if (outcome.QuotaRefusal is { } quota)
+            return ApiProblems.Problem(StatusCodes.Status413PayloadTooLarge, "storage-quota-exceeded", "Storage quota reached", quota.Message,
+                new Dictionary<string, object?> { ["quotaBytes"] = quota.QuotaBytes, ["usedBytes"] = quota.UsedBytes, ["uploadBytes"] = quota.UploadBytes });
         if (!outcome.Stored) return ApiProblems.UploadRejected(outcome.Issues);
         var again = outcome.AlreadyStored;
         var body = new UploadResponse(true, again, outcome.UploadId, outcome.StudyId, outcome.CalculationIds, outcome.ReactionIds, outcome.ScanIds,

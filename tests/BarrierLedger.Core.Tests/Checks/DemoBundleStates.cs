@@ -1,6 +1,7 @@
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Formats;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Tests.Formats;
 using BarrierLedger.Core.Vibrations;
 
@@ -27,7 +28,7 @@ internal static class DemoBundleStates
             for (var i = 1; i < r.States.Length - 1; i++)
             {
                 var s = r.States[i];
-                if (s.Kind != BundleStateKind.SaddlePoint) continue;
+                if (s.Kind != StateKind.SaddlePoint) continue;
                 var calc = Bundle.Calculations.Single(c => c.Label == s.Calculation);
                 var spectators = s.Terms.Where(t => t.Species != calc.Species).ToList();
                 yield return (r.Label, s.Label, calc, Structure(r.States[i - 1], spectators), Structure(r.States[i + 1], spectators));

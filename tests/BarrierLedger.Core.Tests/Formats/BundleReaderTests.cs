@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Thermochemistry;
 using BarrierLedger.Core.Conformers;
 using System.IO.Compression;
@@ -129,7 +130,7 @@ public class BundleReaderTests
         var reaction = Assert.Single(b.Reactions);
         Assert.Equal(["CH3 + H2", "TS1", "CH4 + H"], reaction.States.Select(s => s.Label));
         var tsState = reaction.States[1];
-        Assert.Equal(BundleStateKind.SaddlePoint, tsState.Kind);
+        Assert.Equal(StateKind.SaddlePoint, tsState.Kind);
         Assert.Equal("TS1-opt", tsState.Calculation);
         Assert.Equal([new BundleAtomPair(1, 5), new BundleAtomPair(5, 6)], tsState.ReactionCoordinate.ToArray());
         Assert.Equal(1, reaction.States[0].Terms[1].Coefficient);

@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Kinetics;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Tests.Support;
 using BarrierLedger.Core.Units;
 
@@ -7,8 +8,8 @@ namespace BarrierLedger.Core.Tests.Kinetics;
 // Energetic-span model: S. Kozuch and S. Shaik, Acc. Chem. Res. 2011, 44, 101.
 public class EnergeticSpanTests
 {
-    private static CycleState I(string label, double kcal) => new(label, Energy.FromKcalPerMol(kcal), CycleStateKind.Intermediate);
-    private static CycleState T(string label, double kcal) => new(label, Energy.FromKcalPerMol(kcal), CycleStateKind.TransitionState);
+    private static CycleState I(string label, double kcal) => new(label, Energy.FromKcalPerMol(kcal), StateKind.Minimum);
+    private static CycleState T(string label, double kcal) => new(label, Energy.FromKcalPerMol(kcal), StateKind.SaddlePoint);
 
     // Hand derivation (kcal/mol, 298.15 K, RT = 0.592485): cycle I1 0 → T1 15 → I2 −5 → T2 12 → (I1 − 20), ΔG_r = −20.
     // Spans: T1/I1 (T after I) 15; T1/I2 (T before I) 15 + 5 − 20 = 0; T2/I1 (after) 12; T2/I2 (after) 12 + 5 = 17.

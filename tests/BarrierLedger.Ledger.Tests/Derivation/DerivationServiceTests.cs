@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Ledger.Derivation;

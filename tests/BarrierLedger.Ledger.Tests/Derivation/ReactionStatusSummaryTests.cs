@@ -1,6 +1,7 @@
 using System.Text;
 using BarrierLedger.Core.Checks;
 using BarrierLedger.Core.Chemistry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Queries;

@@ -12,7 +12,6 @@ using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Tests.Support;
 using BarrierLedger.Ledger.Uploads;
 using Microsoft.EntityFrameworkCore;
-using StateKind = BarrierLedger.Ledger.Records.StateKind;
 
 namespace BarrierLedger.Ledger.Tests.Reactions;
 

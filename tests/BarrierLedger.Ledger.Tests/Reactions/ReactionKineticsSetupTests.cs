@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Kinetics;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Accounts;
 using BarrierLedger.Ledger.Queries;
 using BarrierLedger.Ledger.Reactions;
@@ -7,7 +8,6 @@ using BarrierLedger.Ledger.Storage;
 using BarrierLedger.Ledger.Tests.Support;
 using BarrierLedger.Ledger.Uploads;
 using Microsoft.EntityFrameworkCore;
-using StateKind = BarrierLedger.Ledger.Records.StateKind;
 
 namespace BarrierLedger.Ledger.Tests.Reactions;
 

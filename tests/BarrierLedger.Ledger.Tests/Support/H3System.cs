@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text;
 using BarrierLedger.Core.Chemistry;
 using BarrierLedger.Core.Geometry;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Scans;
 using BarrierLedger.Core.Vibrations;
 using BarrierLedger.Ledger.Records;

@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Storage;
 using System.Text;
 using BarrierLedger.Core.Checks;

@@ -22,7 +22,7 @@ public sealed class ExportEndpointsTests
         }
     }
 
-    private static async Task<(int StudyId, int ReactionId)> StoreDemoAsync(ApiTestHost host)
+    internal static async Task<(int StudyId, int ReactionId)> StoreDemoAsync(ApiTestHost host)
     {
         var root = DemoFolder;
         var files = Directory.EnumerateFiles(root, "*", SearchOption.AllDirectories).Where(IsDataFile).Order(StringComparer.Ordinal)

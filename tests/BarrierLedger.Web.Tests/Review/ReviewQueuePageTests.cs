@@ -68,6 +68,12 @@ public sealed class ReviewQueuePageTests : IDisposable
         Assert.Equal($"Saddle points {ReviewQueuePage.PageSize + 1}–{total} of {total} awaiting sign-off.", cut.Find("p[role=status]").TextContent);
         Assert.Contains("Page 2 of 2", cut.Find("nav.paginator").TextContent);
         Assert.True(cut.FindAll("nav.paginator button").Single(b => b.TextContent == "Next").HasAttribute("disabled"));
+
+        // Back to where the first page started (the pages are found by key, not by skipping rows).
+        cut.FindAll("nav.paginator button").Single(b => b.TextContent == "Previous").Click();
+        cut.WaitForAssertion(() => Assert.Equal(ReviewQueuePage.PageSize, cut.FindAll("article").Count), TimeSpan.FromSeconds(30));
+        Assert.Equal($"Saddle points 1–{ReviewQueuePage.PageSize} of {total} awaiting sign-off.", cut.Find("p[role=status]").TextContent);
+        Assert.Contains("Page 1 of 2", cut.Find("nav.paginator").TextContent);
     }
 
     public void Dispose()

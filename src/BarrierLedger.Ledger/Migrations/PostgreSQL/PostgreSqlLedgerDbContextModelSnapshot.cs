@@ -303,6 +303,11 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
                         .HasColumnType("text")
                         .UseCollation("C");
 
+                    b.Property<string>("ReviewState")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("character varying(20)");
+
                     b.Property<string>("Solvation")
                         .IsRequired()
                         .HasColumnType("text")
@@ -867,10 +872,10 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     b.HasKey("Id");
 
-                    b.HasIndex("SaddleCalculationId");
-
                     b.HasIndex("ReactionId", "Position")
                         .IsUnique();
+
+                    b.HasIndex("SaddleCalculationId", "Id");
 
                     b.ToTable("ReactionStates", (string)null);
                 });
@@ -1170,6 +1175,8 @@ namespace BarrierLedger.Ledger.Migrations.PostgreSQL
 
                     b.HasIndex("Sha256")
                         .IsUnique();
+
+                    b.HasIndex("UploadedByUserId", "SizeBytes");
 
                     b.ToTable("StoredFiles", (string)null);
                 });

@@ -264,6 +264,11 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
                     b.Property<string>("RetiredByUserId")
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("ReviewState")
+                        .IsRequired()
+                        .HasMaxLength(20)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("Solvation")
                         .IsRequired()
                         .HasColumnType("TEXT");
@@ -778,10 +783,10 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
 
                     b.HasKey("Id");
 
-                    b.HasIndex("SaddleCalculationId");
-
                     b.HasIndex("ReactionId", "Position")
                         .IsUnique();
+
+                    b.HasIndex("SaddleCalculationId", "Id");
 
                     b.ToTable("ReactionStates", (string)null);
                 });
@@ -1052,6 +1057,8 @@ namespace BarrierLedger.Ledger.Migrations.Sqlite
 
                     b.HasIndex("Sha256")
                         .IsUnique();
+
+                    b.HasIndex("UploadedByUserId", "SizeBytes");
 
                     b.ToTable("StoredFiles", (string)null);
                 });

@@ -10,6 +10,7 @@ internal sealed class CalculationConfiguration : IEntityTypeConfiguration<Calcul
     {
         b.ToTable("Calculations");
         b.Property(e => e.Kind).HasConversion<string>().HasMaxLength(20);
+        b.Property(e => e.ReviewState).HasConversion<string>().HasMaxLength(20);
         b.Property(e => e.Label).HasMaxLength(200);
         b.Property(e => e.Conformer).HasMaxLength(Calculation.MaxConformerLength);
         b.Property(e => e.LevelOfTheory).HasMaxLength(400);

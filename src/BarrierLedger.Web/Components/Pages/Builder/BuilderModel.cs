@@ -1,3 +1,4 @@
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Ledger.Reactions;
 using BarrierLedger.Ledger.Records;
 

@@ -1,4 +1,5 @@
 using BarrierLedger.Core.Diagrams;
+using BarrierLedger.Core.Pathways;
 using BarrierLedger.Core.Units;
 using BarrierLedger.Ledger.Derivation;
 using BarrierLedger.Ledger.Records;
